@@ -1,0 +1,23 @@
+import type { Metadata } from 'next';
+import { SignInForm } from './sign-in-form';
+
+export const metadata: Metadata = { title: 'Sign in' };
+
+export default async function SignInPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  const sp = await searchParams;
+  const next = typeof sp.next === 'string' && sp.next.startsWith('/') && !sp.next.startsWith('//') ? sp.next : '/go';
+  return (
+    <main className="mx-auto flex min-h-dvh max-w-md flex-col justify-center gap-6 px-5 py-8">
+      <p className="text-3xl font-extrabold tracking-tight">
+        Rig<span className="rounded bg-vest px-1 text-on-vest">Call</span>
+      </p>
+      <h1 className="text-4xl font-extrabold">Sign in</h1>
+      {sp.signedOut ? (
+        <p role="status" className="rounded-lg border-slab border-edge bg-panel p-4 text-lg">
+          You are signed out.
+        </p>
+      ) : null}
+      <SignInForm next={next} />
+    </main>
+  );
+}

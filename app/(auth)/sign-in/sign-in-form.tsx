@@ -1,0 +1,56 @@
+'use client';
+
+import { signIn } from 'next-auth/react';
+import { useState, type FormEvent } from 'react';
+import { slabClass } from '@/components/ui/slab-button';
+
+const field = 'min-h-target w-full rounded-lg border-slab border-edge bg-panel px-4 text-xl text-ink placeholder:text-muted';
+
+export function SignInForm({ next }: { next: string }) {
+  const [error, setError] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+
+  async function onSubmit(e: FormEvent<HTMLFormElement>) {
+    e.preventDefault();
+    const form = new FormData(e.currentTarget);
+    setBusy(true);
+    setError(null);
+    try {
+      const res = await signIn('credentials', {
+        email: String(form.get('email') ?? ''),
+        password: String(form.get('password') ?? ''),
+        redirect: false,
+      });
+      if (res?.ok && !res.error) {
+        window.location.assign(next);
+        return;
+      }
+      setError('That e-mail and password do not match an active account. Check both and try again.');
+    } catch {
+      setError('RigCall cannot be reached. Check the connection and try again.');
+    }
+    setBusy(false);
+  }
+
+  return (
+    <form onSubmit={onSubmit} className="flex flex-col gap-4" noValidate>
+      <label className="flex flex-col gap-2 text-lg font-bold">
+        E-mail
+        <input name="email" type="email" autoComplete="username" inputMode="email" required className={field} />
+      </label>
+      <label className="flex flex-col gap-2 text-lg font-bold">
+        Password
+        <input name="password" type="password" autoComplete="current-password" required className={field} />
+      </label>
+      {error ? (
+        <p role="alert" className="rounded-lg border-slab border-major bg-panel p-4 text-lg font-bold text-major">
+          <span aria-hidden="true">▲ </span>
+          {error}
+        </p>
+      ) : null}
+      <button type="submit" className={slabClass('primary')} disabled={busy}>
+        {busy ? 'Signing in…' : 'Sign in'}
+      </button>
+    </form>
+  );
+}

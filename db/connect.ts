@@ -1,0 +1,27 @@
+import { CamelCasePlugin, Kysely, PostgresDialect } from 'kysely';
+import pg from 'pg';
+import type { DB as Database } from './schema';
+
+// int8 (counts, sums) and numeric come back from pg as strings; the app wants numbers.
+pg.types.setTypeParser(pg.types.builtins.INT8, (v) => Number(v));
+pg.types.setTypeParser(pg.types.builtins.NUMERIC, (v) => Number(v));
+
+export type DB = Kysely<Database>;
+
+/**
+ * Build a Kysely instance over a pg pool. The app has exactly one (lib/db); the command-line
+ * tools (migrate, seed, benchmarks) and the tests make their own, one per process.
+ */
+export function createDb(connectionString: string, max = 10): DB {
+  return new Kysely<Database>({
+    dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString, max }) }),
+    plugins: [new CamelCasePlugin({ maintainNestedObjectKeys: true })],
+  });
+}
+
+/** The database URL of a command-line tool, with a clear message when it is missing. */
+export function databaseUrlFromEnv(): string {
+  const url = process.env.DATABASE_URL;
+  if (!url) throw new Error('DATABASE_URL is not set. Run through `npm start` / `npm test`, or see .env.example.');
+  return url;
+}

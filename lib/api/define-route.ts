@@ -1,0 +1,117 @@
+import 'server-only';
+import { getToken } from 'next-auth/jwt';
+import { z, type ZodType } from 'zod';
+import { findActiveUser } from '@/lib/db/users';
+import { getEnv } from '@/lib/env';
+import { AppError } from '@/lib/errors';
+import { isRole, type Role } from '@/lib/auth/roles';
+
+export type RouteUser = { id: string; name: string; email: string; fleetId: string; roles: Role[] };
+
+type RouteContext = { params: Promise<Record<string, string | string[] | undefined>> };
+
+type Options<P, B, Q> = {
+  /** Roles allowed to call the route; 'public' for routes that need no session (health, sign-in). */
+  roles: readonly Role[] | 'public';
+  params?: ZodType<P>;
+  body?: ZodType<B>;
+  query?: ZodType<Q>;
+  /** Largest accepted body, in bytes. */
+  maxBodyBytes?: number;
+};
+
+type Handler<P, B, Q, U> = (ctx: { req: Request; user: U; params: P; body: B; query: Q }) => Promise<Response>;
+
+const errorResponse = (e: AppError) => Response.json(e.toBody(), { status: e.status });
+
+/** zod issues → readable per-field messages, for a form to show beside each field. */
+export function fieldsFromZod(error: z.ZodError): Record<string, string[]> {
+  const fields: Record<string, string[]> = {};
+  for (const issue of error.issues) {
+    const key = issue.path.length ? issue.path.join('.') : '_';
+    (fields[key] ??= []).push(issue.message);
+  }
+  return fields;
+}
+
+function parseOrThrow<T>(schema: ZodType<T>, value: unknown, what: string): T {
+  const r = schema.safeParse(value);
+  if (r.success) return r.data;
+  const fields = fieldsFromZod(r.error);
+  const first = Object.entries(fields)[0];
+  const message = first ? `${what}: ${first[0] === '_' ? '' : `${first[0]}: `}${first[1][0]}` : `${what} is not valid`;
+  throw new AppError('invalid_body', message, fields);
+}
+
+function cookieMap(header: string | null): Map<string, string> {
+  const map = new Map<string, string>();
+  for (const part of (header ?? '').split(';')) {
+    const i = part.indexOf('=');
+    if (i > 0) map.set(part.slice(0, i).trim(), decodeURIComponent(part.slice(i + 1).trim()));
+  }
+  return map;
+}
+
+/** The signed-in user of a request, from the session cookie, checked against the database. */
+export async function readRequestUser(req: Request): Promise<RouteUser | null> {
+  const token = await getToken({
+    req: { headers: req.headers, cookies: cookieMap(req.headers.get('cookie')) } as never,
+    secret: getEnv().NEXTAUTH_SECRET,
+  });
+  if (!token?.uid) return null;
+  const user = await findActiveUser(token.uid);
+  if (!user) return null;
+  return { ...user, roles: user.roles.filter(isRole) };
+}
+
+async function readBody(req: Request, maxBytes: number): Promise<unknown> {
+  const type = req.headers.get('content-type') ?? '';
+  if (!/^application\/json\b/i.test(type)) {
+    throw new AppError('unsupported_media_type', 'Send the request body as JSON (Content-Type: application/json).');
+  }
+  const text = await req.text();
+  if (Buffer.byteLength(text) > maxBytes) throw new AppError('payload_too_large', `The request body is larger than ${Math.round(maxBytes / 1024)} KB.`);
+  if (!text.trim()) throw new AppError('invalid_json', 'The request body is empty; JSON was expected.');
+  try {
+    return JSON.parse(text) as unknown;
+  } catch {
+    throw new AppError('invalid_json', 'The request body is not valid JSON.');
+  }
+}
+
+/**
+ * Every route handler goes through here, in order: session (401) → role (403) → params →
+ * JSON body (400/415) → zod (422) → handler → AppError mapped by its code; anything else 500.
+ */
+export function defineRoute<P = undefined, B = undefined, Q = undefined>(
+  opts: Options<P, B, Q> & { roles: 'public' },
+  handler: Handler<P, B, Q, RouteUser | null>,
+): (req: Request, ctx: RouteContext) => Promise<Response>;
+export function defineRoute<P = undefined, B = undefined, Q = undefined>(
+  opts: Options<P, B, Q> & { roles: readonly Role[] },
+  handler: Handler<P, B, Q, RouteUser>,
+): (req: Request, ctx: RouteContext) => Promise<Response>;
+export function defineRoute<P, B, Q>(opts: Options<P, B, Q>, handler: Handler<P, B, Q, never>) {
+  return async (req: Request, ctx: RouteContext): Promise<Response> => {
+    try {
+      const user = await readRequestUser(req);
+      if (opts.roles !== 'public') {
+        if (!user) throw new AppError('unauthenticated', 'Sign in first.');
+        const allowed = opts.roles;
+        if (!allowed.some((r) => user.roles.includes(r))) {
+          throw new AppError('forbidden', `This needs the ${allowed.join(' or ')} role.`);
+        }
+      }
+      const params = opts.params ? parseOrThrow(opts.params, await ctx.params, 'Address') : (undefined as P);
+      const query = opts.query
+        ? parseOrThrow(opts.query, Object.fromEntries(new URL(req.url).searchParams), 'Query')
+        : (undefined as Q);
+      const body = opts.body ? parseOrThrow(opts.body, await readBody(req, opts.maxBodyBytes ?? 256 * 1024), 'Request') : (undefined as B);
+      return await handler({ req, user: user as never, params, body, query });
+    } catch (err) {
+      if (err instanceof AppError) return errorResponse(err);
+      console.error('[rigcall] unhandled error in route handler', req.method, new URL(req.url).pathname, err);
+      return errorResponse(new AppError('internal', 'Something went wrong on our side. Try again in a moment.'));
+    }
+  };
+}
