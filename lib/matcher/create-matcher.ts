@@ -1,0 +1,526 @@
+import Fuse from 'fuse.js';
+import { grammarSchema } from '@/lib/schemas/grammar';
+import type { CommandId, Grammar, MeasureKind, Unit } from '@/lib/schemas/grammar';
+import { createNormalizer } from './normalize-text';
+import { getPhoneticKey } from './phonetic-key';
+import { createQuantityReader } from './read-quantities';
+import type { Quantity } from './read-quantities';
+import type { MatchAlternative, MatchContext, MatchResult, Matcher } from './types';
+
+/** At or above this score a finding or measurement is recorded directly; below it the UI asks "did you mean …?". */
+export const CONFIRM_THRESHOLD = 0.75;
+/** Below this score nothing is offered as the reading: the result is `unknown` (alternatives may still be listed). */
+export const ACCEPT_THRESHOLD = 0.55;
+
+type Resolved = { word: string; sim: number };
+type PhraseRef = { owner: number; words: string[]; idf: number[]; weightSum: number };
+type Coverage = { owner: number; cov: number; mass: number; phrase: number; tokens: Set<number> };
+type PositionHit = { id: string; group: string; start: number; end: number };
+
+const GROUP_ORDER = ['side', 'end', 'axle_group', 'axle', 'dual', 'height'];
+const MEASURE_RANGES: Record<Unit, [number, number]> = {
+  '32nds': [0, 32],
+  psi: [0, 200],
+  s: [0, 1800],
+  min: [0, 30],
+  in: [0, 60],
+  count: [0, 1000],
+};
+
+function getLevenshteinSimilarity(a: string, b: string): number {
+  if (a === b) return 1;
+  const m = a.length;
+  const n = b.length;
+  if (m === 0 || n === 0) return 0;
+  let prev = Array.from({ length: n + 1 }, (_, j) => j);
+  for (let i = 1; i <= m; i += 1) {
+    const cur = [i];
+    for (let j = 1; j <= n; j += 1) {
+      const cost = a[i - 1] === b[j - 1] ? 0 : 1;
+      cur.push(Math.min((prev[j] ?? 0) + 1, (cur[j - 1] ?? 0) + 1, (prev[j - 1] ?? 0) + cost));
+    }
+    prev = cur;
+  }
+  return 1 - (prev[n] ?? Math.max(m, n)) / Math.max(m, n);
+}
+
+function round3(x: number): number {
+  return Math.round(x * 1000) / 1000;
+}
+
+/**
+ * Build a matcher from grammar data (validated with zod; throws on a malformed grammar).
+ * Pure: no I/O, safe in the browser and in Node.
+ */
+export function createMatcher(grammarInput: Grammar | unknown): Matcher {
+  const grammar = grammarSchema.parse(grammarInput);
+  const { vocabulary, commands, positions, numbers } = grammar;
+  const normalize = createNormalizer(commands);
+  const readQuantities = createQuantityReader(numbers);
+  const fillers = new Set([...commands.fillers, 'please', 'hey', 'uh', 'um']);
+  const components = vocabulary.components;
+  const conditions = vocabulary.conditions;
+  const conditionIndex = new Map(conditions.map((c, i) => [c.id, i]));
+  const componentIndex = new Map(components.map((c, i) => [c.id, i]));
+  const pairs = new Map<string, { us: 'minor' | 'major'; ca: 'minor' | 'major'; source: string }>();
+  for (const comp of components) {
+    for (const d of comp.defects) pairs.set(`${comp.id}:${d.condition}`, { ...d.severity, source: d.source });
+  }
+  const componentsByCondition = new Map<number, number[]>();
+  for (const [ci, comp] of components.entries()) {
+    for (const d of comp.defects) {
+      const di = conditionIndex.get(d.condition);
+      if (di === undefined) continue;
+      const list = componentsByCondition.get(di) ?? [];
+      list.push(ci);
+      componentsByCondition.set(di, list);
+    }
+  }
+
+  // ---- phrase tables with IDF weights (word rarity across owners) ----
+  const buildPhrases = (owners: { phrases: string[] }[]) => {
+    const refs: PhraseRef[] = [];
+    const df = new Map<string, Set<number>>();
+    owners.forEach((o, owner) => {
+      for (const p of o.phrases) {
+        const words = normalize(p).filter((w) => !fillers.has(w) || o.phrases.length === 1);
+        if (words.length === 0) continue;
+        refs.push({ owner, words, idf: [], weightSum: 0 });
+        for (const w of words) {
+          const s = df.get(w) ?? new Set<number>();
+          s.add(owner);
+          df.set(w, s);
+        }
+      }
+    });
+    const n = owners.length;
+    const byWord = new Map<string, number[]>();
+    refs.forEach((r, idx) => {
+      r.idf = r.words.map((w) => Math.log(1 + n / (df.get(w)?.size ?? 1)));
+      r.weightSum = r.idf.reduce((a, b) => a + b, 0);
+      for (const w of new Set(r.words)) {
+        const list = byWord.get(w) ?? [];
+        list.push(idx);
+        byWord.set(w, list);
+      }
+    });
+    return { refs, byWord };
+  };
+  const compTable = buildPhrases(components);
+  const condTable = buildPhrases(conditions);
+
+  // ---- commands ----
+  const commandByKey = new Map<string, CommandId>();
+  const stripFillers = (ws: string[]) => ws.filter((w) => !fillers.has(w));
+  for (const c of commands.commands) {
+    for (const p of c.phrases) {
+      const ws = normalize(p);
+      commandByKey.set(ws.join(' '), c.id);
+      const stripped = stripFillers(ws).join(' ');
+      if (stripped && !commandByKey.has(stripped)) commandByKey.set(stripped, c.id);
+    }
+  }
+  const commandKeys = [...commandByKey.keys()];
+  const okWords = new Set(['good', 'fine', 'ok', 'okay', 'clear']);
+
+  // ---- positions ----
+  const positionPhrases = positions.positions
+    .flatMap((p) => p.phrases.map((ph) => ({ id: p.id, group: p.group, words: normalize(ph) })))
+    .filter((p) => p.words.length > 0)
+    .sort((a, b) => b.words.length - a.words.length);
+  const axleWords = new Set(positions.axleWords);
+  const ordinals = Object.entries(positions.ordinals).map(([k, v]) => ({ words: normalize(k), value: v }));
+
+  // ---- measurement words ----
+  const measurePhrases = (Object.entries(numbers.measureWords) as [MeasureKind, string[]][])
+    .flatMap(([kind, ps]) => ps.map((p) => ({ kind, words: normalize(p) })))
+    .filter((p) => p.words.length > 0)
+    .sort((a, b) => b.words.length - a.words.length);
+  const unitPhraseWords = new Set(Object.values(numbers.unitWords).flatMap((ps) => ps.flatMap((p) => normalize(p))));
+
+  // ---- the lexicon: every word we know, fuzzy + sound-alike lookup for the rest ----
+  const contentWords = new Set<string>([...compTable.byWord.keys(), ...condTable.byWord.keys()]);
+  for (const p of positionPhrases) for (const w of p.words) contentWords.add(w);
+  for (const p of measurePhrases) for (const w of p.words) contentWords.add(w);
+  const numberWords = new Set([
+    ...Object.keys(numbers.units),
+    ...Object.keys(numbers.tens),
+    ...Object.keys(numbers.scales),
+    ...Object.keys(numbers.fractions),
+    'point',
+    'and',
+  ]);
+  const knownWords = new Set<string>([...contentWords, ...numberWords, ...fillers, ...unitPhraseWords, ...axleWords]);
+  for (const k of commandKeys) for (const w of k.split(' ')) knownWords.add(w);
+  const lexiconList = [...contentWords].filter((w) => w.length >= 3 && !/^\d/.test(w));
+  const lexicon = new Fuse(lexiconList, { includeScore: true, threshold: 0.34, ignoreLocation: true, minMatchCharLength: 2 });
+  const byPhonetic = new Map<string, string[]>();
+  for (const w of lexiconList) {
+    const k = getPhoneticKey(w);
+    if (k.length < 2) continue;
+    const list = byPhonetic.get(k) ?? [];
+    list.push(w);
+    byPhonetic.set(k, list);
+  }
+  const resolveCache = new Map<string, Resolved[]>();
+  const resolveToken = (t: string): Resolved[] => {
+    const hit = resolveCache.get(t);
+    if (hit) return hit;
+    let out: Resolved[] = [];
+    if (knownWords.has(t)) out = [{ word: t, sim: 1 }];
+    else if (/^[a-z]+$/.test(t)) {
+      const stems = [t.endsWith('ies') ? `${t.slice(0, -3)}y` : '', t.endsWith('es') ? t.slice(0, -2) : '', t.endsWith('s') ? t.slice(0, -1) : '', t.endsWith('ed') ? t.slice(0, -1) : '', t.endsWith('ing') ? t.slice(0, -3) : ''];
+      const stem = stems.find((s) => s.length >= 2 && contentWords.has(s));
+      if (stem) out = [{ word: stem, sim: 0.97 }];
+      if (out.length === 0 && t.length >= 6) {
+        for (let k = 3; k <= t.length - 3; k += 1) {
+          const a = t.slice(0, k);
+          const b = t.slice(k);
+          if (contentWords.has(a) && contentWords.has(b)) {
+            out = [{ word: a, sim: 0.95 }, { word: b, sim: 0.95 }];
+            break;
+          }
+        }
+      }
+      if (out.length === 0 && t.length >= 3) {
+        const same = byPhonetic.get(getPhoneticKey(t));
+        if (same) out = same.slice(0, 3).map((word) => ({ word, sim: 0.86 }));
+      }
+      if (out.length === 0 && t.length >= 4) {
+        out = lexicon
+          .search(t, { limit: 3 })
+          .map((r) => ({ word: r.item, sim: 0.9 * (1 - (r.score ?? 1)) }))
+          .filter((r) => r.sim >= 0.6 && Math.abs(r.word.length - t.length) <= 3);
+      }
+    }
+    if (resolveCache.size > 5000) resolveCache.clear();
+    resolveCache.set(t, out);
+    return out;
+  };
+
+  const scoreTable = (table: ReturnType<typeof buildPhrases>, tokens: string[], resolved: Resolved[][]): Coverage[] => {
+    const best = new Map<string, { sim: number; token: number }>();
+    resolved.forEach((rs, ti) => {
+      for (const r of rs) {
+        const cur = best.get(r.word);
+        if (!cur || cur.sim < r.sim) best.set(r.word, { sim: r.sim, token: ti });
+      }
+    });
+    void tokens;
+    const touched = new Set<number>();
+    for (const w of best.keys()) for (const idx of table.byWord.get(w) ?? []) touched.add(idx);
+    const byOwner = new Map<number, Coverage>();
+    for (const idx of touched) {
+      const ref = table.refs[idx];
+      if (!ref) continue;
+      let got = 0;
+      const used = new Set<number>();
+      ref.words.forEach((w, k) => {
+        const b = best.get(w);
+        if (b) {
+          got += (ref.idf[k] ?? 0) * b.sim;
+          used.add(b.token);
+        }
+      });
+      const cov = got / (ref.weightSum || 1);
+      const cur = byOwner.get(ref.owner);
+      if (!cur || cov > cur.cov + 1e-9 || (Math.abs(cov - cur.cov) < 1e-9 && got > cur.mass)) {
+        byOwner.set(ref.owner, { owner: ref.owner, cov, mass: got, phrase: idx, tokens: used });
+      }
+    }
+    return [...byOwner.values()].sort((a, b) => b.cov - a.cov || b.mass - a.mass);
+  };
+
+  const findPositions = (tokens: string[], quantities: Quantity[]): PositionHit[] => {
+    const hits: PositionHit[] = [];
+    const taken = new Set<number>();
+    for (let i = 0; i < tokens.length; i += 1) {
+      if (axleWords.has(tokens[i] ?? '')) {
+        const q = quantities.find((x) => x.start === i + 1 && x.unit === null && Number.isInteger(x.value) && x.value >= 1 && x.value <= 6);
+        if (q) {
+          hits.push({ id: `axle ${q.value}`, group: 'axle', start: i, end: q.end });
+          for (let k = i; k < q.end; k += 1) taken.add(k);
+          continue;
+        }
+        for (const o of ordinals) {
+          const s = i - o.words.length;
+          if (s >= 0 && o.words.every((w, k) => tokens[s + k] === w)) {
+            hits.push({ id: `axle ${o.value}`, group: 'axle', start: s, end: i + 1 });
+            for (let k = s; k <= i; k += 1) taken.add(k);
+            break;
+          }
+        }
+      }
+    }
+    for (let i = 0; i < tokens.length; i += 1) {
+      if (taken.has(i)) continue;
+      for (const p of positionPhrases) {
+        if (p.words.every((w, k) => tokens[i + k] === w && !taken.has(i + k))) {
+          hits.push({ id: p.id, group: p.group, start: i, end: i + p.words.length });
+          for (let k = i; k < i + p.words.length; k += 1) taken.add(k);
+          i += p.words.length - 1;
+          break;
+        }
+      }
+    }
+    return hits;
+  };
+
+  const formatPositions = (hits: PositionHit[], exclude: Set<number>): string[] => {
+    const kept = hits.filter((h) => {
+      for (let k = h.start; k < h.end; k += 1) if (!exclude.has(k)) return true;
+      return false;
+    });
+    const seen = new Set<string>();
+    return kept
+      .sort((a, b) => GROUP_ORDER.indexOf(a.group) - GROUP_ORDER.indexOf(b.group))
+      .filter((h) => {
+        const key = h.group === 'axle' ? 'axle' : h.group;
+        if (seen.has(key)) return false;
+        seen.add(key);
+        return true;
+      })
+      .map((h) => h.id);
+  };
+
+  const emptyResult = (input: string): MatchResult => ({
+    input,
+    kind: 'unknown',
+    command: null,
+    component: null,
+    condition: null,
+    position: null,
+    severity: null,
+    value: null,
+    unit: null,
+    termId: null,
+    score: 0,
+    alternatives: [],
+    componentId: null,
+    conditionId: null,
+    system: null,
+    measure: null,
+    positions: [],
+    severities: null,
+    source: null,
+    needsConfirmation: false,
+  });
+
+  const matchCommand = (tokens: string[]): { id: CommandId; score: number } | null => {
+    const raw = tokens.join(' ');
+    const stripped = stripFillers(tokens).join(' ');
+    const exact = commandByKey.get(raw) ?? (stripped ? commandByKey.get(stripped) : undefined);
+    if (exact) return { id: exact, score: 1 };
+    if (tokens.length > 4 || stripped.length < 3) return null;
+    if (stripFillers(tokens).some((w) => contentWords.has(w) && !commandByKey.has(w))) return null;
+    let best: { id: CommandId; score: number } | null = null;
+    for (const k of commandKeys) {
+      if (k.length < 4) continue;
+      const sim = getLevenshteinSimilarity(stripped, k);
+      if (sim >= 0.8 && (!best || sim > best.score)) best = { id: commandByKey.get(k) ?? 'repeat', score: sim };
+    }
+    return best;
+  };
+
+  const match = (text: string, ctx: MatchContext = {}): MatchResult => {
+    const input = typeof text === 'string' ? text : '';
+    const result = emptyResult(input);
+    let tokens: string[];
+    try {
+      tokens = normalize(input);
+    } catch {
+      return result;
+    }
+    if (tokens.length === 0 || tokens.every((t) => fillers.has(t))) return result;
+    const profile = ctx.profile ?? 'us';
+
+    // 1. commands and "all good"
+    const cmd = matchCommand(tokens);
+    if (cmd) {
+      return { ...result, kind: cmd.id === 'ok' ? 'ok' : 'command', command: cmd.id, termId: `command:${cmd.id}`, score: round3(cmd.score), needsConfirmation: cmd.score < 1 };
+    }
+
+    const resolved = tokens.map((t) => resolveToken(t));
+    const quantities = readQuantities(tokens, { timeContext: ctx.measure === 'air_buildup' });
+    const posHits = findPositions(tokens, quantities);
+    const compCov = scoreTable(compTable, tokens, resolved);
+    const condCov = scoreTable(condTable, tokens, resolved);
+    const bestComp = compCov[0];
+
+    const numberTokens = new Set<number>();
+    for (const q of quantities) for (let k = q.start; k < q.end; k += 1) numberTokens.add(k);
+    const positionTokens = new Set<number>();
+    for (const h of posHits) for (let k = h.start; k < h.end; k += 1) positionTokens.add(k);
+    const contentIdx = tokens.map((t, i) => (fillers.has(t) && !numberTokens.has(i) ? -1 : i)).filter((i) => i >= 0);
+
+    const componentFields = (c: Coverage | undefined, threshold: number) => {
+      if (!c || c.cov < threshold) return null;
+      const comp = components[c.owner];
+      if (!comp) return null;
+      return { comp, tokens: c.tokens };
+    };
+
+    // 2. measurements
+    if (quantities.length > 0) {
+      const measureHits: { kind: MeasureKind; start: number; end: number }[] = [];
+      for (let i = 0; i < tokens.length; i += 1) {
+        for (const p of measurePhrases) {
+          if (p.words.every((w, k) => tokens[i + k] === w)) {
+            measureHits.push({ kind: p.kind, start: i, end: i + p.words.length });
+            i += p.words.length - 1;
+            break;
+          }
+        }
+      }
+      const explicitKind = [...measureHits].sort((a, b) => b.end - b.start - (a.end - a.start))[0]?.kind ?? null;
+      const withUnit = quantities.find((q) => q.unit !== null);
+      const unitKind = (u: Unit | null): MeasureKind | null => {
+        if (u === '32nds') return 'tread_depth';
+        if (u === 's') return 'air_buildup';
+        if (u === 'psi') return ctx.zone === 'air_brake_tests' ? null : 'tire_pressure';
+        return null;
+      };
+      const ctxMeasure = ctx.measure ?? null;
+      const compatible = (k: MeasureKind | null, u: Unit | null) => k !== null && (u === null || numbers.measureUnits[k] === u || (u === 's' && k === 'air_leak') || (u === '32nds' && false));
+      let kind: MeasureKind | null = explicitKind;
+      if (!kind && ctxMeasure && compatible(ctxMeasure, withUnit?.unit ?? null)) kind = ctxMeasure;
+      if (!kind) kind = unitKind(withUnit?.unit ?? null);
+      if (!kind && ctxMeasure && withUnit?.unit === 'psi' && numbers.measureUnits[ctxMeasure] === 'psi') kind = ctxMeasure;
+      if (kind) {
+        const want = numbers.measureUnits[kind];
+        const q =
+          quantities.find((x) => x.unit === want) ??
+          (kind === 'air_leak' ? undefined : undefined) ??
+          [...quantities].reverse().find((x) => x.unit === null) ??
+          (want === 'in' ? quantities.find((x) => x.unit === null) : undefined);
+        if (q) {
+          let value = q.value;
+          if (q.unit === null && q.fractionOnly && want === '32nds') value = q.value * 32;
+          const [lo, hi] = MEASURE_RANGES[want];
+          const explained = new Set<number>([...numberTokens, ...positionTokens]);
+          for (const h of measureHits) for (let k = h.start; k < h.end; k += 1) explained.add(k);
+          const comp = componentFields(bestComp, 0.6);
+          if (comp) for (const k of comp.tokens) explained.add(k);
+          const unexplained = contentIdx.filter((i) => !explained.has(i) && !unitPhraseWords.has(tokens[i] ?? '')).length;
+          const fromWords = explicitKind !== null || q.unit !== null;
+          const acceptable = value >= lo && value <= hi && Number.isFinite(value) && (fromWords ? unexplained <= 3 : unexplained <= 1);
+          if (acceptable) {
+            const score = explicitKind && q.unit ? 1 : fromWords ? 0.92 : 0.85;
+            const exclude = comp ? comp.tokens : new Set<number>();
+            const pos = formatPositions(posHits, exclude);
+            const compId = comp?.comp.id ?? ctx.component ?? null;
+            const compEntry = compId ? components[componentIndex.get(compId) ?? -1] : undefined;
+            return {
+              ...result,
+              kind: 'measurement',
+              component: compEntry?.name ?? null,
+              componentId: compEntry?.id ?? null,
+              system: compEntry?.system ?? null,
+              position: pos.length ? pos.join(' ') : null,
+              positions: pos,
+              value: round3(value),
+              unit: want,
+              measure: kind,
+              termId: `measure:${kind}`,
+              score: round3(Math.max(0, score - 0.05 * unexplained)),
+              needsConfirmation: score - 0.05 * unexplained < CONFIRM_THRESHOLD,
+            };
+          }
+        }
+      }
+    }
+
+    // 3. findings: component × condition slots
+    const explainedBase = new Set<number>([...positionTokens, ...numberTokens]);
+    const topComps = compCov.filter((c) => c.cov >= 0.5).slice(0, 10);
+    const topConds = condCov.filter((c) => c.cov >= 0.6).slice(0, 6);
+    const ctxComp = ctx.component ? componentIndex.get(ctx.component) : undefined;
+    type Cand = { comp: number; cond: number; score: number; tokens: Set<number> };
+    const cands: Cand[] = [];
+    const contentCount = Math.max(1, contentIdx.length);
+    const scorePair = (ci: number, compScore: number, compTokens: Set<number>, d: Coverage) => {
+      const comp = components[ci];
+      const cond = conditions[d.owner];
+      if (!comp || !cond || !pairs.has(`${comp.id}:${cond.id}`)) return;
+      let cs = compScore;
+      if (compTokens.size > 0 && [...compTokens].every((t) => d.tokens.has(t))) cs *= 0.5;
+      const used = new Set<number>([...explainedBase, ...compTokens, ...d.tokens]);
+      const expl = contentIdx.filter((i) => used.has(i)).length / contentCount;
+      let bonus = 0;
+      if (ctx.zone) bonus += comp.zones.includes(ctx.zone as never) ? 0.03 : -0.04;
+      if (ctxComp === ci) bonus += 0.03;
+      const score = Math.min(1, Math.max(0, 0.45 * cs + 0.3 * d.cov + 0.25 * expl + bonus));
+      cands.push({ comp: ci, cond: d.owner, score, tokens: used });
+    };
+    for (const d of topConds) {
+      for (const c of topComps) scorePair(c.owner, c.cov, c.tokens, d);
+      // a bare condition ("flat") on the item in front of the driver
+      if (ctxComp !== undefined && !topComps.some((c) => c.owner === ctxComp && c.cov >= 0.99)) scorePair(ctxComp, 0.75, new Set(), d);
+    }
+    cands.sort((a, b) => b.score - a.score);
+    const alternativesOf = (list: Cand[]): MatchAlternative[] =>
+      list.slice(0, 4).map((c) => ({
+        termId: `${components[c.comp]?.id}:${conditions[c.cond]?.id}`,
+        component: components[c.comp]?.name ?? '',
+        condition: conditions[c.cond]?.name ?? '',
+        score: round3(c.score),
+      }));
+    const best = cands[0];
+    if (!best || best.score < ACCEPT_THRESHOLD) {
+      // "left steer tire looks good": an item-level OK
+      const comp = componentFields(bestComp, 0.9);
+      if (comp && tokens.some((t) => okWords.has(t)) && (condCov[0]?.cov ?? 0) < 0.6) {
+        const pos = formatPositions(posHits, comp.tokens);
+        return { ...result, kind: 'ok', command: 'ok', component: comp.comp.name, componentId: comp.comp.id, system: comp.comp.system, position: pos.join(' ') || null, positions: pos, termId: `${comp.comp.id}:ok`, score: round3(0.9 * (bestComp?.cov ?? 0)), needsConfirmation: true };
+      }
+      return { ...result, alternatives: alternativesOf(cands) };
+    }
+    const comp = components[best.comp];
+    const cond = conditions[best.cond];
+    if (!comp || !cond) return result;
+    const pair = pairs.get(`${comp.id}:${cond.id}`);
+    const compTokens = topComps.find((c) => c.owner === best.comp)?.tokens ?? new Set<number>();
+    const pos = formatPositions(posHits, compTokens);
+    const q = quantities.find((x) => x.unit !== null);
+    return {
+      ...result,
+      kind: 'defect',
+      component: comp.name,
+      condition: cond.name,
+      componentId: comp.id,
+      conditionId: cond.id,
+      system: comp.system,
+      position: pos.length ? pos.join(' ') : null,
+      positions: pos,
+      severity: pair ? pair[profile] : null,
+      severities: pair ? { us: pair.us, ca: pair.ca } : null,
+      source: pair?.source ?? null,
+      value: q ? round3(q.value) : null,
+      unit: q?.unit ?? null,
+      termId: `${comp.id}:${cond.id}`,
+      score: round3(best.score),
+      alternatives: alternativesOf(cands.slice(1)),
+      needsConfirmation: best.score < CONFIRM_THRESHOLD,
+    };
+  };
+
+  const matchAlternatives = (alternatives: readonly string[], ctx: MatchContext = {}): MatchResult => {
+    const list = Array.isArray(alternatives) ? alternatives.filter((a) => typeof a === 'string').slice(0, 5) : [];
+    if (list.length === 0) return emptyResult('');
+    let best: { r: MatchResult; s: number } | null = null;
+    list.forEach((alt, i) => {
+      const r = match(alt, ctx);
+      const s = (r.kind === 'unknown' ? 0 : 1) + r.score * (1 - 0.03 * i);
+      if (!best || s > best.s) best = { r, s };
+    });
+    const chosen = (best as { r: MatchResult; s: number } | null)?.r ?? emptyResult(list[0] ?? '');
+    return chosen;
+  };
+
+  const phraseCount =
+    new Set(components.flatMap((c) => c.phrases)).size +
+    new Set(conditions.flatMap((c) => c.phrases)).size +
+    new Set(commands.commands.flatMap((c) => c.phrases)).size;
+
+  return { match, matchAlternatives, phraseCount };
+}
