@@ -496,6 +496,10 @@ async function cmdTest() {
   const reports = path.join(dataDir, 'reports');
   fs.mkdirSync(reports, { recursive: true });
 
+  say('generated schema types match the migrated database (kysely-codegen --verify)…');
+  const codegen = run(process.execPath, ['node_modules/kysely-codegen/dist/cli/bin.js', '--verify'], { env: { ...process.env, ...env } });
+  stages.push({ name: 'schema types', ok: codegen === 0 });
+
   say('typecheck (tsc --noEmit)…');
   const tsc = run(process.execPath, ['node_modules/typescript/bin/tsc', '--noEmit']);
   stages.push({ name: 'typecheck', ok: tsc === 0 });
