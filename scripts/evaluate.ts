@@ -4,7 +4,7 @@
  * program goes on. Optional `--profile us|ca` sets the default profile (a line's own `profile` wins).
  */
 import { createInterface } from 'node:readline';
-import { evaluateMeasurement } from '../lib/rules/evaluate-measurement';
+import { evaluateMeasurement } from '../lib/rules/index';
 
 function readProfileArgument(argv: readonly string[]): string | undefined {
   const index = argv.indexOf('--profile');
@@ -13,7 +13,7 @@ function readProfileArgument(argv: readonly string[]): string | undefined {
   return inline?.slice('--profile='.length);
 }
 
-export function evaluateLine(line: string, profile: string | undefined): string {
+function evaluateLine(line: string, profile: string | undefined): string {
   const text = line.trim();
   if (text === '') return JSON.stringify({ error: 'empty line: expected one JSON measurement' });
   let input: unknown;

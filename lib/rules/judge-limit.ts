@@ -106,6 +106,7 @@ export function judgeLimit(
   let message: string;
 
   if (passes) {
+    if (rule.outOfService) oos = false;
     if (
       rule.advisory &&
       !meetsLimit(value, rule.advisory.limit, rule.direction, rule.advisory.inclusive)
