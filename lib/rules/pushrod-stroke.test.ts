@@ -45,7 +45,7 @@ describe('pushrod stroke, 49 CFR 393.47(e) table', () => {
     expect(over.source).toMatch(/NSC 13 Schedule 1 Part 1/);
   });
 
-  // Worked example (standards §2a): 2-1/8 in on an unmarked type 30 is out of adjustment; on a 30LS it is within 2-1/2 in.
+  // 49 CFR 393.47(e) worked example: 2-1/8 in on an unmarked type 30 is out of adjustment; on a 30LS it is within 2-1/2 in.
   it('worked example: 2-1/8 in fails a type 30 and passes a tagged 30LS', () => {
     const standard = judge({ check: 'pushrod_stroke', chamber: '30', value: 2.125 });
     expect(standard).toMatchObject({ verdict: 'fail', severity: 'major', limit: 2 });

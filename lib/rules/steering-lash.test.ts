@@ -36,13 +36,13 @@ describe('steering lash, 49 CFR 393.209(b) table', () => {
     expect(judge({ check: 'steering_lash', wheel_diameter: diameter, power: true, value: power, profile: 'ca' }).verdict).toBe('pass');
   });
 
-  // Worked example (standards §3): 20 in power wheel, 4 in lash → within 5-1/4; same 4 in on manual → over 2-1/2.
+  // 49 CFR 393.209(b) worked example: 20 in power wheel, 4 in lash → within 5-1/4; same 4 in on manual → over 2-1/2.
   it('worked example: 4 in on a 20 in wheel passes power, fails manual', () => {
     expect(judge({ check: 'steering_lash', wheel_diameter: 20, power: true, value: 4 }).verdict).toBe('pass');
     expect(judge({ check: 'steering_lash', wheel_diameter: 20, power: false, value: 4 })).toMatchObject({ verdict: 'fail', severity: 'major' });
   });
 
-  // lash = π × D × angle / 360 (standards §3 identity check).
+  // 49 CFR 393.209(b)(2): lash = π × D × angle / 360.
   it('angle identity: 20 in × 14° ≈ 2.44 in, 20 in × 30° ≈ 5.24 in', () => {
     expect(convertLashAngleToInches(20, 14)).toBeCloseTo(2.443, 3);
     expect(convertLashAngleToInches(20, 30)).toBeCloseTo(5.236, 3);
