@@ -14,7 +14,7 @@ export const ACCEPT_THRESHOLD = 0.55;
 
 type Resolved = { word: string; sim: number };
 type PhraseRef = { owner: number; words: string[]; idf: number[]; weightSum: number };
-type Coverage = { owner: number; cov: number; mass: number; phrase: number; tokens: Set<number> };
+type Coverage = { owner: number; cov: number; mass: number; phrase: number; tokens: Set<number>; words: string[]; exact: boolean };
 type PositionHit = { id: string; group: string; start: number; end: number };
 
 const GROUP_ORDER = ['side', 'end', 'axle_group', 'axle', 'dual', 'height'];
@@ -42,6 +42,13 @@ function getLevenshteinSimilarity(a: string, b: string): number {
     prev = cur;
   }
   return 1 - (prev[n] ?? Math.max(m, n)) / Math.max(m, n);
+}
+
+/** Plural to singular for matching only: "lights" → "light", "batteries" → "battery"; "glass", "chassis" stay. */
+function stemWord(w: string): string {
+  if (w.length > 4 && w.endsWith('ies')) return `${w.slice(0, -3)}y`;
+  if (w.length > 3 && w.endsWith('s') && !/(ss|us|is)$/.test(w) && /^[a-z]+$/.test(w)) return w.slice(0, -1);
+  return w;
 }
 
 function round3(x: number): number {
@@ -83,7 +90,7 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     const df = new Map<string, Set<number>>();
     owners.forEach((o, owner) => {
       for (const p of o.phrases) {
-        const words = normalize(p).filter((w) => !fillers.has(w) || o.phrases.length === 1);
+        const words = normalize(p).map(stemWord);
         if (words.length === 0) continue;
         refs.push({ owner, words, idf: [], weightSum: 0 });
         for (const w of words) {
@@ -96,7 +103,7 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     const n = owners.length;
     const byWord = new Map<string, number[]>();
     refs.forEach((r, idx) => {
-      r.idf = r.words.map((w) => Math.log(1 + n / (df.get(w)?.size ?? 1)));
+      r.idf = r.words.map((w) => Math.log(1 + n / (df.get(w)?.size ?? 1)) * (fillers.has(w) ? 0.3 : 1));
       r.weightSum = r.idf.reduce((a, b) => a + b, 0);
       for (const w of new Set(r.words)) {
         const list = byWord.get(w) ?? [];
@@ -184,12 +191,12 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
       }
       if (out.length === 0 && t.length >= 3) {
         const same = byPhonetic.get(getPhoneticKey(t));
-        if (same) out = same.slice(0, 3).map((word) => ({ word, sim: 0.86 }));
+        if (same) out = same.slice(0, 3).map((word) => ({ word, sim: 0.8 }));
       }
       if (out.length === 0 && t.length >= 4) {
         out = lexicon
           .search(t, { limit: 3 })
-          .map((r) => ({ word: r.item, sim: 0.9 * (1 - (r.score ?? 1)) }))
+          .map((r) => ({ word: r.item, sim: 0.85 * (1 - (r.score ?? 1)) }))
           .filter((r) => r.sim >= 0.6 && Math.abs(r.word.length - t.length) <= 3);
       }
     }
@@ -214,18 +221,30 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
       const ref = table.refs[idx];
       if (!ref) continue;
       let got = 0;
+      let exact = false;
       const used = new Set<number>();
+      const words: string[] = [];
       ref.words.forEach((w, k) => {
         const b = best.get(w);
         if (b) {
           got += (ref.idf[k] ?? 0) * b.sim;
           used.add(b.token);
+          words.push(w);
+          if (b.sim >= 0.95) exact = true;
         }
       });
       const cov = got / (ref.weightSum || 1);
       const cur = byOwner.get(ref.owner);
+      // every fully said phrase of the same owner explains its tokens ("drive tire … dual")
+      if (cur && cov >= 0.99 && cur.cov >= 0.99) {
+        for (const t of used) cur.tokens.add(t);
+      }
+      if (cur && cov >= 0.99 && cur.cov >= 0.99 && got <= cur.mass) continue;
+      if (cur && cov >= 0.99 && cur.cov >= 0.99) {
+        for (const t of cur.tokens) used.add(t);
+      }
       if (!cur || cov > cur.cov + 1e-9 || (Math.abs(cov - cur.cov) < 1e-9 && got > cur.mass)) {
-        byOwner.set(ref.owner, { owner: ref.owner, cov, mass: got, phrase: idx, tokens: used });
+        byOwner.set(ref.owner, { owner: ref.owner, cov, mass: got, phrase: idx, tokens: used, words, exact });
       }
     }
     return [...byOwner.values()].sort((a, b) => b.cov - a.cov || b.mass - a.mass);
@@ -268,6 +287,7 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
 
   const formatPositions = (hits: PositionHit[], exclude: Set<number>): string[] => {
     const kept = hits.filter((h) => {
+      if (h.group === 'side') return true;
       for (let k = h.start; k < h.end; k += 1) if (!exclude.has(k)) return true;
       return false;
     });
@@ -311,13 +331,16 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     const stripped = stripFillers(tokens).join(' ');
     const exact = commandByKey.get(raw) ?? (stripped ? commandByKey.get(stripped) : undefined);
     if (exact) return { id: exact, score: 1 };
+    const content = stripFillers(tokens);
+    const each = content.map((w) => commandByKey.get(w));
+    if (content.length > 1 && content.length <= 4 && each.every((c) => c !== undefined && c === each[0]) && each[0]) return { id: each[0], score: 1 };
     if (tokens.length > 4 || stripped.length < 3) return null;
-    if (stripFillers(tokens).some((w) => contentWords.has(w) && !commandByKey.has(w))) return null;
+    if (stripFillers(tokens).some((w) => (contentWords.has(stemWord(w)) || numberWords.has(w)) && !commandByKey.has(w))) return null;
     let best: { id: CommandId; score: number } | null = null;
     for (const k of commandKeys) {
       if (k.length < 4) continue;
       const sim = getLevenshteinSimilarity(stripped, k);
-      if (sim >= 0.8 && (!best || sim > best.score)) best = { id: commandByKey.get(k) ?? 'repeat', score: sim };
+      if (sim >= 0.75 && (!best || sim > best.score)) best = { id: commandByKey.get(k) ?? 'repeat', score: sim };
     }
     return best;
   };
@@ -331,18 +354,21 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     } catch {
       return result;
     }
-    if (tokens.length === 0 || tokens.every((t) => fillers.has(t))) return result;
+    if (tokens.length === 0) return result;
     const profile = ctx.profile ?? 'us';
 
     // 1. commands and "all good"
     const cmd = matchCommand(tokens);
+    if (!cmd && tokens.every((t) => fillers.has(t))) return result;
     if (cmd) {
       return { ...result, kind: cmd.id === 'ok' ? 'ok' : 'command', command: cmd.id, termId: `command:${cmd.id}`, score: round3(cmd.score), needsConfirmation: cmd.score < 1 };
     }
 
-    const resolved = tokens.map((t) => resolveToken(t));
-    const quantities = readQuantities(tokens, { timeContext: ctx.measure === 'air_buildup' });
-    const posHits = findPositions(tokens, quantities);
+    const resolved = tokens.map((t) => resolveToken(stemWord(t)));
+    const allQuantities = readQuantities(tokens, { timeContext: ctx.measure === 'air_buildup' });
+    const posHits = findPositions(tokens, allQuantities);
+    // "axle 3" is a position, not a reading
+    const quantities = allQuantities.filter((q) => !posHits.some((h) => h.group === 'axle' && q.start >= h.start && q.end <= h.end));
     const compCov = scoreTable(compTable, tokens, resolved);
     const condCov = scoreTable(condTable, tokens, resolved);
     const bestComp = compCov[0];
@@ -354,7 +380,7 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     const contentIdx = tokens.map((t, i) => (fillers.has(t) && !numberTokens.has(i) ? -1 : i)).filter((i) => i >= 0);
 
     const componentFields = (c: Coverage | undefined, threshold: number) => {
-      if (!c || c.cov < threshold) return null;
+      if (!c || c.cov < threshold || !c.exact) return null;
       const comp = components[c.owner];
       if (!comp) return null;
       return { comp, tokens: c.tokens };
@@ -388,11 +414,7 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
       if (!kind && ctxMeasure && withUnit?.unit === 'psi' && numbers.measureUnits[ctxMeasure] === 'psi') kind = ctxMeasure;
       if (kind) {
         const want = numbers.measureUnits[kind];
-        const q =
-          quantities.find((x) => x.unit === want) ??
-          (kind === 'air_leak' ? undefined : undefined) ??
-          [...quantities].reverse().find((x) => x.unit === null) ??
-          (want === 'in' ? quantities.find((x) => x.unit === null) : undefined);
+        const q = quantities.find((x) => x.unit === want) ?? [...quantities].reverse().find((x) => x.unit === null);
         if (q) {
           let value = q.value;
           if (q.unit === null && q.fractionOnly && want === '32nds') value = q.value * 32;
@@ -403,7 +425,9 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
           if (comp) for (const k of comp.tokens) explained.add(k);
           const unexplained = contentIdx.filter((i) => !explained.has(i) && !unitPhraseWords.has(tokens[i] ?? '')).length;
           const fromWords = explicitKind !== null || q.unit !== null;
-          const acceptable = value >= lo && value <= hi && Number.isFinite(value) && (fromWords ? unexplained <= 3 : unexplained <= 1);
+          const kindFromWords = explicitKind !== null || (ctxMeasure !== null && kind === ctxMeasure);
+          const allowed = kindFromWords ? (fromWords ? 3 : 1) : 0;
+          const acceptable = value >= lo && value <= hi && Number.isFinite(value) && unexplained <= allowed;
           if (acceptable) {
             const score = explicitKind && q.unit ? 1 : fromWords ? 0.92 : 0.85;
             const exclude = comp ? comp.tokens : new Set<number>();
@@ -435,27 +459,42 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     const topComps = compCov.filter((c) => c.cov >= 0.5).slice(0, 10);
     const topConds = condCov.filter((c) => c.cov >= 0.6).slice(0, 6);
     const ctxComp = ctx.component ? componentIndex.get(ctx.component) : undefined;
+    const compIsExact = (ci: number) => topComps.some((c) => c.owner === ci && c.exact);
     type Cand = { comp: number; cond: number; score: number; tokens: Set<number> };
     const cands: Cand[] = [];
     const contentCount = Math.max(1, contentIdx.length);
-    const scorePair = (ci: number, compScore: number, compTokens: Set<number>, d: Coverage) => {
+    const occurrences = new Map<string, number>();
+    for (const rs of resolved) for (const r of rs) occurrences.set(r.word, (occurrences.get(r.word) ?? 0) + 1);
+    const scorePair = (ci: number, compScore: number, compTokens: Set<number>, d: Coverage, compWords: string[] = []) => {
       const comp = components[ci];
       const cond = conditions[d.owner];
       if (!comp || !cond || !pairs.has(`${comp.id}:${cond.id}`)) return;
       let cs = compScore;
-      if (compTokens.size > 0 && [...compTokens].every((t) => d.tokens.has(t))) cs *= 0.5;
+      // a word said once cannot be both the component and the condition ("air" in "air bag leaking")
+      const shared = compWords.filter((w) => d.words.includes(w) && (occurrences.get(w) ?? 0) < 2).length;
+      if (compWords.length > 0 && shared === compWords.length) cs *= 0.5;
       const used = new Set<number>([...explainedBase, ...compTokens, ...d.tokens]);
       const expl = contentIdx.filter((i) => used.has(i)).length / contentCount;
       let bonus = 0;
       if (ctx.zone) bonus += comp.zones.includes(ctx.zone as never) ? 0.03 : -0.04;
       if (ctxComp === ci) bonus += 0.03;
-      const score = Math.min(1, Math.max(0, 0.45 * cs + 0.3 * d.cov + 0.25 * expl + bonus));
+      bonus += 0.02 * Math.min(2, Math.max(0, compTokens.size - 1)) - 0.03 * shared;
+      const exact = d.exact || [...compTokens].length > 0 ? d.exact || compIsExact(ci) : false;
+      let score = 0.45 * cs + 0.3 * d.cov + 0.25 * expl + bonus;
+      if (!exact) score *= 0.85;
+      score = Math.max(0, score);
       cands.push({ comp: ci, cond: d.owner, score, tokens: used });
     };
     for (const d of topConds) {
-      for (const c of topComps) scorePair(c.owner, c.cov, c.tokens, d);
+      for (const c of topComps) scorePair(c.owner, c.cov, c.tokens, d, c.words);
       // a bare condition ("flat") on the item in front of the driver
       if (ctxComp !== undefined && !topComps.some((c) => c.owner === ctxComp && c.cov >= 0.99)) scorePair(ctxComp, 0.75, new Set(), d);
+      // a bare condition that only one component of the current zone can have ("builds slow" in the air-brake tests)
+      else if (ctxComp === undefined && ctx.zone && d.cov >= 0.9) {
+        const inZone = (componentsByCondition.get(d.owner) ?? []).filter((ci) => components[ci]?.zones.includes(ctx.zone as never));
+        const only = inZone[0];
+        if (inZone.length === 1 && only !== undefined && !topComps.some((c) => c.owner === only)) scorePair(only, 0.7, new Set(), d);
+      }
     }
     cands.sort((a, b) => b.score - a.score);
     const alternativesOf = (list: Cand[]): MatchAlternative[] =>
@@ -463,7 +502,7 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
         termId: `${components[c.comp]?.id}:${conditions[c.cond]?.id}`,
         component: components[c.comp]?.name ?? '',
         condition: conditions[c.cond]?.name ?? '',
-        score: round3(c.score),
+        score: round3(Math.min(1, c.score)),
       }));
     const best = cands[0];
     if (!best || best.score < ACCEPT_THRESHOLD) {
@@ -498,7 +537,7 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
       value: q ? round3(q.value) : null,
       unit: q?.unit ?? null,
       termId: `${comp.id}:${cond.id}`,
-      score: round3(best.score),
+      score: round3(Math.min(1, best.score)),
       alternatives: alternativesOf(cands.slice(1)),
       needsConfirmation: best.score < CONFIRM_THRESHOLD,
     };

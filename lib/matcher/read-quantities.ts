@@ -140,7 +140,7 @@ export function createQuantityReader(words: NumberWords): QuantityReader {
     } else {
       const frac = readFraction(t, i);
       if (frac) return { ...frac, fractionOnly: true };
-      const allowAmb = !ambiguous.has(w) || matchUnit(t, i + 1) !== null || (w === 'oh' && false);
+      const allowAmb = !ambiguous.has(w) || matchUnit(t, i + 1) !== null;
       base = readCardinal(t, i, allowAmb);
       if (base && base.value < 10 && t[i] !== 'a' && !scales.has(t[base.end - 1] ?? '')) {
         // "one twenty five" → 125 (or 1:25 in a timing step); "one oh five" → 105
@@ -207,9 +207,6 @@ export function createQuantityReader(words: NumberWords): QuantityReader {
         if (unit === '32nds' && firstUnitWord === 'thirty' && (timeContext || expr.fractionOnly)) {
           // "one minute thirty seconds" or "a half thirty seconds" is time, not tread
           unit = 's';
-          if (timeContext && out.length > 0 && out[out.length - 1]?.unit === 's' && out[out.length - 1]?.end === expr.start) {
-            // unreachable in practice; kept simple
-          }
           value = timeContext && !expr.fractionOnly ? value * 60 + 30 : 30;
         }
         if (unit === 'min') {
