@@ -47,6 +47,16 @@ describe('labelled utterances', () => {
   });
 });
 
+describe('held-out utterances (written after the scoring was tuned, never tuned on)', () => {
+  it('reports top-1 accuracy and stays at or above 85 %', () => {
+    const set = fixture('holdout.jsonl');
+    const misses = set.filter((u) => !isTopOneCorrect(u, matcher.match(u.text, getLabelledContext(u))));
+    const accuracy = 1 - misses.length / set.length;
+    console.log(`held-out top-1 accuracy ${(accuracy * 100).toFixed(1)} % (${set.length - misses.length}/${set.length})${misses.length ? `; misses: ${misses.map((u) => `"${u.text}" want ${u.termId ?? u.command ?? u.measure}`).join(' | ')}` : ''}`);
+    expect(accuracy).toBeGreaterThanOrEqual(0.85);
+  });
+});
+
 describe('chatter', () => {
   const chatter = fixture('chatter.jsonl');
 
