@@ -43,3 +43,12 @@ export async function makeUnit(db: DB, u: { fleetId: string; kind: 'tractor' | '
     .returning(['id', 'fleetId', 'kind', 'unitNumber', 'status'])
     .executeTakeFirstOrThrow();
 }
+
+/** A submitted or draft inspection with no steps, for tests that need a report to point at. */
+export async function makeInspection(db: DB, i: { fleetId: string; driverId: string; tractorId: string; trailerId?: string | null; kind?: 'pre_trip' | 'post_trip' }) {
+  return db
+    .insertInto('inspection')
+    .values({ id: randomUUID(), fleetId: i.fleetId, driverId: i.driverId, tractorId: i.tractorId, trailerId: i.trailerId ?? null, kind: i.kind ?? 'pre_trip' })
+    .returning(['id', 'fleetId', 'status'])
+    .executeTakeFirstOrThrow();
+}
