@@ -160,7 +160,12 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
   const knownWords = new Set<string>([...contentWords, ...numberWords, ...fillers, ...unitPhraseWords, ...axleWords]);
   for (const k of commandKeys) for (const w of k.split(' ')) knownWords.add(w);
   const lexiconList = [...contentWords].filter((w) => w.length >= 3 && !/^\d/.test(w));
-  const lexicon = new Fuse(lexiconList, { includeScore: true, threshold: 0.34, ignoreLocation: true, minMatchCharLength: 2 });
+  // fuse.js over single words, one small index per first letter: a misheard word keeps its first sound far more often than not
+  const lexiconByLetter = new Map<string, Fuse<string>>();
+  for (const letter of new Set(lexiconList.map((w) => w[0] ?? ''))) {
+    const words = lexiconList.filter((w) => w[0] === letter);
+    lexiconByLetter.set(letter, new Fuse(words, { includeScore: true, threshold: 0.34, ignoreLocation: true, minMatchCharLength: 2 }));
+  }
   const byPhonetic = new Map<string, string[]>();
   for (const w of lexiconList) {
     const k = getPhoneticKey(w);
@@ -194,8 +199,7 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
         if (same) out = same.slice(0, 3).map((word) => ({ word, sim: 0.8 }));
       }
       if (out.length === 0 && t.length >= 4) {
-        out = lexicon
-          .search(t, { limit: 3 })
+        out = (lexiconByLetter.get(t[0] ?? '')?.search(t, { limit: 3 }) ?? [])
           .map((r) => ({ word: r.item, sim: 0.85 * (1 - (r.score ?? 1)) }))
           .filter((r) => r.sim >= 0.6 && Math.abs(r.word.length - t.length) <= 3);
       }
@@ -205,7 +209,7 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     return out;
   };
 
-  const scoreTable = (table: ReturnType<typeof buildPhrases>, tokens: string[], resolved: Resolved[][]): Coverage[] => {
+  const scoreTable = (table: ReturnType<typeof buildPhrases>, resolved: Resolved[][]): Coverage[] => {
     const best = new Map<string, { sim: number; token: number }>();
     resolved.forEach((rs, ti) => {
       for (const r of rs) {
@@ -213,41 +217,63 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
         if (!cur || cur.sim < r.sim) best.set(r.word, { sim: r.sim, token: ti });
       }
     });
-    void tokens;
-    const touched = new Set<number>();
-    for (const w of best.keys()) for (const idx of table.byWord.get(w) ?? []) touched.add(idx);
-    const byOwner = new Map<number, Coverage>();
-    for (const idx of touched) {
-      const ref = table.refs[idx];
-      if (!ref) continue;
-      let got = 0;
-      let exact = false;
-      const used = new Set<number>();
-      const words: string[] = [];
-      ref.words.forEach((w, k) => {
-        const b = best.get(w);
-        if (b) {
-          got += (ref.idf[k] ?? 0) * b.sim;
-          used.add(b.token);
-          words.push(w);
-          if (b.sim >= 0.95) exact = true;
+    // first pass without allocation: best phrase per owner, and the owner's fully said phrases
+    type Acc = { owner: number; cov: number; mass: number; phrase: number; exact: boolean; full: number[] };
+    const byOwner = new Map<number, Acc>();
+    const seen = new Set<number>();
+    for (const w of best.keys()) {
+      for (const idx of table.byWord.get(w) ?? []) {
+        if (seen.has(idx)) continue;
+        seen.add(idx);
+        const ref = table.refs[idx];
+        if (!ref) continue;
+        let got = 0;
+        let exact = false;
+        for (let k = 0; k < ref.words.length; k += 1) {
+          const b = best.get(ref.words[k] ?? '');
+          if (b) {
+            got += (ref.idf[k] ?? 0) * b.sim;
+            if (b.sim >= 0.95) exact = true;
+          }
         }
-      });
-      const cov = got / (ref.weightSum || 1);
-      const cur = byOwner.get(ref.owner);
-      // every fully said phrase of the same owner explains its tokens ("drive tire … dual")
-      if (cur && cov >= 0.99 && cur.cov >= 0.99) {
-        for (const t of used) cur.tokens.add(t);
-      }
-      if (cur && cov >= 0.99 && cur.cov >= 0.99 && got <= cur.mass) continue;
-      if (cur && cov >= 0.99 && cur.cov >= 0.99) {
-        for (const t of cur.tokens) used.add(t);
-      }
-      if (!cur || cov > cur.cov + 1e-9 || (Math.abs(cov - cur.cov) < 1e-9 && got > cur.mass)) {
-        byOwner.set(ref.owner, { owner: ref.owner, cov, mass: got, phrase: idx, tokens: used, words, exact });
+        const cov = got / (ref.weightSum || 1);
+        let cur = byOwner.get(ref.owner);
+        if (!cur) {
+          cur = { owner: ref.owner, cov, mass: got, phrase: idx, exact, full: [] };
+          byOwner.set(ref.owner, cur);
+        } else if (cov > cur.cov + 1e-9 || (Math.abs(cov - cur.cov) < 1e-9 && got > cur.mass)) {
+          cur.cov = cov;
+          cur.mass = got;
+          cur.phrase = idx;
+          cur.exact = exact;
+        }
+        if (cov >= 0.99) cur.full.push(idx);
       }
     }
-    return [...byOwner.values()].sort((a, b) => b.cov - a.cov || b.mass - a.mass);
+    const ranked = [...byOwner.values()].sort((a, b) => b.cov - a.cov || b.mass - a.mass);
+    // second pass for the leaders only: which tokens and words they explain
+    return ranked.map((a, rank): Coverage => {
+      const tokens = new Set<number>();
+      const words: string[] = [];
+      if (rank < 12) {
+        const ref = table.refs[a.phrase];
+        for (const w of ref?.words ?? []) {
+          const b = best.get(w);
+          if (b) {
+            tokens.add(b.token);
+            words.push(w);
+          }
+        }
+        // every fully said phrase of the same owner explains its tokens ("drive tire … dual")
+        if (a.cov >= 0.99) {
+          for (const idx of a.full) for (const w of table.refs[idx]?.words ?? []) {
+            const b = best.get(w);
+            if (b) tokens.add(b.token);
+          }
+        }
+      }
+      return { owner: a.owner, cov: a.cov, mass: a.mass, phrase: a.phrase, tokens, words, exact: a.exact };
+    });
   };
 
   const findPositions = (tokens: string[], quantities: Quantity[]): PositionHit[] => {
@@ -369,8 +395,8 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     const posHits = findPositions(tokens, allQuantities);
     // "axle 3" is a position, not a reading
     const quantities = allQuantities.filter((q) => !posHits.some((h) => h.group === 'axle' && q.start >= h.start && q.end <= h.end));
-    const compCov = scoreTable(compTable, tokens, resolved);
-    const condCov = scoreTable(condTable, tokens, resolved);
+    const compCov = scoreTable(compTable, resolved);
+    const condCov = scoreTable(condTable, resolved);
     const bestComp = compCov[0];
 
     const numberTokens = new Set<number>();
