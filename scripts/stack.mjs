@@ -390,6 +390,36 @@ function demoSignIns() {
   return [people.password, people.people];
 }
 
+// ---------------------------------------------------------------- one test run at a time
+
+/** Test runs share the test database, port 3100 and .next: a second run waits for the first. */
+async function holdTestLock() {
+  fs.mkdirSync(runDir, { recursive: true });
+  const lock = path.join(runDir, 'test.lock');
+  for (let waited = 0; ; waited += 2) {
+    try {
+      fs.writeFileSync(lock, String(process.pid), { flag: 'wx' });
+      break;
+    } catch {
+      const holder = Number(fs.readFileSync(lock, 'utf8')) || 0;
+      if (!holder || !alive(holder)) {
+        fs.rmSync(lock, { force: true });
+        continue;
+      }
+      if (waited % 30 === 0) say(`another test run (pid ${holder}) is going; waiting…`);
+      if (waited > 1800) fail('gave up waiting for the other test run');
+      await sleep(2000);
+    }
+  }
+  process.on('exit', () => {
+    try {
+      if (fs.readFileSync(lock, 'utf8') === String(process.pid)) fs.rmSync(lock, { force: true });
+    } catch {
+      /* gone */
+    }
+  });
+}
+
 // ---------------------------------------------------------------- commands
 
 async function cmdStart() {
@@ -490,6 +520,7 @@ async function runE2e(env, reportFile) {
 
 async function cmdTest() {
   const t0 = Date.now();
+  await holdTestLock();
   const p = profiles.test;
   const stages = [];
   const env = await prepare(p, { freshDb: true });
@@ -538,6 +569,7 @@ async function cmdTest() {
 }
 
 async function cmdE2e() {
+  await holdTestLock();
   const p = profiles.test;
   const env = await prepare(p);
   if (ensureBuild(env) !== 0) fail('next build failed');
