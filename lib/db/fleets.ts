@@ -1,4 +1,11 @@
 import 'server-only';
+import {
+  ruleProfiles,
+  tirePressureTargetsSchema,
+  type FleetSettings,
+  type RuleProfile,
+  type TirePressureTargets,
+} from '@/lib/schemas/fleet';
 import type { DB } from './index';
 
 export async function findFleet(db: DB, { fleetId }: { fleetId: string }) {
@@ -7,4 +14,60 @@ export async function findFleet(db: DB, { fleetId }: { fleetId: string }) {
     .select(['id', 'name', 'timezone', 'ruleProfile', 'minPretripMinutes', 'minPosttripMinutes', 'tirePressureTargets'])
     .where('id', '=', fleetId)
     .executeTakeFirst();
+}
+
+// ---- admin: the fleet's own settings
+
+const settingsColumns = [
+  'id',
+  'name',
+  'minPretripMinutes',
+  'minPosttripMinutes',
+  'tirePressureTargets',
+  'ruleProfile',
+  'maintenanceEmail',
+  'supervisorEmail',
+  'updatedAt',
+] as const;
+
+type SettingsRow = {
+  id: string;
+  name: string;
+  minPretripMinutes: number;
+  minPosttripMinutes: number;
+  tirePressureTargets: unknown;
+  ruleProfile: string;
+  maintenanceEmail: string | null;
+  supervisorEmail: string | null;
+  updatedAt: Date;
+};
+
+const fallbackTargets: TirePressureTargets = { steer: 110, drive: 100, trailer: 100 };
+
+function toFleetSettings(row: SettingsRow): FleetSettings {
+  const targets = tirePressureTargetsSchema.safeParse(row.tirePressureTargets);
+  return {
+    ...row,
+    tirePressureTargets: targets.success ? targets.data : fallbackTargets,
+    ruleProfile: (ruleProfiles as readonly string[]).includes(row.ruleProfile) ? (row.ruleProfile as RuleProfile) : 'us-federal',
+    updatedAt: row.updatedAt.toISOString(),
+  };
+}
+
+export async function findFleetSettings(db: DB, { fleetId }: { fleetId: string }): Promise<FleetSettings | undefined> {
+  const row = await db.selectFrom('fleet').select(settingsColumns).where('id', '=', fleetId).executeTakeFirst();
+  return row ? toFleetSettings(row) : undefined;
+}
+
+export type FleetSettingsChange = Partial<Omit<FleetSettings, 'id' | 'name' | 'updatedAt'>>;
+
+export async function updateFleetSettingsRow(db: DB, { fleetId, set }: { fleetId: string; set: FleetSettingsChange }): Promise<FleetSettings | undefined> {
+  const { tirePressureTargets, ...rest } = set;
+  const row = await db
+    .updateTable('fleet')
+    .set({ ...rest, ...(tirePressureTargets ? { tirePressureTargets: JSON.stringify(tirePressureTargets) } : {}) })
+    .where('id', '=', fleetId)
+    .returning(settingsColumns)
+    .executeTakeFirst();
+  return row ? toFleetSettings(row) : undefined;
 }
