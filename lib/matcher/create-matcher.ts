@@ -371,8 +371,16 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     return best;
   };
 
-  const match = (text: string, ctx: MatchContext = {}): MatchResult => {
+  const zoneIds = new Set<string>(grammar.zones.zones.map((z) => z.id));
+
+  const match = (text: string, rawCtx: MatchContext = {}): MatchResult => {
     const input = typeof text === 'string' ? text : '';
+    // an unknown zone or component id is ignored rather than trusted
+    const ctx: MatchContext = {
+      ...rawCtx,
+      zone: rawCtx?.zone && zoneIds.has(rawCtx.zone) ? rawCtx.zone : null,
+      component: rawCtx?.component && componentIndex.has(rawCtx.component) ? rawCtx.component : null,
+    };
     const result = emptyResult(input);
     let tokens: string[];
     try {

@@ -18,3 +18,5 @@ export function matchUtterance(text: string, ctx?: MatchContext): MatchResult {
 export function matchAlternatives(alternatives: readonly string[], ctx?: MatchContext): MatchResult {
   return getDefaultMatcher().matchAlternatives(alternatives, ctx);
 }
+export { listWalkZones } from './list-walk-zones';
+export type { WalkZone } from './list-walk-zones';
