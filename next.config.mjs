@@ -6,7 +6,7 @@ const nextConfig = {
   // the build does not repeat that work.
   typescript: { ignoreBuildErrors: true },
   // Server-only packages that should stay outside the bundle.
-  serverExternalPackages: ['pg', 'nodemailer', 'bcryptjs'],
+  serverExternalPackages: ['pg', 'nodemailer', 'bcryptjs', 'sharp'],
   async headers() {
     return [
       {
