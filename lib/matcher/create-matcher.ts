@@ -129,6 +129,8 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
   }
   const commandKeys = [...commandByKey.keys()];
   const okWords = new Set(['good', 'fine', 'ok', 'okay', 'clear']);
+  const negators = new Set(['no', 'not', 'never', 'nothing', 'without']);
+  const zoneWords = new Set(grammar.zones.zones.flatMap((z) => z.phrases.flatMap((p) => normalize(p))).concat(['side', 'tractor', 'trailer', 'truck', 'unit', 'zone']));
 
   // ---- positions ----
   const positionPhrases = positions.positions
@@ -359,7 +361,13 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     if (exact) return { id: exact, score: 1 };
     const content = stripFillers(tokens);
     const each = content.map((w) => commandByKey.get(w));
-    if (content.length > 1 && content.length <= 4 && each.every((c) => c !== undefined && c === each[0]) && each[0]) return { id: each[0], score: 1 };
+    if (content.length > 1 && content.length <= 4 && each.every((c) => c !== undefined)) {
+      // "yep correct" → yes; "ok next" → next (the last word that moves the walk wins over an acknowledgement)
+      const ids = each.filter((c): c is CommandId => c !== undefined);
+      const moving = ids.filter((c) => c !== 'ok' && c !== 'yes');
+      const id = moving.length > 0 ? moving[moving.length - 1] : ids[ids.length - 1];
+      if (id && (moving.length <= 1 || moving.every((c) => c === id))) return { id, score: 1 };
+    }
     if (tokens.length > 4 || stripped.length < 3) return null;
     if (stripFillers(tokens).some((w) => (contentWords.has(stemWord(w)) || numberWords.has(w)) && !commandByKey.has(w))) return null;
     let best: { id: CommandId; score: number } | null = null;
@@ -403,8 +411,23 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     const posHits = findPositions(tokens, allQuantities);
     // "axle 3" is a position, not a reading
     const quantities = allQuantities.filter((q) => !posHits.some((h) => h.group === 'axle' && q.start >= h.start && q.end <= h.end));
+    // "all good on the front", "passenger side looks good": the OK family around position and zone words
+    const withoutPlaces = tokens.filter((t, i) => !zoneWords.has(t) && !posHits.some((h) => i >= h.start && i < h.end));
+    if (withoutPlaces.length > 0 && withoutPlaces.length < tokens.length && matchCommand(withoutPlaces)?.id === 'ok' && matchCommand(withoutPlaces)?.score === 1) {
+      const pos = formatPositions(posHits, new Set());
+      return { ...result, kind: 'ok', command: 'ok', termId: 'command:ok', score: 0.95, position: pos.join(' ') || null, positions: pos };
+    }
     const compCov = scoreTable(compTable, resolved);
-    const condCov = scoreTable(condTable, resolved);
+    // a condition said after "no", "not" or "never" is denied, not reported ("no leaks", "not flat")
+    let denied = false;
+    const condCov = scoreTable(condTable, resolved).filter((c) => {
+      if (c.tokens.size === 0) return true;
+      const first = Math.min(...c.tokens);
+      const before = [tokens[first - 1], fillers.has(tokens[first - 1] ?? '') ? tokens[first - 2] : undefined];
+      const negated = before.some((w, k) => w !== undefined && negators.has(w) && !c.tokens.has(first - 1 - k));
+      if (negated && c.cov >= 0.6) denied = true;
+      return !negated;
+    });
     const bestComp = compCov[0];
 
     const numberTokens = new Set<number>();
@@ -530,6 +553,17 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
         if (inZone.length === 1 && only !== undefined && !topComps.some((c) => c.owner === only)) scorePair(only, 0.7, new Set(), d);
       }
     }
+    // "no fire extinguisher": "no" before a component that can be missing
+    const missingIdx = conditionIndex.get('missing');
+    if (cands.length === 0 && topConds.length === 0 && missingIdx !== undefined) {
+      for (const c of topComps.slice(0, 3)) {
+        const first = Math.min(...c.tokens);
+        if (c.cov >= 0.9 && c.exact && tokens[first - 1] === 'no') {
+          const tokensNo = new Set([first - 1]);
+          scorePair(c.owner, c.cov, c.tokens, { owner: missingIdx, cov: 0.9, mass: 1, phrase: -1, tokens: tokensNo, words: ['no'], exact: true }, c.words);
+        }
+      }
+    }
     cands.sort((a, b) => b.score - a.score);
     const alternativesOf = (list: Cand[]): MatchAlternative[] =>
       list.slice(0, 4).map((c) => ({
@@ -542,9 +576,16 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     if (!best || best.score < ACCEPT_THRESHOLD) {
       // "left steer tire looks good": an item-level OK
       const comp = componentFields(bestComp, 0.9);
-      if (comp && tokens.some((t) => okWords.has(t)) && (condCov[0]?.cov ?? 0) < 0.6) {
+      if (comp && (tokens.some((t) => okWords.has(t)) || denied) && (condCov[0]?.cov ?? 0) < 0.6) {
         const pos = formatPositions(posHits, comp.tokens);
         return { ...result, kind: 'ok', command: 'ok', component: comp.comp.name, componentId: comp.comp.id, system: comp.comp.system, position: pos.join(' ') || null, positions: pos, termId: `${comp.comp.id}:ok`, score: round3(0.9 * (bestComp?.cov ?? 0)), needsConfirmation: true };
+      }
+      if (cands.length === 0 && ctx.zone && topConds[0]) {
+        // a bare condition: offer the zone's components that can have it, for "did you mean …?"
+        const d = topConds[0];
+        for (const ci of componentsByCondition.get(d.owner) ?? []) {
+          if (components[ci]?.zones.includes(ctx.zone as never)) cands.push({ comp: ci, cond: d.owner, score: 0.3 * d.cov, tokens: new Set() });
+        }
       }
       return { ...result, alternatives: alternativesOf(cands) };
     }
