@@ -19,7 +19,7 @@ const full = grammarSchema.parse({
   numbers: readJson('grammars/numbers.json'),
   zones: readJson('grammars/zones.json'),
 });
-const labelled: LabelledUtterance[] = ['utterances.jsonl', 'holdout.jsonl']
+const labelled: LabelledUtterance[] = ['utterances.jsonl', 'holdout.jsonl', 'holdout-2.jsonl']
   .flatMap((f) => parseLabelledJsonl(readFileSync(new URL(`tests/fixtures/matcher/${f}`, root), 'utf8')))
   .filter((u) => u.kind === 'defect' && u.termId);
 

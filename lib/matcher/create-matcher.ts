@@ -464,7 +464,7 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
         return null;
       };
       const ctxMeasure = ctx.measure ?? null;
-      const compatible = (k: MeasureKind | null, u: Unit | null) => k !== null && (u === null || numbers.measureUnits[k] === u || (u === 's' && k === 'air_leak') || (u === '32nds' && false));
+      const compatible = (k: MeasureKind | null, u: Unit | null) => k !== null && (u === null || numbers.measureUnits[k] === u || (u === 's' && k === 'air_leak'));
       let kind: MeasureKind | null = explicitKind;
       if (!kind && ctxMeasure && compatible(ctxMeasure, withUnit?.unit ?? null)) kind = ctxMeasure;
       if (!kind) kind = unitKind(withUnit?.unit ?? null);
