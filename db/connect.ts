@@ -15,7 +15,9 @@ export type DB = Kysely<Database>;
 export function createDb(connectionString: string, max = 10): DB {
   return new Kysely<Database>({
     dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString, max }) }),
-    plugins: [new CamelCasePlugin({ maintainNestedObjectKeys: true })],
+    // Nested keys too: relations built with jsonArrayFrom come back camel-cased like top-level
+    // columns. A jsonb document whose keys must stay as written (a grammar) is read as text.
+    plugins: [new CamelCasePlugin({ maintainNestedObjectKeys: false })],
   });
 }
 

@@ -18,9 +18,11 @@ type Options<P, B, Q> = {
   query?: ZodType<Q>;
   /** Largest accepted body, in bytes. */
   maxBodyBytes?: number;
+  /** Take the body as raw bytes (uploads) instead of JSON; the handler gets a Uint8Array. */
+  rawBody?: { maxBytes: number };
 };
 
-type Handler<P, B, Q, U> = (ctx: { req: Request; user: U; params: P; body: B; query: Q }) => Promise<Response>;
+type Handler<P, B, Q, U> = (ctx: { req: Request; user: U; params: P; body: B; query: Q; bytes: Uint8Array | null }) => Promise<Response>;
 
 const errorResponse = (e: AppError) => Response.json(e.toBody(), { status: e.status });
 
@@ -62,6 +64,34 @@ export async function readRequestUser(req: Request): Promise<RouteUser | null> {
   const user = await findActiveUser(token.uid);
   if (!user) return null;
   return { ...user, roles: user.roles.filter(isRole) };
+}
+
+async function readBytes(req: Request, maxBytes: number): Promise<Uint8Array> {
+  const declared = Number(req.headers.get('content-length') ?? 0);
+  const limit = `${Math.round(maxBytes / (1024 * 1024))} MB`;
+  if (declared > maxBytes) throw new AppError('payload_too_large', `The file is larger than ${limit}.`);
+  if (!req.body) throw new AppError('invalid_body', 'The upload is empty.');
+  const reader = req.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > maxBytes) {
+      await reader.cancel();
+      throw new AppError('payload_too_large', `The file is larger than ${limit}.`);
+    }
+    chunks.push(value);
+  }
+  if (size === 0) throw new AppError('invalid_body', 'The upload is empty.');
+  const out = new Uint8Array(size);
+  let at = 0;
+  for (const c of chunks) {
+    out.set(c, at);
+    at += c.byteLength;
+  }
+  return out;
 }
 
 async function readBody(req: Request, maxBytes: number): Promise<unknown> {
@@ -106,8 +136,9 @@ export function defineRoute<P, B, Q>(opts: Options<P, B, Q>, handler: Handler<P,
       const query = opts.query
         ? parseOrThrow(opts.query, Object.fromEntries(new URL(req.url).searchParams), 'Query')
         : (undefined as Q);
-      const body = opts.body ? parseOrThrow(opts.body, await readBody(req, opts.maxBodyBytes ?? 256 * 1024), 'Request') : (undefined as B);
-      return await handler({ req, user: user as never, params, body, query });
+      const bytes = opts.rawBody ? await readBytes(req, opts.rawBody.maxBytes) : null;
+      const body = opts.body && !opts.rawBody ? parseOrThrow(opts.body, await readBody(req, opts.maxBodyBytes ?? 256 * 1024), 'Request') : (undefined as B);
+      return await handler({ req, user: user as never, params, body, query, bytes });
     } catch (err) {
       if (err instanceof AppError) return errorResponse(err);
       console.error('[rigcall] unhandled error in route handler', req.method, new URL(req.url).pathname, err);

@@ -4,9 +4,20 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import sharp from 'sharp';
+import * as acknowledgements from '@/app/api/acknowledgements/route';
+import * as attachments from '@/app/api/attachments/[id]/route';
 import * as health from '@/app/api/health/route';
+import * as finish from '@/app/api/inspections/[id]/finish/route';
+import * as photos from '@/app/api/inspections/[id]/photos/[photoId]/route';
 import * as inspection from '@/app/api/inspections/[id]/route';
+import * as steps from '@/app/api/inspections/[id]/steps/route';
+import * as inspections from '@/app/api/inspections/route';
 import * as me from '@/app/api/me/route';
+import * as unitReview from '@/app/api/units/[id]/review/route';
+import * as units from '@/app/api/units/route';
+import { makeInspection, makeUnit } from '../../../db/factories';
+import { adminRouteCases } from '../admin/admin-routes';
 import { roles, type Role } from '@/lib/auth/roles';
 import { makeFleetFixture, type FleetFixture } from '../../setup/fleet-fixture';
 import { callRoute, makeRequest } from '../../setup/session';
@@ -28,7 +39,103 @@ const cases: Case[] = [
     allowed: ['driver', 'mechanic', 'supervisor'],
     call: (f, cookie) => callRoute(inspection.GET, makeRequest(`/api/inspections/${f.inspection.id}`, { cookie }), { id: f.inspection.id }),
   },
+  { route: 'units', method: 'GET', allowed: roles, call: (_f, cookie) => callRoute(units.GET, makeRequest('/api/units', { cookie })) },
+  {
+    route: 'units/[id]/review',
+    method: 'GET',
+    allowed: ['driver', 'mechanic', 'supervisor'],
+    call: (f, cookie) => callRoute(unitReview.GET, makeRequest(`/api/units/${f.tractor.id}/review`, { cookie }), { id: f.tractor.id }),
+  },
+  { route: 'inspections', method: 'GET', allowed: ['driver'], call: (_f, cookie) => callRoute(inspections.GET, makeRequest('/api/inspections', { cookie })) },
+  {
+    route: 'inspections',
+    method: 'POST',
+    allowed: ['driver'],
+    call: (f, cookie) =>
+      callRoute(inspections.POST, makeRequest('/api/inspections', { method: 'POST', cookie, json: { id: randomUUID(), kind: 'post_trip', tractorId: f.tractor.id, trailerId: null, odometer: 1000, startedAt: new Date().toISOString() } })),
+  },
+  {
+    route: 'inspections/[id]/steps',
+    method: 'POST',
+    allowed: ['driver'],
+    call: async (f, cookie) => {
+      const draft = await freshDraft(f);
+      return callRoute(steps.POST, makeRequest(`/api/inspections/${draft}/steps`, { method: 'POST', cookie, json: { id: randomUUID(), seq: 0, zone: 'front', kind: 'visit', inputMode: 'tap', deviceAt: new Date().toISOString() } }), { id: draft });
+    },
+  },
+  {
+    route: 'inspections/[id]/finish',
+    method: 'POST',
+    allowed: ['driver'],
+    call: async (f, cookie) => {
+      const draft = await freshDraft(f);
+      return callRoute(finish.POST, makeRequest(`/api/inspections/${draft}/finish`, { method: 'POST', cookie, json: { signatureName: f.users.driver.name, certify: true, finishedAt: new Date().toISOString() } }), { id: draft });
+    },
+  },
+  {
+    route: 'inspections/[id]/photos/[photoId]',
+    method: 'PUT',
+    allowed: ['driver'],
+    call: async (f, cookie) => {
+      const draft = await freshDraft(f);
+      const photoId = randomUUID();
+      return callRoute(photos.PUT, makeRequest(`/api/inspections/${draft}/photos/${photoId}`, { method: 'PUT', cookie, body: await tinyJpeg() }), { id: draft, photoId });
+    },
+  },
+  {
+    route: 'attachments/[id]',
+    method: 'GET',
+    allowed: ['driver', 'mechanic', 'supervisor'],
+    call: async (f, cookie) => {
+      const id = await sharedPhoto(f);
+      return callRoute(attachments.GET, makeRequest(`/api/attachments/${id}?size=thumb`, { cookie }), { id });
+    },
+  },
+  {
+    route: 'acknowledgements',
+    method: 'POST',
+    allowed: ['driver'],
+    call: async (f, cookie) => {
+      const { unitId, reportId } = await reportWithDefect(f);
+      return callRoute(acknowledgements.POST, makeRequest('/api/acknowledgements', { method: 'POST', cookie, json: { id: randomUUID(), unitId, reviewedInspectionId: reportId, signatureName: f.users.driver.name } }));
+    },
+  },
+  ...adminRouteCases.map(
+    (a): Case => ({ route: a.path.replace(/^\/api\//, ''), method: a.method as Case['method'], allowed: ['admin'], call: (_f, cookie) => a.call(cookie) }),
+  ),
 ];
+
+const tinyJpeg = () => sharp({ create: { width: 40, height: 30, channels: 3, background: '#446688' } }).jpeg().toBuffer();
+
+/** A draft inspection of the fixture's driver, so that a successful call changes nothing shared. */
+async function freshDraft(f: FleetFixture): Promise<string> {
+  return (await makeInspection(db, { fleetId: f.fleet.id, driverId: f.users.driver.id, tractorId: f.tractor.id })).id;
+}
+
+let photo: Promise<string> | undefined;
+function sharedPhoto(f: FleetFixture): Promise<string> {
+  photo ??= (async () => {
+    const draft = await freshDraft(f);
+    const id = randomUUID();
+    const res = await callRoute(photos.PUT, makeRequest(`/api/inspections/${draft}/photos/${id}`, { method: 'PUT', cookie: f.cookies.driver, body: await tinyJpeg() }), { id: draft, photoId: id });
+    if (res.status !== 201) throw new Error(`photo setup failed: ${await res.text()}`);
+    return id;
+  })();
+  return photo;
+}
+
+/** A unit of its own whose last report lists a defect, through the real walk routes. */
+async function reportWithDefect(f: FleetFixture) {
+  const unit = await makeUnit(db, { fleetId: f.fleet.id, kind: 'tractor' });
+  const reportId = randomUUID();
+  const cookie = f.cookies.driver;
+  const at = () => new Date().toISOString();
+  await callRoute(inspections.POST, makeRequest('/api/inspections', { method: 'POST', cookie, json: { id: reportId, kind: 'pre_trip', tractorId: unit.id, trailerId: null, odometer: 5, startedAt: at() } }));
+  await callRoute(steps.POST, makeRequest(`/api/inspections/${reportId}/steps`, { method: 'POST', cookie, json: { id: randomUUID(), seq: 1, zone: 'in_cab', kind: 'defect', termKey: 'horn:inoperative', inputMode: 'tap', deviceAt: at() } }), { id: reportId });
+  const signed = await callRoute(finish.POST, makeRequest(`/api/inspections/${reportId}/finish`, { method: 'POST', cookie, json: { signatureName: f.users.driver.name, certify: true, finishedAt: at() } }), { id: reportId });
+  if (signed.status !== 200) throw new Error(`report setup failed: ${await signed.text()}`);
+  return { unitId: unit.id, reportId };
+}
 
 // Routes that are not ours to guard: next-auth's own sign-in endpoints.
 const unguarded = new Set(['auth/[...nextauth] GET', 'auth/[...nextauth] POST']);

@@ -1,0 +1,119 @@
+import 'server-only';
+import { createHash } from 'node:crypto';
+import { getDb } from '@/lib/db';
+import { findFleet } from '@/lib/db/fleets';
+import { findInspectionForUpdate, listInspectionSteps } from '@/lib/db/inspections';
+import { findFleetUnit } from '@/lib/db/units';
+import { AppError } from '@/lib/errors';
+import { isTrailerItem } from '@/lib/inspection/build-check';
+import { listDefectSteps } from '@/lib/inspection/walk-progress';
+import { serializeReport, toCanonicalSteps } from '@/lib/reports/canonical-report';
+import type { FinishInspectionBody } from '@/lib/schemas/inspections';
+import { deliverOutbox } from './deliver-outbox';
+import { recordAudit } from './record-audit';
+
+export const certificationStatement =
+  'I performed this inspection and the report lists every defect I found or that was reported to me.';
+
+const sameName = (a: string, b: string) => a.trim().replace(/\s+/g, ' ').toLowerCase() === b.trim().replace(/\s+/g, ' ').toLowerCase();
+
+/**
+ * Sign and lock the report: defects are created from what the walk recorded (less what was
+ * taken back), the content hash is stored, a unit with a major defect goes out of service, and
+ * maintenance and the supervisor are mailed. Signing the same report again returns it unchanged.
+ */
+export async function finishInspection({ fleetId, actorId, actorName, inspectionId, body, appUrl }: { fleetId: string; actorId: string; actorName: string; inspectionId: string; body: FinishInspectionBody; appUrl: string }) {
+  const result = await getDb()
+    .transaction()
+    .execute(async (trx) => {
+      const inspection = await findInspectionForUpdate(trx, { fleetId, id: inspectionId });
+      if (!inspection) throw new AppError('not_found', 'No such inspection in your fleet.');
+      if (inspection.driverId !== actorId) throw new AppError('forbidden', 'Only the driver who did this inspection signs it.');
+      if (inspection.status === 'submitted') return { inspectionId, alreadySigned: true, outOfService: [] as string[] };
+      if (!sameName(body.signatureName, actorName)) {
+        throw new AppError('invalid_body', `Sign with your name as it is on your account: ${actorName}.`, { signatureName: [`Type ${actorName}.`] });
+      }
+      const steps = await listInspectionSteps(trx, { inspectionId });
+      const finishedAt = new Date(body.finishedAt) < inspection.startedAt ? new Date() : new Date(body.finishedAt);
+      const signedAt = new Date();
+      const header = {
+        id: inspection.id,
+        fleetId,
+        kind: inspection.kind,
+        driverId: inspection.driverId,
+        tractorId: inspection.tractorId,
+        trailerId: inspection.trailerId,
+        odometer: inspection.odometer,
+        location: inspection.location,
+        billOfLading: inspection.billOfLading,
+        sealNumber: inspection.sealNumber,
+        ruleProfile: inspection.ruleProfile,
+        vocabularyVersionId: inspection.vocabularyVersionId,
+        startedAt: inspection.startedAt,
+        finishedAt,
+        certificationText: certificationStatement,
+        signatureName: body.signatureName.trim(),
+        signedAt,
+      };
+      const canonical = serializeReport({ ...header, steps: toCanonicalSteps(steps) });
+      const contentHash = createHash('sha256').update(canonical).digest('hex');
+
+      const defectSteps = listDefectSteps(steps);
+      const defects = defectSteps.map((s) => {
+        const componentId = s.termKey?.split(':')[0] ?? null;
+        const unitId = inspection.trailerId && isTrailerItem(s.item, s.zone, componentId) ? inspection.trailerId : inspection.tractorId;
+        const what = s.kind === 'measurement' ? `${s.item ?? s.measurementKind}: ${s.value ?? ''} ${s.unit ?? ''} (limit ${s.limitText ?? 'n/a'})`.replace(/\s+/g, ' ') : [s.component, s.condition, s.position].filter(Boolean).join(', ');
+        return {
+          fleetId,
+          inspectionId,
+          stepId: s.id,
+          unitId,
+          zone: s.zone,
+          component: s.component ?? s.measurementKind ?? 'reading',
+          condition: s.condition ?? (s.kind === 'measurement' ? 'over the limit' : 'reported'),
+          position: s.position,
+          severity: s.severity === 'minor' ? ('minor' as const) : ('major' as const),
+          description: what,
+          createdAt: s.deviceAt,
+        };
+      });
+      if (defects.length) await trx.insertInto('defect').values(defects).onConflict((oc) => oc.column('stepId').doNothing()).execute();
+
+      await trx
+        .updateTable('inspection')
+        .set({ status: 'submitted', finishedAt, durationS: Math.max(0, Math.round((finishedAt.getTime() - inspection.startedAt.getTime()) / 1000)), certificationText: certificationStatement, signatureName: header.signatureName, signedAt, contentHash })
+        .where('id', '=', inspectionId)
+        .execute();
+
+      const majorUnits = [...new Set(defects.filter((d) => d.severity === 'major').map((d) => d.unitId))];
+      const outOfService: string[] = [];
+      for (const unitId of majorUnits) {
+        await trx.updateTable('unit').set({ status: 'out_of_service', statusChangedAt: signedAt }).where('id', '=', unitId).where('fleetId', '=', fleetId).execute();
+        const unit = await findFleetUnit(trx, { fleetId, id: unitId });
+        outOfService.push(unit?.unitNumber ?? unitId);
+      }
+      if (majorUnits.length) {
+        const fleet = await trx.selectFrom('fleet').select(['name', 'maintenanceEmail', 'supervisorEmail']).where('id', '=', fleetId).executeTakeFirstOrThrow();
+        const to = [fleet.maintenanceEmail, fleet.supervisorEmail].filter((x): x is string => !!x);
+        if (to.length) {
+          const lines = defects.filter((d) => d.severity === 'major').map((d) => `- ${d.description} (${d.zone.replace(/_/g, ' ')})`);
+          const url = `${appUrl}/supervisor/reports/${inspectionId}`;
+          const subject = `OUT OF SERVICE: unit ${outOfService.join(', ')} — major defect on ${inspection.kind === 'pre_trip' ? 'pre-trip' : 'post-trip'}`;
+          const text = [`${fleet.name}`, '', `Unit ${outOfService.join(', ')} is out of service after ${actorName}'s inspection.`, '', 'Major defects:', ...lines, '', `Report: ${url}`, '', 'The unit stays out of service until a mechanic certifies the repair.'].join('\n');
+          const html = `<p><strong>${escapeHtml(fleet.name)}</strong></p><p>Unit <strong>${escapeHtml(outOfService.join(', '))}</strong> is <strong>OUT OF SERVICE</strong> after ${escapeHtml(actorName)}'s inspection.</p><p>Major defects:</p><ul>${defects
+            .filter((d) => d.severity === 'major')
+            .map((d) => `<li>${escapeHtml(d.description)} (${escapeHtml(d.zone.replace(/_/g, ' '))})</li>`)
+            .join('')}</ul><p><a href="${escapeHtml(url)}">Open the report</a></p><p>The unit stays out of service until a mechanic certifies the repair.</p>`;
+          await trx.insertInto('mailOutbox').values({ fleetId, kind: 'out_of_service', toAddresses: to, subject, textBody: text, htmlBody: html }).execute();
+        }
+      }
+      await recordAudit(trx, { fleetId, actorId, action: 'inspection.sign', entity: 'inspection', entityId: inspectionId, detail: { contentHash, defects: defects.length, outOfService } });
+      return { inspectionId, alreadySigned: false, outOfService };
+    });
+  await deliverOutbox({ fleetId });
+  return result;
+}
+
+function escapeHtml(s: string): string {
+  return s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+}
