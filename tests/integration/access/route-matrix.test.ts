@@ -8,6 +8,19 @@ import sharp from 'sharp';
 import * as acknowledgements from '@/app/api/acknowledgements/route';
 import * as attachments from '@/app/api/attachments/[id]/route';
 import * as health from '@/app/api/health/route';
+import * as dashboard from '@/app/api/dashboard/route';
+import * as dashboardBoard from '@/app/api/dashboard/board/route';
+import * as defects from '@/app/api/defects/route';
+import * as defect from '@/app/api/defects/[id]/route';
+import * as defectCertification from '@/app/api/defects/[id]/certification/route';
+import * as caughtMail from '@/app/api/mail/route';
+import * as reports from '@/app/api/reports/route';
+import * as reportsExport from '@/app/api/reports/export/route';
+import * as reportsPending from '@/app/api/reports/acknowledgements/route';
+import * as report from '@/app/api/reports/[id]/route';
+import * as reportPdf from '@/app/api/reports/[id]/pdf/route';
+import * as reportReview from '@/app/api/reports/[id]/review/route';
+import * as reportNotify from '@/app/api/reports/[id]/notify/route';
 import * as finish from '@/app/api/inspections/[id]/finish/route';
 import * as photos from '@/app/api/inspections/[id]/photos/[photoId]/route';
 import * as inspection from '@/app/api/inspections/[id]/route';
@@ -100,6 +113,62 @@ const cases: Case[] = [
       return callRoute(acknowledgements.POST, makeRequest('/api/acknowledgements', { method: 'POST', cookie, json: { id: randomUUID(), unitId, reviewedInspectionId: reportId, signatureName: f.users.driver.name } }));
     },
   },
+  // The office side: reports, defects, dashboard, caught mail.
+  { route: 'reports', method: 'GET', allowed: ['supervisor'], call: (_f, cookie) => callRoute(reports.GET, makeRequest('/api/reports?pageSize=5', { cookie })) },
+  { route: 'reports/export', method: 'GET', allowed: ['supervisor'], call: (_f, cookie) => callRoute(reportsExport.GET, makeRequest('/api/reports/export', { cookie })) },
+  {
+    route: 'reports/acknowledgements',
+    method: 'GET',
+    allowed: ['driver', 'mechanic', 'supervisor'],
+    call: (f, cookie) => callRoute(reportsPending.GET, makeRequest(`/api/reports/acknowledgements?units=${f.tractor.id}`, { cookie })),
+  },
+  { route: 'reports/[id]', method: 'GET', allowed: ['supervisor'], call: (f, cookie) => callRoute(report.GET, makeRequest(`/api/reports/${f.inspection.id}`, { cookie }), { id: f.inspection.id }) },
+  {
+    route: 'reports/[id]/pdf',
+    method: 'GET',
+    allowed: ['driver', 'mechanic', 'supervisor'],
+    call: (f, cookie) => callRoute(reportPdf.GET, makeRequest(`/api/reports/${f.inspection.id}/pdf`, { cookie }), { id: f.inspection.id }),
+  },
+  {
+    route: 'reports/[id]/review',
+    method: 'POST',
+    allowed: ['supervisor'],
+    call: async (f, cookie) => {
+      const { reportId } = await reportWithDefect(f);
+      return callRoute(reportReview.POST, makeRequest(`/api/reports/${reportId}/review`, { method: 'POST', cookie, json: { note: 'checked' } }), { id: reportId });
+    },
+  },
+  {
+    route: 'reports/[id]/notify',
+    method: 'POST',
+    allowed: ['supervisor'],
+    call: async (f, cookie) => {
+      const { reportId } = await reportWithDefect(f);
+      return callRoute(reportNotify.POST, makeRequest(`/api/reports/${reportId}/notify`, { method: 'POST', cookie }), { id: reportId });
+    },
+  },
+  { route: 'defects', method: 'GET', allowed: ['mechanic', 'supervisor'], call: (_f, cookie) => callRoute(defects.GET, makeRequest('/api/defects', { cookie })) },
+  {
+    route: 'defects/[id]',
+    method: 'GET',
+    allowed: ['mechanic', 'supervisor'],
+    call: async (f, cookie) => {
+      const id = await openDefectOf(f);
+      return callRoute(defect.GET, makeRequest(`/api/defects/${id}`, { cookie }), { id });
+    },
+  },
+  {
+    route: 'defects/[id]/certification',
+    method: 'POST',
+    allowed: ['mechanic'],
+    call: async (f, cookie) => {
+      const id = await openDefectOf(f, true);
+      return callRoute(defectCertification.POST, makeRequest(`/api/defects/${id}/certification`, { method: 'POST', cookie, json: { outcome: 'repaired', work: 'Replaced the horn relay', certifiedName: 'Matrix Mechanic', confirm: true } }), { id });
+    },
+  },
+  { route: 'dashboard', method: 'GET', allowed: ['supervisor'], call: (_f, cookie) => callRoute(dashboard.GET, makeRequest('/api/dashboard', { cookie })) },
+  { route: 'dashboard/board', method: 'GET', allowed: ['supervisor'], call: (_f, cookie) => callRoute(dashboardBoard.GET, makeRequest('/api/dashboard/board', { cookie })) },
+  { route: 'mail', method: 'GET', allowed: ['admin'], call: (_f, cookie) => callRoute(caughtMail.GET, makeRequest('/api/mail', { cookie })) },
   ...adminRouteCases.map(
     (a): Case => ({ route: a.path.replace(/^\/api\//, ''), method: a.method as Case['method'], allowed: ['admin'], call: (_f, cookie) => a.call(cookie) }),
   ),
@@ -122,6 +191,18 @@ function sharedPhoto(f: FleetFixture): Promise<string> {
     return id;
   })();
   return photo;
+}
+
+/** An open defect on a fresh report (a new one each time when `fresh`, since certifying closes it). */
+let sharedDefect: Promise<string> | undefined;
+function openDefectOf(f: FleetFixture, fresh = false): Promise<string> {
+  const make = async () => {
+    const { reportId } = await reportWithDefect(f);
+    return (await db.selectFrom('defect').select('id').where('inspectionId', '=', reportId).executeTakeFirstOrThrow()).id;
+  };
+  if (fresh) return make();
+  sharedDefect ??= make();
+  return sharedDefect;
 }
 
 /** A unit of its own whose last report lists a defect, through the real walk routes. */

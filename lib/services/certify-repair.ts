@@ -1,0 +1,93 @@
+import 'server-only';
+import { getDb } from '@/lib/db';
+import { listUnitDefectsForStatus, lockDefect } from '@/lib/db/defects';
+import { AppError } from '@/lib/errors';
+import { renderBackInServiceMail } from '@/lib/mail/templates';
+import { getUnitServiceStatus, type DefectRecord } from '@/lib/rules';
+import { repairCertificationStatement, type CertifyRepairBody } from '@/lib/schemas/defects';
+import { appUrl, sendUnitStatusMail } from './send-unit-status-mail';
+
+type Row = { id: string; unitId: string; severity: string; status: string; certifiedAt: Date | null };
+
+const toRecord = (d: Row): DefectRecord => ({
+  id: d.id,
+  unitId: d.unitId,
+  severity: d.severity === 'major' ? 'major' : 'minor',
+  repair: d.status === 'open' ? null : { outcome: d.status === 'no_repair_needed' ? 'repair_unnecessary' : 'repaired', certifiedAt: d.certifiedAt ?? new Date() },
+});
+
+/**
+ * The mechanic records the repair (or that none is needed) and certifies it, 49 CFR 396.11(a)(3).
+ * The unit's status then follows its open major defects: back in service only when none is open,
+ * and that change is mailed to maintenance and the supervisor.
+ */
+export async function certifyRepair({ fleetId, actorId, id, body }: { fleetId: string; actorId: string; id: string; body: CertifyRepairBody }) {
+  const at = new Date();
+  const result = await getDb()
+    .transaction()
+    .execute(async (trx) => {
+      const defect = await lockDefect(trx, { fleetId, id });
+      if (!defect) throw new AppError('not_found', 'No such defect in your fleet.');
+      if (defect.status !== 'open') throw new AppError('conflict', 'This defect is already certified; a certification is part of the record and is not changed.');
+      const { unit, defects } = await listUnitDefectsForStatus(trx, { fleetId, unitId: defect.unitId });
+      const before = getUnitServiceStatus(unit.id, defects.map(toRecord));
+
+      await trx
+        .updateTable('defect')
+        .set({
+          status: body.outcome,
+          repairWork: body.work || null,
+          repairParts: body.parts || null,
+          repairNotes: body.notes || null,
+          certifiedBy: actorId,
+          certifiedName: body.certifiedName,
+          certificationText: repairCertificationStatement[body.outcome],
+          certifiedAt: at,
+        })
+        .where('id', '=', id)
+        .execute();
+      const after = getUnitServiceStatus(
+        unit.id,
+        defects.map((d) => toRecord(d.id === id ? { ...d, status: body.outcome, certifiedAt: at } : d)),
+      );
+      const nextStatus = after.outOfService ? 'out_of_service' : 'in_service';
+      const changed = nextStatus !== unit.status;
+      if (changed) await trx.updateTable('unit').set({ status: nextStatus, statusChangedAt: at }).where('id', '=', unit.id).execute();
+      await trx
+        .insertInto('auditLog')
+        .values([
+          { fleetId, actorId, action: 'defect.certified', entity: 'defect', entityId: id, detail: JSON.stringify({ outcome: body.outcome, certifiedName: body.certifiedName }) },
+          ...(changed ? [{ fleetId, actorId, action: `unit.${nextStatus}`, entity: 'unit', entityId: unit.id, detail: JSON.stringify({ afterDefect: id }) }] : []),
+        ])
+        .execute();
+      const closedMajors = defects.filter((d) => d.severity === 'major' && (d.id === id || d.status !== 'open') && before.openMajor.some((m) => m.id === d.id));
+      return { unit: { id: unit.id, unitNumber: unit.unitNumber, status: nextStatus, changed }, openMajor: after.openMajor.length, openMinor: after.openMinor.length, closedMajors, inspectionId: defect.inspectionId };
+    });
+
+  let mailed: Awaited<ReturnType<typeof sendUnitStatusMail>> | null = null;
+  if (result.unit.changed && result.unit.status === 'in_service') {
+    const fleet = await getDb().selectFrom('fleet').select('name').where('id', '=', fleetId).executeTakeFirstOrThrow();
+    mailed = await sendUnitStatusMail({
+      fleetId,
+      kind: 'back_in_service',
+      mail: renderBackInServiceMail({
+        fleetName: fleet.name,
+        unitNumber: result.unit.unitNumber,
+        defects: result.closedMajors.map((d) => ({ severity: 'major' as const, description: d.description, certifiedName: d.id === id ? body.certifiedName : d.certifiedName, outcome: d.id === id ? body.outcome : d.status })),
+        certifiedName: body.certifiedName,
+        certifiedAt: at.toISOString(),
+        defectUrl: appUrl(`/mechanic/defects/${id}`),
+      }),
+    });
+  }
+  return {
+    id,
+    status: body.outcome,
+    certifiedName: body.certifiedName,
+    certifiedAt: at.toISOString(),
+    unit: { id: result.unit.id, unitNumber: result.unit.unitNumber, status: result.unit.status, changed: result.unit.changed },
+    openMajor: result.openMajor,
+    openMinor: result.openMinor,
+    mailed: mailed?.sent ?? false,
+  };
+}

@@ -1,0 +1,52 @@
+import 'server-only';
+import { getDb } from '@/lib/db';
+import { findDefectDetail, listDefectPhotos } from '@/lib/db/defects';
+import { AppError } from '@/lib/errors';
+import { presignGet } from '@/lib/storage';
+
+/** One defect of the caller's fleet with its finding and photos; another fleet's is not found. */
+export async function getDefectOrThrow({ fleetId, id }: { fleetId: string; id: string }) {
+  const db = getDb();
+  const d = await findDefectDetail(db, { fleetId, id });
+  if (!d) throw new AppError('not_found', 'No such defect in your fleet.');
+  const photos = await listDefectPhotos(db, { fleetId, defectId: d.id, stepId: d.stepId });
+  return {
+    id: d.id,
+    unitId: d.unitId,
+    unitNumber: d.unitNumber,
+    unitKind: d.unitKind === 'trailer' ? ('trailer' as const) : ('tractor' as const),
+    unitStatus: d.unitStatus === 'out_of_service' ? ('out_of_service' as const) : ('in_service' as const),
+    unitMake: d.unitMake,
+    unitModel: d.unitModel,
+    zone: d.zone,
+    component: d.component,
+    condition: d.condition,
+    position: d.position,
+    severity: d.severity === 'major' ? ('major' as const) : ('minor' as const),
+    description: d.description,
+    status: d.status as 'open' | 'repaired' | 'no_repair_needed',
+    reportedAt: d.createdAt.toISOString(),
+    inspectionId: d.inspectionId,
+    inspectionKind: d.inspectionKind,
+    inspectedAt: d.inspectedAt.toISOString(),
+    odometer: d.odometer,
+    location: d.location,
+    driverName: d.driverName,
+    finding: {
+      heard: d.heard,
+      score: d.score === null ? null : Number(d.score),
+      resolution: d.resolution,
+      measurementKind: d.measurementKind,
+      value: d.value === null ? null : Number(d.value),
+      unit: d.measurementUnit,
+      limitText: d.limitText,
+      source: d.source,
+      verdict: d.verdict,
+    },
+    repair: { work: d.repairWork, parts: d.repairParts, notes: d.repairNotes },
+    certification: d.certifiedAt ? { name: d.certifiedName, at: d.certifiedAt.toISOString(), text: d.certificationText } : null,
+    photos: await Promise.all(photos.map(async (p) => ({ id: p.id, contentType: p.contentType, url: await presignGet(p.objectKey, 900) }))),
+  };
+}
+
+export type DefectDetail = Awaited<ReturnType<typeof getDefectOrThrow>>;
