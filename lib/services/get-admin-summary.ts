@@ -1,6 +1,6 @@
 import 'server-only';
 import { getDb } from '@/lib/db';
-import { findFleetSettings } from '@/lib/db/fleets';
+import { findFleet, findFleetSettings } from '@/lib/db/fleets';
 import { countFleetUnits } from '@/lib/db/units';
 import { countFleetUsers } from '@/lib/db/users';
 import { AppError } from '@/lib/errors';
@@ -8,8 +8,9 @@ import { AppError } from '@/lib/errors';
 /** What the admin overview shows: people by role, units by state, the current settings. */
 export async function getAdminSummary({ fleetId }: { fleetId: string }) {
   const db = getDb();
-  const [fleet, users, units, recent] = await Promise.all([
+  const [fleet, place, users, units, recent] = await Promise.all([
     findFleetSettings(db, { fleetId }),
+    findFleet(db, { fleetId }),
     countFleetUsers(db, { fleetId }),
     countFleetUnits(db, { fleetId }),
     db
@@ -26,6 +27,7 @@ export async function getAdminSummary({ fleetId }: { fleetId: string }) {
   if (!fleet) throw new AppError('not_found', 'This fleet no longer exists.');
   return {
     fleet,
+    timezone: place?.timezone ?? 'UTC',
     users,
     units,
     recent: recent.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() })),

@@ -1,11 +1,12 @@
-import { RoleHome } from '@/components/app-shell/role-home';
+import type { Metadata } from 'next';
 import { requireRole } from '@/lib/auth/guards';
+import { getAdminSummary } from '@/lib/services/get-admin-summary';
+import { AdminOverview } from './admin-overview';
+
+export const metadata: Metadata = { title: 'Administration' };
 
 export default async function AdminHomePage() {
   const user = await requireRole('admin');
-  return (
-    <RoleHome user={user} title="Fleet administration">
-      <p className="text-xl">People and roles, tractors and trailers, and the fleet's settings.</p>
-    </RoleHome>
-  );
+  const summary = await getAdminSummary({ fleetId: user.fleetId });
+  return <AdminOverview summary={summary} />;
 }
