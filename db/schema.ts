@@ -135,6 +135,7 @@ export interface Inspection {
   certificationText: string | null;
   contentHash: string | null;
   createdAt: Generated<Timestamp>;
+  defectCount: Generated<number>;
   driverId: string;
   durationS: number | null;
   finishedAt: Timestamp | null;
@@ -142,7 +143,9 @@ export interface Inspection {
   id: string;
   kind: string;
   location: string | null;
+  majorDefectCount: Generated<number>;
   odometer: number | null;
+  openDefectCount: Generated<number>;
   reviewedAt: Timestamp | null;
   reviewedBy: string | null;
   reviewNote: string | null;

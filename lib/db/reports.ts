@@ -1,22 +1,12 @@
 import 'server-only';
-import { sql, type ExpressionBuilder } from 'kysely';
-import type { DB as Database } from '@/db/schema';
+import { sql } from 'kysely';
 import type { ReportFilters, ReportRow, ReportSortKey } from '@/lib/schemas/reports';
 import type { DB } from './index';
 
 export type FleetMinimums = { timezone: string; minPretripMinutes: number; minPosttripMinutes: number };
 
-type Eb = ExpressionBuilder<Database & { i: Database['inspection'] }, 'i'>;
-
 const minimumSeconds = (m: FleetMinimums) =>
   sql<number>`(CASE WHEN i.kind = 'pre_trip' THEN ${m.minPretripMinutes}::int ELSE ${m.minPosttripMinutes}::int END * 60)`;
-
-const defectCount = (eb: Eb, severity?: 'minor' | 'major', openOnly = false) => {
-  let q = eb.selectFrom('defect as df').select((e) => e.fn.countAll<number>().as('n')).whereRef('df.inspectionId', '=', 'i.id');
-  if (severity) q = q.where('df.severity', '=', severity);
-  if (openOnly) q = q.where('df.status', '=', 'open');
-  return q;
-};
 
 /** The filtered set of a fleet's reports, before paging (shared by the page, the count and the CSV). */
 function filteredReports(db: DB, fleetId: string, f: ReportFilters, m: FleetMinimums) {
@@ -29,8 +19,9 @@ function filteredReports(db: DB, fleetId: string, f: ReportFilters, m: FleetMini
     q = q.where((eb) => eb.or([eb('i.tractorId', '=', unitId), eb('i.trailerId', '=', unitId)]));
   }
   if (f.kind) q = q.where('i.kind', '=', f.kind);
-  if (f.hasDefects === 'yes') q = q.where((eb) => eb.exists(eb.selectFrom('defect as df').select('df.id').whereRef('df.inspectionId', '=', 'i.id')));
-  if (f.hasDefects === 'no') q = q.where((eb) => eb.not(eb.exists(eb.selectFrom('defect as df').select('df.id').whereRef('df.inspectionId', '=', 'i.id'))));
+  // defect_count is kept by a trigger on defect (migration 20261202090000).
+  if (f.hasDefects === 'yes') q = q.where('i.defectCount', '>', 0);
+  if (f.hasDefects === 'no') q = q.where('i.defectCount', '=', 0);
   if (f.short === 'yes') q = q.where(sql<boolean>`i.duration_s < ${minimumSeconds(m)}`);
   if (f.short === 'no') q = q.where(sql<boolean>`i.duration_s >= ${minimumSeconds(m)}`);
   if (f.status === 'draft') q = q.where('i.status', '=', 'draft');
@@ -44,7 +35,7 @@ function selectRows(db: DB, fleetId: string, f: ReportFilters, m: FleetMinimums)
     .innerJoin('appUser as d', 'd.id', 'i.driverId')
     .innerJoin('unit as t', 't.id', 'i.tractorId')
     .leftJoin('unit as tr', 'tr.id', 'i.trailerId')
-    .select((eb) => [
+    .select([
       'i.id',
       'i.kind',
       'i.status',
@@ -64,9 +55,9 @@ function selectRows(db: DB, fleetId: string, f: ReportFilters, m: FleetMinimums)
       'i.signedAt',
       'i.contentHash',
       minimumSeconds(m).as('minimumS'),
-      defectCount(eb, 'major').as('majorCount'),
-      defectCount(eb, 'minor').as('minorCount'),
-      defectCount(eb, undefined, true).as('openCount'),
+      'i.majorDefectCount',
+      'i.defectCount',
+      'i.openDefectCount',
     ]);
 }
 
@@ -91,21 +82,23 @@ function toReportRow(r: RawRow): ReportRow {
     trailerNumber: r.trailerNumber,
     odometer: r.odometer,
     location: r.location,
-    majorCount: Number(r.majorCount ?? 0),
-    minorCount: Number(r.minorCount ?? 0),
-    openCount: Number(r.openCount ?? 0),
+    majorCount: r.majorDefectCount,
+    minorCount: r.defectCount - r.majorDefectCount,
+    openCount: r.openDefectCount,
     reviewedAt: r.reviewedAt ? r.reviewedAt.toISOString() : null,
   };
 }
 
-const sortColumn = {
-  startedAt: sql.ref('i.started_at'),
-  durationS: sql.ref('i.duration_s'),
-  driverName: sql.ref('d.name'),
-  tractorNumber: sql.ref('t.unit_number'),
-  kind: sql.ref('i.kind'),
-  defects: sql`(SELECT count(*) FROM defect df WHERE df.inspection_id = i.id AND df.severity = 'major') * 1000 + (SELECT count(*) FROM defect df WHERE df.inspection_id = i.id)`,
-} satisfies Record<ReportSortKey, unknown>;
+// Every order ends on (started_at, id) in the same direction, so that paging is stable and the
+// indexes of migration 20261202090000 serve the common orders without sorting.
+const sortColumns = {
+  startedAt: [],
+  durationS: [sql.ref('i.duration_s')],
+  driverName: [sql.ref('d.name')],
+  tractorNumber: [sql.ref('t.unit_number')],
+  kind: [sql.ref('i.kind')],
+  defects: [sql.ref('i.major_defect_count'), sql.ref('i.defect_count')],
+} satisfies Record<ReportSortKey, unknown[]>;
 
 export type ListReportsArgs = {
   fleetId: string;
@@ -118,12 +111,9 @@ export type ListReportsArgs = {
 };
 
 function ordered(db: DB, a: Omit<ListReportsArgs, 'limit' | 'offset'>) {
-  const dir = a.dir === 'asc' ? sql`ASC` : sql`DESC`;
-  const nulls = a.dir === 'asc' ? sql`NULLS FIRST` : sql`NULLS LAST`;
-  return selectRows(db, a.fleetId, a.filters, a.minimums)
-    .orderBy(sql`${sortColumn[a.sort]} ${dir} ${nulls}`)
-    .orderBy('i.startedAt', a.dir)
-    .orderBy('i.id', a.dir);
+  let q = selectRows(db, a.fleetId, a.filters, a.minimums);
+  for (const c of sortColumns[a.sort]) q = q.orderBy(c, a.dir);
+  return q.orderBy('i.startedAt', a.dir).orderBy('i.id', a.dir);
 }
 
 /** One page of a fleet's reports, filtered and sorted on the server. */
