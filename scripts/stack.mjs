@@ -424,6 +424,7 @@ async function holdTestLock() {
 
 async function cmdStart() {
   const t0 = Date.now();
+  await holdTestLock(); // the build in .next is shared with test runs
   const p = profiles.demo;
   const env = await prepare(p);
   const buildStatus = ensureBuild(env);

@@ -1,11 +1,15 @@
 import { RoleHome } from '@/components/app-shell/role-home';
 import { requireRole } from '@/lib/auth/guards';
+import { getDb } from '@/lib/db';
+import { listDriverInspections } from '@/lib/db/inspections';
+import { DriverHomeClient } from './driver-home-client';
 
 export default async function DriverHomePage() {
   const user = await requireRole('driver');
+  const recent = await listDriverInspections(getDb(), { fleetId: user.fleetId, driverId: user.id, limit: 8 });
   return (
     <RoleHome user={user} title="Today's walk-around">
-      <p className="text-xl">Start a pre-trip or post-trip inspection of your tractor and trailer.</p>
+      <DriverHomeClient recent={recent.map((r) => ({ ...r, startedAt: r.startedAt.toISOString(), finishedAt: r.finishedAt?.toISOString() ?? null, defectCount: Number(r.defectCount ?? 0) }))} />
     </RoleHome>
   );
 }

@@ -1,0 +1,69 @@
+import 'server-only';
+import zonesGrammar from '@/grammars/zones.json' with { type: 'json' };
+import type { DB } from '@/lib/db';
+import { findFleetSettings } from '@/lib/db/fleets';
+import { listInspectionSteps } from '@/lib/db/inspections';
+import { findFleetUnit } from '@/lib/db/units';
+import type { WalkStep } from '@/lib/inspection/store';
+import { listWalkZones } from '@/lib/matcher';
+import type { Zones } from '@/lib/schemas/grammar';
+import { z } from 'zod';
+import { loadCheckContext } from './record-step';
+
+const uuid = z.uuid();
+
+/** Everything the walk screen needs for one of the driver's own inspections, or null. */
+export async function loadWalkOrNull(db: DB, { fleetId, driverId, inspectionId }: { fleetId: string; driverId: string; inspectionId: string }) {
+  if (!uuid.safeParse(inspectionId).success) return null;
+  const inspection = await db
+    .selectFrom('inspection')
+    .select(['id', 'kind', 'status', 'tractorId', 'trailerId', 'startedAt', 'sealNumber', 'ruleProfile', 'driverId'])
+    .where('fleetId', '=', fleetId)
+    .where('id', '=', inspectionId)
+    .executeTakeFirst();
+  if (!inspection || inspection.driverId !== driverId) return null;
+  const [tractor, trailer, fleet, context, rows] = await Promise.all([
+    findFleetUnit(db, { fleetId, id: inspection.tractorId }),
+    inspection.trailerId ? findFleetUnit(db, { fleetId, id: inspection.trailerId }) : Promise.resolve(undefined),
+    findFleetSettings(db, { fleetId }),
+    loadCheckContext(db, { fleetId, tractorId: inspection.tractorId, trailerId: inspection.trailerId }),
+    listInspectionSteps(db, { inspectionId }),
+  ]);
+  const zones = listWalkZones(zonesGrammar as Zones, inspection.trailerId ? 'tractor_trailer' : 'bobtail').filter(
+    // Air-brake tests belong to the pre-trip; a post-trip walk ends in the cab.
+    (zone) => inspection.kind === 'pre_trip' || zone.id !== 'air_brake_tests',
+  );
+  const serverSteps: WalkStep[] = rows.map((r) => ({
+    id: r.id,
+    seq: r.seq,
+    zone: r.zone,
+    item: r.item,
+    kind: r.kind as WalkStep['kind'],
+    heard: r.heard,
+    alternatives: Array.isArray(r.alternatives) ? (r.alternatives as string[]) : [],
+    inputMode: r.inputMode as WalkStep['inputMode'],
+    termKey: r.termKey,
+    position: r.position,
+    score: r.score,
+    resolution: r.resolution as WalkStep['resolution'],
+    undoesStepId: r.undoesStepId,
+    reading: r.value === null ? null : { value: Number(r.value) },
+    deviceAt: r.deviceAt.toISOString(),
+    label: [r.component, r.condition].filter(Boolean).join(', ') || undefined,
+    verdict: r.verdict as WalkStep['verdict'],
+    severity: r.severity as WalkStep['severity'],
+    limit: r.limitText,
+    source: r.source,
+  }));
+  return {
+    inspection: { id: inspection.id, kind: inspection.kind as 'pre_trip' | 'post_trip', status: inspection.status as 'draft' | 'submitted', startedAt: inspection.startedAt.toISOString(), sealNumber: inspection.sealNumber, ruleProfile: inspection.ruleProfile },
+    tractorNumber: tractor?.unitNumber ?? '?',
+    trailerNumber: trailer?.unitNumber ?? null,
+    minimumMinutes: inspection.kind === 'pre_trip' ? (fleet?.minPretripMinutes ?? 15) : (fleet?.minPosttripMinutes ?? 5),
+    zones,
+    context,
+    serverSteps,
+  };
+}
+
+export type WalkProps = NonNullable<Awaited<ReturnType<typeof loadWalkOrNull>>>;
