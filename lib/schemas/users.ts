@@ -2,6 +2,9 @@
 import { z } from 'zod';
 import { roles } from '@/lib/auth/roles';
 
+// Re-exported so client components reach the role list through a universal module.
+export { roleLabel, roles, type Role } from '@/lib/auth/roles';
+
 /** An e-mail address, trimmed and lower-cased (sign-in compares lower case). */
 export const emailSchema = z
   .string('Enter an e-mail address.')

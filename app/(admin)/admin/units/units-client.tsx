@@ -37,7 +37,7 @@ export function UnitsClient({ added }: { added: string | null }) {
         <fieldset className="flex flex-wrap gap-2">
           <legend className="sr-only">Show</legend>
           {(['all', 'tractor', 'trailer'] as const).map((k) => (
-            <label key={k} className={`${officeButtonClass(kind === k ? 'primary' : 'plain')} cursor-pointer`}>
+            <label key={k} className={`${officeButtonClass(kind === k ? 'primary' : 'plain')} cursor-pointer has-[:focus-visible]:outline-4 has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-vest`}>
               <input type="radio" name="kind-filter" className="sr-only" checked={kind === k} onChange={() => setKind(k)} />
               {k === 'all' ? 'All' : k === 'tractor' ? 'Tractors' : 'Trailers'}
             </label>

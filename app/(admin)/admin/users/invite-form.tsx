@@ -5,9 +5,8 @@ import { Field, FormNotice } from '@/components/admin/field';
 import { useHydrated } from '@/components/admin/use-hydrated';
 import { fieldsOfZod, firstError, readFailure, type FieldErrors } from '@/components/admin/form-errors';
 import { inputClass, officeButtonClass, panelClass } from '@/components/admin/office-controls';
-import type { Role } from '@/lib/auth/roles';
 import { useInviteUserMutation } from '@/lib/queries/admin';
-import { inviteUserBodySchema } from '@/lib/schemas/users';
+import { inviteUserBodySchema, type Role } from '@/lib/schemas/users';
 import { RoleChoices } from './role-choices';
 
 export function InviteForm() {

@@ -4,9 +4,8 @@ import { useState } from 'react';
 import { FormNotice } from '@/components/admin/field';
 import { firstError, readFailure, type FieldErrors } from '@/components/admin/form-errors';
 import { officeButtonClass } from '@/components/admin/office-controls';
-import { roleLabel, type Role } from '@/lib/auth/roles';
 import { useUpdateUserMutation } from '@/lib/queries/admin';
-import type { AdminUser } from '@/lib/schemas/users';
+import { roleLabel, type AdminUser, type Role } from '@/lib/schemas/users';
 import { RoleChoices } from './role-choices';
 
 const dateFormat = new Intl.DateTimeFormat('en-US', { day: 'numeric', month: 'short', year: 'numeric' });
@@ -39,13 +38,13 @@ export function PersonRow({ person, isSelf }: { person: AdminUser; isSelf: boole
 
   return (
     <li className={`border-b-2 border-edge/30 py-3 last:border-b-0 ${person.active ? '' : 'opacity-80'}`}>
-      <div className="grid grid-cols-1 gap-2 md:grid-cols-[minmax(0,3fr)_minmax(0,2fr)_9rem_auto] md:items-center md:gap-4">
+      <div className="grid grid-cols-1 gap-2 md:grid-cols-[minmax(0,1fr)_minmax(0,13rem)_10rem_auto] md:items-center md:gap-4">
         <div className="min-w-0">
           <p className="truncate text-lg font-bold">
             {person.name}
             {isSelf ? <span className="ml-2 text-base font-normal text-muted">(you)</span> : null}
           </p>
-          <p className="break-all text-base text-muted">{person.email}</p>
+          <p className="text-base text-muted [overflow-wrap:anywhere]">{person.email}</p>
         </div>
         <ul className="flex flex-wrap gap-1" aria-label={`Roles of ${person.name}`}>
           {person.roles.map((r) => (
@@ -67,7 +66,7 @@ export function PersonRow({ person, isSelf }: { person: AdminUser; isSelf: boole
             <span className="font-bold text-muted">Deactivated</span>
           )}
           <span className="block text-sm text-muted" suppressHydrationWarning>
-            {person.lastSignInAt ? `Signed in ${dateFormat.format(new Date(person.lastSignInAt))}` : 'Never signed in'}
+            {person.lastSignInAt ? `Last signed in ${dateFormat.format(new Date(person.lastSignInAt))}` : 'Never signed in'}
           </span>
         </div>
         <button

@@ -1,4 +1,4 @@
-import { roleLabel, roles, type Role } from '@/lib/auth/roles';
+import { roleLabel, roles, type Role } from '@/lib/schemas/users';
 
 export const roleDuty: Record<Role, string> = {
   driver: 'walks and signs inspections',

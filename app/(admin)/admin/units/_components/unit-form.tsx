@@ -119,7 +119,7 @@ export function UnitForm({
               <legend className="mb-1 text-base font-bold">Kind</legend>
               <div className="flex flex-wrap gap-2">
                 {(['tractor', 'trailer'] as const).map((k) => (
-                  <label key={k} className={`${officeButtonClass(kind === k ? 'primary' : 'plain')} cursor-pointer`}>
+                  <label key={k} className={`${officeButtonClass(kind === k ? 'primary' : 'plain')} cursor-pointer has-[:focus-visible]:outline-4 has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-vest`}>
                     <input type="radio" name="kind" value={k} checked={kind === k} onChange={() => chooseKind(k)} className="sr-only" />
                     {kind === k ? <span aria-hidden="true">●</span> : <span aria-hidden="true">○</span>}
                     {k === 'tractor' ? 'Tractor' : 'Trailer'}
