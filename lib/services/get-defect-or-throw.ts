@@ -2,7 +2,6 @@ import 'server-only';
 import { getDb } from '@/lib/db';
 import { findDefectDetail, listDefectPhotos } from '@/lib/db/defects';
 import { AppError } from '@/lib/errors';
-import { presignGet } from '@/lib/storage';
 
 /** One defect of the caller's fleet with its finding and photos; another fleet's is not found. */
 export async function getDefectOrThrow({ fleetId, id }: { fleetId: string; id: string }) {
@@ -45,7 +44,7 @@ export async function getDefectOrThrow({ fleetId, id }: { fleetId: string; id: s
     },
     repair: { work: d.repairWork, parts: d.repairParts, notes: d.repairNotes },
     certification: d.certifiedAt ? { name: d.certifiedName, at: d.certifiedAt.toISOString(), text: d.certificationText } : null,
-    photos: await Promise.all(photos.map(async (p) => ({ id: p.id, contentType: p.contentType, url: await presignGet(p.objectKey, 900) }))),
+    photos: photos.map((p) => ({ id: p.id, contentType: p.contentType, url: `/api/attachments/${p.id}` })),
   };
 }
 

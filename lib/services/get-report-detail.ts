@@ -6,7 +6,6 @@ import { findFleetMinimums, findReportRecord } from '@/lib/db/reports';
 import { AppError } from '@/lib/errors';
 import { serializeReport, toCanonicalSteps } from '@/lib/reports/canonical-report';
 import { checkInspectionDuration } from '@/lib/rules';
-import { presignGet } from '@/lib/storage';
 import { listExpectedZones, zoneName } from './walk-zones';
 
 /** Low-confidence threshold: a match under this score should have been confirmed by the driver. */
@@ -56,16 +55,14 @@ export async function getReportDetail({ fleetId, id, withPhotoUrls = true }: { f
   const minimumMinutes = detail.kind === 'post_trip' ? fleet.minPosttripMinutes : fleet.minPretripMinutes;
   const duration = detail.finishedAt ? checkInspectionDuration(detail.startedAt, detail.finishedAt, { minimumPretripMinutes: minimumMinutes }) : null;
 
-  const photos = await Promise.all(
-    record.attachments.map(async (a) => ({
+  const photos = record.attachments.map((a) => ({
       id: a.id,
       stepId: a.stepId,
       defectId: a.defectId,
       contentType: a.contentType,
-      url: withPhotoUrls ? await presignGet(a.objectKey, 900) : null,
+      url: withPhotoUrls ? `/api/attachments/${a.id}` : null,
       objectKey: a.objectKey,
-    })),
-  );
+    }));
 
   const steps = detail.steps.map((s) => ({
     ...s,

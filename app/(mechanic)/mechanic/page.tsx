@@ -1,11 +1,18 @@
 import { RoleHome } from '@/components/app-shell/role-home';
 import { requireRole } from '@/lib/auth/guards';
+import { listDefectsQuerySchema } from '@/lib/schemas/defects';
+import { listDefectQueue } from '@/lib/services/list-defect-queue';
+import { DefectQueue } from './defect-queue';
 
-export default async function MechanicHomePage() {
-  const user = await requireRole('mechanic');
+export default async function MechanicHomePage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  const user = await requireRole('mechanic', 'supervisor');
+  const sp = await searchParams;
+  const query = listDefectsQuerySchema.safeParse({ status: sp.status, severity: sp.severity, unitId: sp.unit });
+  const q = query.success ? query.data : listDefectsQuerySchema.parse({});
+  const queue = await listDefectQueue({ fleetId: user.fleetId, query: q });
   return (
     <RoleHome user={user} title="Open defects">
-      <p className="text-xl">Defects waiting for a repair and your certification, by unit and severity.</p>
+      <DefectQueue groups={queue.groups} status={q.status} filteredUnit={q.unitId ?? null} />
     </RoleHome>
   );
 }

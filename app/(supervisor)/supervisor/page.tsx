@@ -1,11 +1,18 @@
 import { RoleHome } from '@/components/app-shell/role-home';
 import { requireRole } from '@/lib/auth/guards';
+import { getSupervisorBoard } from '@/lib/services/get-supervisor-board';
+import { AttentionList } from './attention-list';
+import { UnitsBoard } from './units-board';
 
 export default async function SupervisorHomePage() {
   const user = await requireRole('supervisor');
+  const board = await getSupervisorBoard({ fleetId: user.fleetId });
   return (
     <RoleHome user={user} title="Fleet at a glance">
-      <p className="text-xl">Units in and out of service, and the inspections that need a look.</p>
+      <div className="grid gap-6 xl:grid-cols-[minmax(0,5fr)_minmax(0,6fr)]">
+        <UnitsBoard units={board.units} timezone={board.fleet.timezone} />
+        <AttentionList rows={board.attention} days={board.days} fleet={board.fleet} />
+      </div>
     </RoleHome>
   );
 }

@@ -1,0 +1,180 @@
+'use client';
+
+import { useQuery } from '@tanstack/react-query';
+import Link from 'next/link';
+import { useState } from 'react';
+import { formatDateTime, kindLabel, zoneLabel } from '@/components/office/format';
+import { useHydrated } from '@/components/office/use-hydrated';
+import { SafetyCautions } from '@/components/office/safety-cautions';
+import { PassMark, SeverityMark, UnitStatusBadge } from '@/components/office/severity-mark';
+import { ApiError } from '@/lib/http/fetch-json';
+import { defectDetailOptions, useCertifyRepairMutation } from '@/lib/queries/defects';
+import { repairCertificationStatement } from '@/lib/schemas/defects';
+
+const input = 'w-full rounded-md border-2 border-edge/60 bg-ground p-2 text-base';
+
+export function DefectClient({ id, userName, canCertify }: { id: string; userName: string; canCertify: boolean }) {
+  const { data: d } = useQuery(defectDetailOptions(id));
+  const certify = useCertifyRepairMutation(id);
+  const [outcome, setOutcome] = useState<'repaired' | 'no_repair_needed'>('repaired');
+  const [work, setWork] = useState('');
+  const [parts, setParts] = useState('');
+  const [notes, setNotes] = useState('');
+  const [name, setName] = useState(userName);
+  const [confirm, setConfirm] = useState(false);
+  const live = useHydrated();
+  if (!d) return <p>Loading the defect…</p>;
+  const fields: Record<string, string[]> = certify.error instanceof ApiError ? (certify.error.fields ?? {}) : {};
+  const fieldError = (k: string) =>
+    fields[k] ? (
+      <span className="block text-sm font-bold text-major" role="alert">
+        {fields[k]!.join(' ')}
+      </span>
+    ) : null;
+
+  return (
+    <article className="space-y-5">
+      <Link href="/mechanic" className="text-base font-bold underline-offset-2 hover:underline">
+        ← Open defects
+      </Link>
+      <header className={`space-y-2 rounded-lg border-slab bg-panel p-4 ${d.severity === 'major' ? 'border-major border-l-[12px]' : 'border-edge'}`}>
+        <SeverityMark severity={d.severity} />
+        <h1 className="text-3xl font-extrabold">{d.description}</h1>
+        <p className="flex flex-wrap items-center gap-3 text-lg">
+          <span className="font-bold">
+            Unit {d.unitNumber} <span className="font-normal text-muted">({d.unitKind}{d.unitMake ? `, ${d.unitMake} ${d.unitModel ?? ''}` : ''})</span>
+          </span>
+          <UnitStatusBadge status={d.unitStatus} />
+        </p>
+        <dl className="grid grid-cols-2 gap-3 text-base md:grid-cols-4">
+          <div>
+            <dt className="text-sm font-bold uppercase text-muted">Found</dt>
+            <dd>
+              {kindLabel(d.inspectionKind)}, {formatDateTime(d.inspectedAt)}
+            </dd>
+          </div>
+          <div>
+            <dt className="text-sm font-bold uppercase text-muted">Driver</dt>
+            <dd>{d.driverName}</dd>
+          </div>
+          <div>
+            <dt className="text-sm font-bold uppercase text-muted">Where</dt>
+            <dd className="capitalize">
+              {zoneLabel(d.zone)} · {d.component}, {d.condition}
+              {d.position ? `, ${d.position}` : ''}
+            </dd>
+          </div>
+          <div>
+            <dt className="text-sm font-bold uppercase text-muted">Said</dt>
+            <dd>{d.finding.heard ? <q>{d.finding.heard}</q> : 'tapped'}</dd>
+          </div>
+          {d.finding.measurementKind && (
+            <div className="col-span-2">
+              <dt className="text-sm font-bold uppercase text-muted">Measured</dt>
+              <dd>
+                {d.finding.value} {d.finding.unit} ({d.finding.measurementKind.replace(/_/g, ' ')}); limit {d.finding.limitText ?? '—'}; {d.finding.source ?? 'no source'}
+              </dd>
+            </div>
+          )}
+        </dl>
+        <p className="text-sm">
+          <Link href={`/supervisor/reports/${d.inspectionId}`} className="underline">
+            The whole report
+          </Link>{' '}
+          (supervisors)
+        </p>
+        {d.photos.length > 0 && (
+          <div className="flex flex-wrap gap-2">
+            {d.photos.map((p) => (
+              <a key={p.id} href={p.url} target="_blank" rel="noreferrer">
+                {/* eslint-disable-next-line @next/next/no-img-element */}
+                <img src={`${p.url}?size=thumb`} alt={`Photo of ${d.component}`} className="h-28 w-36 rounded border-2 border-edge object-cover" />
+              </a>
+            ))}
+          </div>
+        )}
+      </header>
+
+      {d.certification ? (
+        <section aria-labelledby="cert-heading" className="rounded-lg border-slab border-pass bg-panel p-4" data-testid="certification">
+          <h2 id="cert-heading" className="text-xl font-extrabold">
+            <PassMark label={d.status === 'repaired' ? 'Repaired and certified' : 'No repair needed, certified'} />
+          </h2>
+          <p className="text-lg">
+            {d.certification.name}, {formatDateTime(d.certification.at)}
+          </p>
+          {d.repair.work && <p>Work: {d.repair.work}</p>}
+          {d.repair.parts && <p>Parts: {d.repair.parts}</p>}
+          {d.repair.notes && <p>Notes: {d.repair.notes}</p>}
+          <p className="mt-2 italic text-muted">&ldquo;{d.certification.text}&rdquo;</p>
+        </section>
+      ) : (
+        <div className="grid gap-5 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+          <form
+            aria-label="Repair and certification"
+            className="space-y-4 rounded-lg border-slab border-edge bg-panel p-4"
+            onSubmit={(e) => {
+              e.preventDefault();
+              certify.mutate({ outcome, work, parts, notes, certifiedName: name, confirm: confirm as true });
+            }}
+          >
+            <h2 className="text-xl font-extrabold">Repair</h2>
+            <label className="block font-bold">
+              Work done
+              <textarea className={input} rows={3} value={work} onChange={(e) => setWork(e.target.value)} placeholder="What you did, or what you checked" />
+              {fieldError('work')}
+            </label>
+            <label className="block font-bold">
+              Parts
+              <input className={input} value={parts} onChange={(e) => setParts(e.target.value)} placeholder="Part numbers, or none" />
+            </label>
+            <label className="block font-bold">
+              Notes
+              <textarea className={input} rows={2} value={notes} onChange={(e) => setNotes(e.target.value)} />
+              {fieldError('notes')}
+            </label>
+            <fieldset className="space-y-2">
+              <legend className="text-xl font-extrabold">Certification</legend>
+              {(['repaired', 'no_repair_needed'] as const).map((o) => (
+                <label key={o} className={`flex min-h-target cursor-pointer items-center gap-3 rounded-lg border-slab px-4 text-lg font-bold ${outcome === o ? 'border-edge bg-ground' : 'border-edge/30'}`}>
+                  <input type="radio" name="outcome" value={o} checked={outcome === o} onChange={() => setOutcome(o)} className="h-6 w-6" />
+                  {o === 'repaired' ? 'Repaired' : 'No repair needed'}
+                </label>
+              ))}
+              <label className="block font-bold">
+                Your full name (signature)
+                <input className={input} value={name} onChange={(e) => setName(e.target.value)} autoComplete="name" />
+                {fieldError('certifiedName')}
+              </label>
+              <label className="flex items-start gap-3 text-base">
+                <input type="checkbox" checked={confirm} onChange={(e) => setConfirm(e.target.checked)} className="mt-1 h-6 w-6" />
+                <span>{repairCertificationStatement[outcome]} The time of signing is recorded.</span>
+              </label>
+              {fieldError('confirm')}
+            </fieldset>
+            {certify.error && !Object.keys(fields).length && (
+              <p role="alert" className="font-bold text-major">
+                {certify.error.message}
+              </p>
+            )}
+            {canCertify ? (
+              <button type="submit" disabled={!live || certify.isPending} className="w-full min-h-target rounded-lg border-slab border-edge bg-vest px-5 text-xl font-extrabold text-on-vest disabled:opacity-50">
+                {certify.isPending ? 'Signing…' : 'Sign the certification'}
+              </button>
+            ) : (
+              <p className="text-muted">Only a mechanic signs a repair certification.</p>
+            )}
+            {certify.data && (
+              <p role="status" className="rounded border-2 border-pass p-2 text-lg font-bold" data-testid="certify-result">
+                Certified. Unit {certify.data.unit.unitNumber} is {certify.data.unit.status === 'in_service' ? 'in service' : 'still OUT OF SERVICE'}
+                {certify.data.openMajor > 0 ? ` (${certify.data.openMajor} major defect${certify.data.openMajor > 1 ? 's' : ''} still open)` : ''}
+                {certify.data.unit.changed && certify.data.mailed ? '; maintenance and the supervisor were mailed.' : '.'}
+              </p>
+            )}
+          </form>
+          <SafetyCautions />
+        </div>
+      )}
+    </article>
+  );
+}
