@@ -510,10 +510,10 @@ function readCounts(file, kind) {
   }
 }
 
-async function runE2e(env, reportFile) {
+async function runE2e(env, reportFile, extraArgs = []) {
   const chromium = ensureChromium();
   fs.rmSync(reportFile, { force: true });
-  const status = run(process.execPath, ['node_modules/@playwright/test/cli.js', 'test'], {
+  const status = run(process.execPath, ['node_modules/@playwright/test/cli.js', 'test', ...extraArgs], {
     env: { ...process.env, ...env, CHROMIUM_PATH: chromium, PLAYWRIGHT_JSON_OUTPUT_NAME: reportFile },
   });
   return status;
@@ -569,12 +569,12 @@ async function cmdTest() {
   process.exit(failed === 0 && stages.every((s) => s.ok) ? 0 : 1);
 }
 
-async function cmdE2e() {
+async function cmdE2e(args) {
   await holdTestLock();
   const p = profiles.test;
   const env = await prepare(p);
   if (ensureBuild(env) !== 0) fail('next build failed');
-  process.exit(await runE2e(env, path.join(dataDir, 'reports', 'playwright.json')));
+  process.exit(await runE2e(env, path.join(dataDir, 'reports', 'playwright.json'), args));
 }
 
 const [command, ...rest] = process.argv.slice(2);

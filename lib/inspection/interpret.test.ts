@@ -21,6 +21,10 @@ describe('decideFromMatch', () => {
     expect(decide('steer tread five thirty seconds', 'front')).toEqual({ do: 'reading', itemId: 'front.steer_tread', value: 5 });
     expect(decide('one hundred and five psi', 'front')).toEqual({ do: 'reading', itemId: 'front.steer_pressure', value: 105 });
   });
+  it('a leakage reading goes to the applied or released test as said', () => {
+    expect(decide('lost five psi in a minute with the brakes applied', 'air_brake_tests')).toMatchObject({ do: 'reading', itemId: 'air.applied_leak', value: 5 });
+    expect(decide('brakes released lost two psi', 'air_brake_tests')).toMatchObject({ do: 'reading', itemId: 'air.static_leak', value: 2 });
+  });
   it('a reading with no item of its kind in the zone is said so', () => {
     expect(decide('ninety five psi', 'engine_bay')).toEqual({ do: 'no_reading_here', measure: 'tire_pressure' });
   });

@@ -75,7 +75,11 @@ export function decideFromMatch(result: MatchResult, zone: WalkZone, answers: Re
     case 'measurement': {
       if (result.value === null || !result.measure) return { do: 'not_understood' };
       const candidates = zone.items.filter((i) => i.measure === result.measure || (result.measure === 'ground_clearance' && i.measure === 'ground_clearance'));
-      const byComponent = result.componentId ? candidates.filter((i) => i.component === result.componentId) : candidates;
+      // The two leakage tests differ only in the brakes: "applied" or "released".
+      const words = result.input.toLowerCase();
+      const leakMode = /\b(applied|apply|pressed|held|holding|foot on|on the brake)/.test(words) ? 'applied' : /\b(released|release|static|off the brake|brakes off)/.test(words) ? 'static' : null;
+      const byMode = leakMode ? candidates.filter((i) => i.id.includes(leakMode)) : [];
+      const byComponent = byMode.length ? byMode : result.componentId ? candidates.filter((i) => i.component === result.componentId) : candidates;
       const pool = byComponent.length ? byComponent : candidates;
       const item = pool.find((i) => !answers.has(i.id)) ?? pool[0];
       return item ? { do: 'reading', itemId: item.id, value: result.value } : { do: 'no_reading_here', measure: result.measure };

@@ -407,7 +407,20 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     }
 
     const resolved = tokens.map((t) => resolveToken(stemWord(t)));
-    const allQuantities = readQuantities(tokens, { timeContext: ctx.measure === 'air_buildup' });
+    const measureHits: { kind: MeasureKind; start: number; end: number }[] = [];
+    for (let i = 0; i < tokens.length; i += 1) {
+      for (const p of measurePhrases) {
+        if (p.words.every((w, k) => tokens[i + k] === w)) {
+          measureHits.push({ kind: p.kind, start: i, end: i + p.words.length });
+          i += p.words.length - 1;
+          break;
+        }
+      }
+    }
+    const explicitKind = [...measureHits].sort((a, b) => b.end - b.start - (a.end - a.start))[0]?.kind ?? null;
+    // "one twenty five" is a time (1 min 25 s) only when the reading is a build-up time: a
+    // measurement named in the utterance ("governor cut out …") wins over the step being measured.
+    const allQuantities = readQuantities(tokens, { timeContext: (explicitKind ?? ctx.measure) === 'air_buildup' });
     const posHits = findPositions(tokens, allQuantities);
     // "axle 3" is a position, not a reading
     const quantities = allQuantities.filter((q) => !posHits.some((h) => h.group === 'axle' && q.start >= h.start && q.end <= h.end));
@@ -445,17 +458,6 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
 
     // 2. measurements
     if (quantities.length > 0) {
-      const measureHits: { kind: MeasureKind; start: number; end: number }[] = [];
-      for (let i = 0; i < tokens.length; i += 1) {
-        for (const p of measurePhrases) {
-          if (p.words.every((w, k) => tokens[i + k] === w)) {
-            measureHits.push({ kind: p.kind, start: i, end: i + p.words.length });
-            i += p.words.length - 1;
-            break;
-          }
-        }
-      }
-      const explicitKind = [...measureHits].sort((a, b) => b.end - b.start - (a.end - a.start))[0]?.kind ?? null;
       const withUnit = quantities.find((q) => q.unit !== null);
       const unitKind = (u: Unit | null): MeasureKind | null => {
         if (u === '32nds') return 'tread_depth';

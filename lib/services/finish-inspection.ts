@@ -62,15 +62,20 @@ export async function finishInspection({ fleetId, actorId, actorName, inspection
       const defects = defectSteps.map((s) => {
         const componentId = s.termKey?.split(':')[0] ?? null;
         const unitId = inspection.trailerId && isTrailerItem(s.item, s.zone, componentId) ? inspection.trailerId : inspection.tractorId;
-        const what = s.kind === 'measurement' ? `${s.item ?? s.measurementKind}: ${s.value ?? ''} ${s.unit ?? ''} (limit ${s.limitText ?? 'n/a'})`.replace(/\s+/g, ' ') : [s.component, s.condition, s.position].filter(Boolean).join(', ');
+        const reading = (v: unknown, unit: string | null) => (unit === '32nds' ? `${String(v)}/32 in` : `${String(v)} ${unit ?? ''}`.trim());
+        const check = (s.measurementKind ?? 'reading').replace(/_/g, ' ');
+        const what =
+          s.kind === 'measurement'
+            ? `${s.component ?? ''} ${check}: ${reading(s.value, s.unit)}${s.limitText ? ` (limit ${reading(s.limitText.split(' ')[0], s.limitText.split(' ').slice(1).join(' '))})` : ''}`.trim()
+            : [s.component, s.condition, s.position].filter(Boolean).join(', ');
         return {
           fleetId,
           inspectionId,
           stepId: s.id,
           unitId,
           zone: s.zone,
-          component: s.component ?? s.measurementKind ?? 'reading',
-          condition: s.condition ?? (s.kind === 'measurement' ? 'over the limit' : 'reported'),
+          component: s.component ?? check,
+          condition: s.condition ?? (s.kind === 'measurement' ? `${check} fails the limit` : 'reported'),
           position: s.position,
           severity: s.severity === 'minor' ? ('minor' as const) : ('major' as const),
           description: what,

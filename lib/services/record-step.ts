@@ -86,6 +86,7 @@ async function writeStep({ fleetId, actorId, inspectionId, body }: { fleetId: st
         const item = items.get(body.item);
         if (!item?.measure) throw new AppError('invalid_body', `“${body.item}” is not a checklist item that takes a reading.`, { item: ['not a measured item'] });
         measurementKind = item.measure;
+        component = (await loadVocabulary(trx, inspection.vocabularyVersionId)).components.find((c) => c.id === item.component)?.name ?? item.label;
         value = body.reading.value;
         unit = measureUnit[item.measure];
         const input = buildCheckInput(item, body.reading, await loadCheckContext(trx, inspection));

@@ -468,9 +468,13 @@ function ReviewAndSign(props: Props & { store: ReturnType<typeof createWalkStore
   const unchecked = zones.flatMap((z) => z.items.filter((i) => !answers.has(i.id)).map((i) => ({ zone: z.name, label: i.label })));
   const duration = checkInspectionDuration(inspection.startedAt, phase === 'signed' ? finishedAt : new Date().toISOString(), { minimumPretripMinutes: props.minimumMinutes });
   const majors = defects.filter((d) => d.severity !== 'minor');
-  const sent = phase === 'signed' && queue.pending === 0 && queue.failed.length === 0;
+  const [signedClickAt, setSignedClickAt] = useState<number | null>(null);
+  // Locked on the server: known from the page, or the outbox emptied after the signature went in.
+  const sent =
+    inspection.status === 'submitted' || (phase === 'signed' && signedClickAt !== null && (queue.lastSentAt ?? 0) >= signedClickAt && queue.pending === 0 && queue.failed.length === 0);
 
   const sign = async () => {
+    setSignedClickAt(Date.now());
     await enqueueRequest({ label: 'signature', url: `/api/inspections/${inspection.id}/finish`, method: 'POST', json: { signatureName: name, certify: true, finishedAt: new Date().toISOString() } });
     store.getState().setPhase('signed', name);
   };
