@@ -1,16 +1,22 @@
 import 'server-only';
 import type { Session } from 'next-auth';
 import { redirect } from 'next/navigation';
+import { findActiveUser } from '@/lib/db/users';
 import { auth } from './index';
-import type { Role } from './roles';
+import { isRole, type Role } from './roles';
 
 export type SessionUser = Session['user'];
 
-/** For pages: the signed-in user, or a redirect to the sign-in page. */
+/**
+ * For pages: the signed-in user, or a redirect to the sign-in page. The account is read again,
+ * so a deactivated user is out at once and a changed role shows on the next page.
+ */
 export async function requireUser(): Promise<SessionUser> {
   const session = await auth();
   if (!session) redirect('/sign-in');
-  return session.user;
+  const current = await findActiveUser(session.user.id);
+  if (!current) redirect('/sign-in');
+  return { ...session.user, name: current.name, email: current.email, fleetId: current.fleetId, roles: current.roles.filter(isRole) };
 }
 
 /** For pages: the signed-in user holding one of these roles; others go to a plain refusal page. */

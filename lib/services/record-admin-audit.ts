@@ -1,5 +1,6 @@
 import 'server-only';
 import type { DB } from '@/lib/db';
+import { recordAudit } from './record-audit';
 
 export type AdminAuditEntry = {
   fleetId: string;
@@ -12,10 +13,7 @@ export type AdminAuditEntry = {
 
 /** Append one row to the audit log, inside the caller's transaction. */
 export async function recordAdminAudit(db: DB, e: AdminAuditEntry): Promise<void> {
-  await db
-    .insertInto('auditLog')
-    .values({ fleetId: e.fleetId, actorId: e.actorId, action: e.action, entity: e.entity, entityId: e.entityId, detail: JSON.stringify(e.detail) })
-    .execute();
+  await recordAudit(db, e);
 }
 
 /** The fields that differ between before and after, as { field: { from, to } }. */

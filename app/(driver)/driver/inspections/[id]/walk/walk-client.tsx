@@ -417,7 +417,7 @@ function ChecklistRow({ item, answer, reading, onOk, onDefect, onReading }: { it
   return (
     <li className="space-y-2 rounded-lg border-slab border-edge bg-panel p-3" data-item={item.id}>
       <div className="flex flex-wrap items-center justify-between gap-2">
-        <p className="text-xl font-bold">{item.label}</p>
+        <p className="text-xl font-bold">{capitalize(item.label)}</p>
         <AnswerMark answer={answer} />
       </div>
       {measure ? (
