@@ -208,6 +208,13 @@ export interface MailOutbox {
   updatedAt: Generated<Timestamp>;
 }
 
+export interface SignInThrottle {
+  failures: Generated<number>;
+  key: string;
+  updatedAt: Generated<Timestamp>;
+  windowStartedAt: Generated<Timestamp>;
+}
+
 export interface Unit {
   axles: Generated<Json>;
   createdAt: Generated<Timestamp>;
@@ -252,6 +259,17 @@ export interface VocabularyTerm {
   versionId: string;
 }
 
+export interface VocabularyTestSet {
+  createdAt: Generated<Timestamp>;
+  fleetId: string;
+  id: Generated<string>;
+  jsonl: string;
+  lineCount: number;
+  name: string;
+  updatedAt: Generated<Timestamp>;
+  updatedBy: string | null;
+}
+
 export interface VocabularyVersion {
   basedOnId: string | null;
   createdAt: Generated<Timestamp>;
@@ -276,8 +294,10 @@ export interface DB {
   inspection: Inspection;
   inspectionStep: InspectionStep;
   mailOutbox: MailOutbox;
+  signInThrottle: SignInThrottle;
   unit: Unit;
   vocabularyPhrase: VocabularyPhrase;
   vocabularyTerm: VocabularyTerm;
+  vocabularyTestSet: VocabularyTestSet;
   vocabularyVersion: VocabularyVersion;
 }
