@@ -301,17 +301,6 @@ export function WalkClient(props: Props) {
             </ul>
           </div>
         )}
-        {(zoneCautions[zone.id] ?? []).length > 0 && (
-          <aside aria-label="Safety" className="rounded-lg border-slab border-edge bg-panel p-3 text-lg">
-            {zoneCautions[zone.id]!.map((c) => (
-              <p key={c.text}>
-                <span aria-hidden="true">⚠ </span>
-                {c.text}
-              </p>
-            ))}
-            <p className="text-base text-muted">{cautionFooter}</p>
-          </aside>
-        )}
         {pending && (
           <PendingMatchPanel
             pending={pending}
@@ -350,6 +339,17 @@ export function WalkClient(props: Props) {
             </div>
             <SlabButton onClick={() => setPickerFor(null)}>Cancel</SlabButton>
           </section>
+        )}
+        {(zoneCautions[zone.id] ?? []).length > 0 && (
+          <aside aria-label="Safety" className="rounded-lg border-slab border-edge bg-panel p-3 text-lg">
+            {zoneCautions[zone.id]!.map((c) => (
+              <p key={c.text}>
+                <span aria-hidden="true">⚠ </span>
+                {c.text}
+              </p>
+            ))}
+            <p className="text-base text-muted">{cautionFooter}</p>
+          </aside>
         )}
         {zone.id === 'rear' && inspection.sealNumber && <SealCheckPanel expected={inspection.sealNumber} lastHeard={lastHeard?.toLowerCase().startsWith('seal') ? lastHeard.slice(4) : null} />}
         <ol className="flex flex-col gap-3" aria-label="Checklist">
