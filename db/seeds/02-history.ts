@@ -217,7 +217,7 @@ export async function seedHistory(db: DB, opts: { fleetSlug: string; days?: numb
                 resolution: voice ? 'auto' : null,
               });
               if (verdict.verdict === 'fail' && verdict.severity) {
-                addDefect(step, zone.id.includes('trailer') && trailer ? trailer.id : tractor.id, verdict.severity, `${item.label}: ${value} ${spokenUnit[String(input.check)] ?? ''} (limit ${verdict.limit ?? 'n/a'} ${verdict.unit})`.replace(' 32nds', '/32 in'));
+                addDefect(step, zone.id.includes('trailer') && trailer ? trailer.id : tractor.id, verdict.severity, `${item.label}: ${value} ${spokenUnit[String(input.check)] ?? ''} (limit ${verdict.limit ?? 'n/a'} ${verdict.unit})`.replaceAll(' 32nds', '/32 in'));
               }
             }
           }
