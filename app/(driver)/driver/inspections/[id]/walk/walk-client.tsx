@@ -365,8 +365,8 @@ export function WalkClient(props: Props) {
             setTyped('');
           }}
         >
-          <input className={inputClass} value={typed} onChange={(e) => setTyped(e.target.value)} placeholder="Type a finding or a reading" aria-label="Type a finding or a reading" />
-          <button type="submit" className="min-h-target min-w-target rounded-lg border-slab border-edge bg-panel px-4 text-xl font-bold">
+          <input className={`${inputClass} min-w-0 flex-1`} value={typed} onChange={(e) => setTyped(e.target.value)} placeholder="Type a finding or a reading" aria-label="Type a finding or a reading" />
+          <button type="submit" className="min-h-target min-w-target shrink-0 rounded-lg border-slab border-edge bg-panel px-4 text-xl font-bold">
             Send
           </button>
         </form>
@@ -433,8 +433,8 @@ function ChecklistRow({ item, answer, reading, onOk, onDefect, onReading }: { it
               setValue('');
             }}
           >
-            <input className={inputClass} inputMode="decimal" value={value} onChange={(e) => setValue(e.target.value)} aria-label={`${item.label} in ${measureUnit[measure]}`} placeholder={measureUnit[measure] === '32nds' ? 'e.g. 6 (/32 in)' : measureUnit[measure]} />
-            <button type="submit" className="min-h-target min-w-target rounded-lg border-slab border-edge bg-vest px-4 text-xl font-bold text-on-vest">
+            <input className={`${inputClass} min-w-0 flex-1`} inputMode="decimal" value={value} onChange={(e) => setValue(e.target.value)} aria-label={`${item.label} in ${measureUnit[measure]}`} placeholder={measureUnit[measure] === '32nds' ? 'e.g. 6 (/32 in)' : measureUnit[measure]} />
+            <button type="submit" className="min-h-target min-w-target shrink-0 rounded-lg border-slab border-edge bg-vest px-4 text-xl font-bold text-on-vest">
               Record
             </button>
           </form>
