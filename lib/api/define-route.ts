@@ -109,8 +109,35 @@ async function readBody(req: Request, maxBytes: number): Promise<unknown> {
   }
 }
 
+const unsafeMethods = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
+
 /**
- * Every route handler goes through here, in order: session (401) → role (403) → params →
+ * Cross-site request forgery: a state-changing request from a browser must come from our own
+ * pages. Browsers say where a request comes from (Sec-Fetch-Site, and Origin on every POST);
+ * a request that says neither is not from a browser and carries no ambient session to abuse.
+ */
+export function checkSameOrigin(req: Request): AppError | null {
+  if (!unsafeMethods.has(req.method.toUpperCase())) return null;
+  const site = req.headers.get('sec-fetch-site');
+  if (site && site !== 'same-origin' && site !== 'none') return new AppError('forbidden', 'This request came from another site and was refused. Use RigCall from its own pages.');
+  const origin = req.headers.get('origin');
+  if (!origin) return null;
+  if (origin === 'null') return new AppError('forbidden', 'This request came from another site and was refused. Use RigCall from its own pages.');
+  const allowed = new Set<string>([new URL(req.url).origin]);
+  const host = req.headers.get('x-forwarded-host') ?? req.headers.get('host');
+  if (host) allowed.add(`${req.headers.get('x-forwarded-proto') ?? new URL(req.url).protocol.replace(':', '')}://${host}`);
+  if (process.env.NEXTAUTH_URL) {
+    try {
+      allowed.add(new URL(process.env.NEXTAUTH_URL).origin);
+    } catch {
+      /* checked by getEnv */
+    }
+  }
+  return allowed.has(origin) ? null : new AppError('forbidden', 'This request came from another site and was refused. Use RigCall from its own pages.');
+}
+
+/**
+ * Every route handler goes through here, in order: same origin for writes (403) → session (401) → role (403) → params →
  * JSON body (400/415) → zod (422) → handler → AppError mapped by its code; anything else 500.
  */
 export function defineRoute<P = undefined, B = undefined, Q = undefined>(
@@ -124,6 +151,8 @@ export function defineRoute<P = undefined, B = undefined, Q = undefined>(
 export function defineRoute<P, B, Q>(opts: Options<P, B, Q>, handler: Handler<P, B, Q, never>) {
   return async (req: Request, ctx: RouteContext): Promise<Response> => {
     try {
+      const crossSite = checkSameOrigin(req);
+      if (crossSite) throw crossSite;
       const user = await readRequestUser(req);
       if (opts.roles !== 'public') {
         if (!user) throw new AppError('unauthenticated', 'Sign in first.');

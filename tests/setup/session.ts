@@ -18,6 +18,8 @@ export function makeRequest(path: string, init: CallInit = {}): Request {
   const headers: Record<string, string> = { ...init.headers };
   if (init.cookie) headers.cookie = init.cookie;
   if (init.json !== undefined) headers['content-type'] = 'application/json';
+  // What a browser sends with a write from our own pages (define-route refuses other origins).
+  if (init.method && init.method !== 'GET' && !Object.keys(headers).some((h) => h.toLowerCase() === 'origin')) headers.origin = 'http://127.0.0.1:3100';
   return new Request(`http://127.0.0.1:3100${path}`, {
     method: init.method ?? 'GET',
     headers,
