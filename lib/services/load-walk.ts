@@ -4,6 +4,7 @@ import type { DB } from '@/lib/db';
 import { findFleetSettings } from '@/lib/db/fleets';
 import { listInspectionSteps } from '@/lib/db/inspections';
 import { findFleetUnit } from '@/lib/db/units';
+import { findVocabularyVersion, getDefaultGrammar } from '@/lib/db/vocabulary';
 import type { WalkStep } from '@/lib/inspection/store';
 import { listWalkZones } from '@/lib/matcher';
 import type { Zones } from '@/lib/schemas/grammar';
@@ -17,17 +18,19 @@ export async function loadWalkOrNull(db: DB, { fleetId, driverId, inspectionId }
   if (!uuid.safeParse(inspectionId).success) return null;
   const inspection = await db
     .selectFrom('inspection')
-    .select(['id', 'kind', 'status', 'tractorId', 'trailerId', 'startedAt', 'sealNumber', 'ruleProfile', 'driverId'])
+    .select(['id', 'kind', 'status', 'tractorId', 'trailerId', 'startedAt', 'sealNumber', 'ruleProfile', 'driverId', 'vocabularyVersionId'])
     .where('fleetId', '=', fleetId)
     .where('id', '=', inspectionId)
     .executeTakeFirst();
   if (!inspection || inspection.driverId !== driverId) return null;
-  const [tractor, trailer, fleet, context, rows] = await Promise.all([
+  const [tractor, trailer, fleet, context, rows, version] = await Promise.all([
     findFleetUnit(db, { fleetId, id: inspection.tractorId }),
     inspection.trailerId ? findFleetUnit(db, { fleetId, id: inspection.trailerId }) : Promise.resolve(undefined),
     findFleetSettings(db, { fleetId }),
     loadCheckContext(db, { fleetId, tractorId: inspection.tractorId, trailerId: inspection.trailerId }),
     listInspectionSteps(db, { inspectionId }),
+    // The grammar of the version the inspection started with (read as text: see findVocabularyVersion).
+    inspection.vocabularyVersionId ? findVocabularyVersion(db, { fleetId, id: inspection.vocabularyVersionId }) : Promise.resolve(undefined),
   ]);
   const zones = listWalkZones(zonesGrammar as Zones, inspection.trailerId ? 'tractor_trailer' : 'bobtail').filter(
     // Air-brake tests belong to the pre-trip; a post-trip walk ends in the cab.
@@ -63,6 +66,7 @@ export async function loadWalkOrNull(db: DB, { fleetId, driverId, inspectionId }
     zones,
     context,
     serverSteps,
+    grammar: version?.grammar ?? getDefaultGrammar(),
   };
 }
 

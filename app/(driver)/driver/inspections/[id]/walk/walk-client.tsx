@@ -13,9 +13,9 @@ import { createWalkStore, toStepBody, type WalkStep } from '@/lib/inspection/sto
 import { useFlushQueue } from '@/lib/inspection/use-flush-queue';
 import { findUndoableStep, listDefectSteps, listVisitedZones, mapItemAnswers } from '@/lib/inspection/walk-progress';
 import { cautionFooter, zoneCautions } from '@/lib/inspection/zone-cautions';
-import { matchAlternatives, type WalkZone } from '@/lib/matcher';
+import { createMatcher, type WalkZone } from '@/lib/matcher';
 import { checkInspectionDuration, evaluateMeasurement } from '@/lib/rules';
-import type { Vocabulary, ZoneItem } from '@/lib/schemas/grammar';
+import type { Grammar, Vocabulary, ZoneItem } from '@/lib/schemas/grammar';
 import { AirTimer, AnswerMark, capitalize, formatReading, HoldToTalk, inputClass, PendingMatchPanel, ReadingResult, SealCheckPanel, SeverityMark, WalkStatusBar } from './walk-parts';
 
 type Props = {
@@ -26,6 +26,8 @@ type Props = {
   zones: WalkZone[];
   context: CheckContext;
   serverSteps: WalkStep[];
+  /** The grammar of the vocabulary version this inspection uses. */
+  grammar: Grammar;
   driverName: string;
 };
 
@@ -55,6 +57,7 @@ export function WalkClient(props: Props) {
   const listener = useRef<Listener | null>(null);
   const photoInput = useRef<HTMLInputElement>(null);
   const zone = zones[zoneIndex]!;
+  const matcher = useMemo(() => createMatcher(props.grammar), [props.grammar]);
 
   const answers = useMemo(() => mapItemAnswers(zones, steps), [zones, steps]);
   const visited = useMemo(() => listVisitedZones(steps), [steps]);
@@ -169,7 +172,7 @@ export function WalkClient(props: Props) {
       if (!heard.trim()) return;
       setLastHeard(heard);
       const focus = findFocusItem(zone, answers);
-      const result = matchAlternatives(alternatives, { zone: zone.id, component: focus?.component ?? null, measure: focus?.measure ?? null, profile: profileKey(inspection.ruleProfile) });
+      const result = matcher.matchAlternatives(alternatives, { zone: zone.id, component: focus?.component ?? null, measure: focus?.measure ?? null, profile: profileKey(inspection.ruleProfile) });
       const waiting = store.getState().pending;
       if (waiting && result.kind === 'command' && (result.command === 'yes' || result.command === 'no')) {
         if (result.command === 'yes') {
@@ -229,7 +232,7 @@ export function WalkClient(props: Props) {
           return say('Not understood.');
       }
     },
-    [answers, goTo, inspection.ruleProfile, logFinding, logReading, markZoneGood, record, say, store, takeBack, zone, zoneIndex],
+    [answers, goTo, inspection.ruleProfile, logFinding, logReading, markZoneGood, matcher, record, say, store, takeBack, zone, zoneIndex],
   );
 
   // The recogniser calls back into the newest handler.
