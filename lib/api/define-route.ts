@@ -66,6 +66,26 @@ export async function readRequestUser(req: Request): Promise<RouteUser | null> {
   return { ...user, roles: user.roles.filter(isRole) };
 }
 
+/**
+ * Fields a JSON body carries that its schema does not know. zod would drop them silently; we
+ * refuse them instead, so that a client never believes it set something that was not stored.
+ */
+function unknownFields(schema: ZodType, value: unknown): string[] {
+  if (!(schema instanceof z.ZodObject) || schema._zod.def.catchall) return [];
+  if (typeof value !== 'object' || value === null || Array.isArray(value)) return [];
+  const known = new Set(Object.keys(schema.shape));
+  return Object.keys(value).filter((k) => !known.has(k));
+}
+
+function parseBodyOrThrow<T>(schema: ZodType<T>, value: unknown): T {
+  const extra = unknownFields(schema, value);
+  if (extra.length) {
+    const shown = extra.slice(0, 5).map((k) => `“${k.slice(0, 40)}”`).join(', ');
+    throw new AppError('invalid_body', `Request: ${extra.length === 1 ? 'this field is' : 'these fields are'} not part of this request: ${shown}.`, Object.fromEntries(extra.slice(0, 20).map((k) => [k.slice(0, 40), ['is not a field of this request']])));
+  }
+  return parseOrThrow(schema, value, 'Request');
+}
+
 async function readBytes(req: Request, maxBytes: number): Promise<Uint8Array> {
   const declared = Number(req.headers.get('content-length') ?? 0);
   const limit = `${Math.round(maxBytes / (1024 * 1024))} MB`;
@@ -149,7 +169,7 @@ export function defineRoute<P = undefined, B = undefined, Q = undefined>(
   handler: Handler<P, B, Q, RouteUser>,
 ): (req: Request, ctx: RouteContext) => Promise<Response>;
 export function defineRoute<P, B, Q>(opts: Options<P, B, Q>, handler: Handler<P, B, Q, never>) {
-  return async (req: Request, ctx: RouteContext): Promise<Response> => {
+  const route = async (req: Request, ctx: RouteContext): Promise<Response> => {
     try {
       const crossSite = checkSameOrigin(req);
       if (crossSite) throw crossSite;
@@ -166,7 +186,7 @@ export function defineRoute<P, B, Q>(opts: Options<P, B, Q>, handler: Handler<P,
         ? parseOrThrow(opts.query, Object.fromEntries(new URL(req.url).searchParams), 'Query')
         : (undefined as Q);
       const bytes = opts.rawBody ? await readBytes(req, opts.rawBody.maxBytes) : null;
-      const body = opts.body && !opts.rawBody ? parseOrThrow(opts.body, await readBody(req, opts.maxBodyBytes ?? 256 * 1024), 'Request') : (undefined as B);
+      const body = opts.body && !opts.rawBody ? parseBodyOrThrow(opts.body, await readBody(req, opts.maxBodyBytes ?? 256 * 1024)) : (undefined as B);
       return await handler({ req, user: user as never, params, body, query, bytes });
     } catch (err) {
       if (err instanceof AppError) return errorResponse(err);
@@ -174,4 +194,14 @@ export function defineRoute<P, B, Q>(opts: Options<P, B, Q>, handler: Handler<P,
       return errorResponse(new AppError('internal', 'Something went wrong on our side. Try again in a moment.'));
     }
   };
+  // What the route takes, for tests that walk every route (bad-input fuzzing).
+  Object.defineProperty(route, 'routeSpec', { value: { roles: opts.roles, body: !!opts.body && !opts.rawBody, rawBody: !!opts.rawBody, params: !!opts.params, query: !!opts.query } satisfies RouteSpec });
+  return route;
+}
+
+export type RouteSpec = { roles: readonly Role[] | 'public'; body: boolean; rawBody: boolean; params: boolean; query: boolean };
+
+/** The spec a route handler was defined with, or null for a handler not made by defineRoute. */
+export function readRouteSpec(fn: unknown): RouteSpec | null {
+  return ((fn as { routeSpec?: RouteSpec } | null)?.routeSpec ?? null);
 }
