@@ -20,6 +20,18 @@ export function toReportSearch(params: ReportListParams): string {
   return sp.toString();
 }
 
+const listKeys = ['from', 'to', 'driverId', 'unitId', 'kind', 'hasDefects', 'short', 'status', 'page', 'pageSize', 'sort', 'dir'] as const;
+
+/** The reports table's state is the URL's query string: shareable, and the back button works. */
+export function paramsFromSearch(sp: URLSearchParams): ReportListParams {
+  const p: ReportListParams = {};
+  for (const k of listKeys) {
+    const v = sp.get(k);
+    if (v) p[k] = v;
+  }
+  return p;
+}
+
 export const reportListOptions = (params: ReportListParams) =>
   queryOptions({
     queryKey: reportKeys.list(params),

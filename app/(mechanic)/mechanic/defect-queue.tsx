@@ -7,13 +7,31 @@ import type { DefectQueueGroup } from '@/lib/services/list-defect-queue';
 function Row({ d }: { d: DefectQueueRow }) {
   return (
     <li>
-      <Link href={`/mechanic/defects/${d.id}`} className={`flex flex-wrap items-baseline gap-x-3 gap-y-1 px-4 py-2.5 hover:bg-ground ${d.severity === 'major' ? 'border-l-8 border-major' : 'border-l-8 border-transparent'}`} data-testid="queue-defect">
-        <span className="w-40 shrink-0">{d.severity === 'major' ? <MajorMark compact /> : <MinorMark />}</span>
-        <span className="font-bold">{d.description}</span>
-        <span className="text-sm capitalize text-muted">{zoneLabel(d.zone)}</span>
-        <span className="ml-auto text-sm text-muted">
-          {d.status === 'open' ? `reported ${formatDateTime(d.reportedAt)} by ${d.driverName}` : `${d.status === 'repaired' ? 'repaired' : 'no repair needed'}: ${d.certifiedName}, ${formatDateTime(d.certifiedAt)}`}
-          {d.photoCount > 0 && ` · ${d.photoCount} photo${d.photoCount > 1 ? 's' : ''}`}
+      <Link
+        href={`/mechanic/defects/${d.id}`}
+        className={`grid gap-x-4 gap-y-1 px-4 py-2.5 hover:bg-ground md:grid-cols-[8.5rem_minmax(0,1fr)_15rem] ${d.severity === 'major' ? 'shadow-[inset_8px_0_0_rgb(var(--major))]' : ''}`}
+        data-testid="queue-defect"
+      >
+        <span className="pl-1">{d.severity === 'major' ? <MajorMark compact /> : <MinorMark />}</span>
+        <span>
+          <span className="font-bold">{d.description}</span>
+          <span className="block text-sm capitalize text-muted">
+            {zoneLabel(d.zone)} · {d.component}
+          </span>
+        </span>
+        <span className="text-sm text-muted md:text-right">
+          {d.status === 'open' ? (
+            <>
+              reported {formatDateTime(d.reportedAt)}
+              <span className="block">by {d.driverName}</span>
+            </>
+          ) : (
+            <>
+              {d.status === 'repaired' ? 'repaired' : 'no repair needed'}: {d.certifiedName}
+              <span className="block">{formatDateTime(d.certifiedAt)}</span>
+            </>
+          )}
+          {d.photoCount > 0 && <span className="block">{d.photoCount} photo{d.photoCount > 1 ? 's' : ''}</span>}
         </span>
       </Link>
     </li>

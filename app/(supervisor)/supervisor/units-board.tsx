@@ -7,13 +7,14 @@ export function UnitsBoard({ units, timezone }: { units: SupervisorBoard['units'
   const out = units.filter((u) => u.status === 'out_of_service').length;
   return (
     <section aria-labelledby="units-heading" className="rounded-lg border-slab border-edge bg-panel">
-      <header className="flex items-baseline justify-between gap-3 border-b-2 border-edge/20 px-4 py-3">
+      <header className="flex flex-wrap items-baseline justify-between gap-3 border-b-2 border-edge/20 px-4 py-3">
         <h2 id="units-heading" className="text-xl font-extrabold">Units</h2>
         <p className="text-base text-muted">
           <span className="font-bold text-ink">{units.length - out}</span> in service · <span className="font-bold text-major">{out}</span> out of service
         </p>
       </header>
-      <table className="w-full text-base">
+      <div className="overflow-x-auto">
+      <table className="w-full min-w-[34rem] text-base">
         <thead className="text-left text-sm uppercase tracking-wide text-muted">
           <tr>
             <th className="px-4 py-2">Unit</th>
@@ -35,7 +36,7 @@ export function UnitsBoard({ units, timezone }: { units: SupervisorBoard['units'
                 {u.last ? (
                   <Link href={`/supervisor/reports/${u.last.id}`} className="underline-offset-2 hover:underline">
                     <span className="font-bold">{formatAge(u.last.ageHours)}</span>{' '}
-                    <span className="text-sm text-muted">
+                    <span className="block text-sm text-muted">
                       {kindLabel(u.last.kind)}, {u.last.driverName}, {formatDateTime(u.last.startedAt, timezone)}
                     </span>
                   </Link>
@@ -58,6 +59,7 @@ export function UnitsBoard({ units, timezone }: { units: SupervisorBoard['units'
           ))}
         </tbody>
       </table>
+      </div>
     </section>
   );
 }

@@ -7,7 +7,7 @@ import { serializeReport, toCanonicalSteps } from '../../../lib/reports/canonica
 
 export const openDb = (): DB => createDb(databaseUrlFromEnv(), 2);
 
-export type Target = { reportId: string; unitId: string; unitNumber: string; heard: string | null; openMajorIds: string[] };
+export type Target = { reportId: string; unitId: string; unitNumber: string; heard: string | null; openMajorIds: string[]; openMinorIds: string[] };
 
 /**
  * A report of the demo fleet whose major defect is still open and that is the last report of that
@@ -16,26 +16,28 @@ export type Target = { reportId: string; unitId: string; unitNumber: string; hea
  */
 export async function findTarget(db: DB): Promise<Target> {
   const fleet = await db.selectFrom('fleet').select(['id']).where('slug', '=', 'northbank').executeTakeFirstOrThrow();
-  const found = await sql<{ report_id: string; unit_id: string }>`
+  const found = await sql<{ reportId: string; unitId: string }>`
     SELECT i.id AS report_id, df.unit_id
     FROM defect df JOIN inspection i ON i.id = df.inspection_id
     WHERE df.fleet_id = ${fleet.id} AND df.status = 'open' AND df.severity = 'major' AND i.status = 'submitted'
       AND i.id = (SELECT i2.id FROM inspection i2 WHERE i2.status = 'submitted' AND (i2.tractor_id = df.unit_id OR i2.trailer_id = df.unit_id) ORDER BY i2.finished_at DESC LIMIT 1)
       AND NOT EXISTS (SELECT 1 FROM acknowledgement a WHERE a.reviewed_inspection_id = i.id AND a.unit_id = df.unit_id)
     ORDER BY i.started_at DESC LIMIT 1`.execute(db);
+  // Raw rows come back camelCased by the client's CamelCasePlugin.
   let hit = found.rows[0];
   if (!hit) hit = await writeReportWithMajor(db, fleet.id);
-  const unit = await db.selectFrom('unit').select(['unitNumber']).where('id', '=', hit.unit_id).executeTakeFirstOrThrow();
-  const openMajor = await db.selectFrom('defect').select(['id']).where('unitId', '=', hit.unit_id).where('status', '=', 'open').where('severity', '=', 'major').execute();
+  const unit = await db.selectFrom('unit').select(['unitNumber']).where('id', '=', hit.unitId).executeTakeFirstOrThrow();
+  const openMajor = await db.selectFrom('defect').select(['id']).where('unitId', '=', hit.unitId).where('status', '=', 'open').where('severity', '=', 'major').execute();
+  const openMinor = await db.selectFrom('defect').select(['id']).where('inspectionId', '=', hit.reportId).where('unitId', '=', hit.unitId).where('status', '=', 'open').where('severity', '=', 'minor').execute();
   const step = await db
     .selectFrom('defect as df')
     .innerJoin('inspectionStep as s', 's.id', 'df.stepId')
     .select(['s.heard'])
-    .where('df.inspectionId', '=', hit.report_id)
-    .where('df.unitId', '=', hit.unit_id)
+    .where('df.inspectionId', '=', hit.reportId)
+    .where('df.unitId', '=', hit.unitId)
     .where('df.severity', '=', 'major')
     .executeTakeFirstOrThrow();
-  return { reportId: hit.report_id, unitId: hit.unit_id, unitNumber: unit.unitNumber, heard: step.heard, openMajorIds: openMajor.map((d) => d.id) };
+  return { reportId: hit.reportId, unitId: hit.unitId, unitNumber: unit.unitNumber, heard: step.heard, openMajorIds: openMajor.map((d) => d.id), openMinorIds: openMinor.map((d) => d.id) };
 }
 
 async function writeReportWithMajor(db: DB, fleetId: string) {
@@ -56,5 +58,5 @@ async function writeReportWithMajor(db: DB, fleetId: string) {
   await db.insertInto('inspectionStep').values(steps.map((s) => ({ ...s, fleetId, inspectionId: id, alternatives: '[]', inputMode: 'voice' }))).execute();
   await db.insertInto('defect').values({ fleetId, inspectionId: id, stepId: steps[1]!.id, unitId: tractor.id, zone: 'front', component: 'steer tire', condition: 'bulge', position: 'left', severity: 'major', description: 'steer tire, bulge, left' }).execute();
   await db.updateTable('unit').set({ status: 'out_of_service' }).where('id', '=', tractor.id).execute();
-  return { report_id: id, unit_id: tractor.id };
+  return { reportId: id, unitId: tractor.id };
 }

@@ -59,19 +59,25 @@ test('supervisor reviews, mechanic certifies, unit back in service, mails caught
   await sup.getByRole('button', { name: 'Mail the shop about open defects' }).click();
   await expect(sup.getByRole('status').filter({ hasText: 'Out-of-service notice' })).toContainText(`unit ${target.unitNumber} sent`);
 
-  // Mechanic: every open major defect of the unit, from the queue.
+  // Mechanic: every open major defect of the unit, then the report's minor ones on it, from the queue.
   const mech = await signedIn(browser, demoPerson('mechanic').email);
-  for (const defectId of target.openMajorIds) {
+  for (const defectId of [...target.openMajorIds, ...target.openMinorIds]) {
+    const major = target.openMajorIds.includes(defectId);
     await mech.goto('/mechanic');
     const row = mech.getByTestId(`queue-unit-${target.unitNumber}`).locator(`a[href="/mechanic/defects/${defectId}"]`);
-    await expect(row).toContainText('MAJOR');
+    await expect(row).toContainText(major ? 'MAJOR' : 'Minor');
     await row.click();
     await expect(mech.getByRole('complementary', { name: 'Before you work on the unit' })).toContainText('air suspension');
     const sign = mech.getByRole('button', { name: 'Sign the certification' });
     await expect(sign).toBeEnabled();
-    await mech.getByLabel('Work done').fill('Replaced the tire and torqued the lug nuts to spec.');
-    await mech.getByLabel('Parts').fill('295/75R22.5 steer tire');
-    await mech.getByRole('radio', { name: 'Repaired' }).check();
+    if (major) {
+      await mech.getByLabel('Work done').fill('Replaced the failed part and tested it.');
+      await mech.getByLabel('Parts').fill('OEM replacement from the shop shelf');
+      await mech.getByRole('radio', { name: 'Repaired' }).check();
+    } else {
+      await mech.getByRole('radio', { name: 'No repair needed' }).check();
+      await mech.getByLabel('Notes').fill('Checked: within limits, safe to operate.');
+    }
     await expect(mech.getByLabel('Your full name (signature)')).toHaveValue('Priya Raman');
     await mech.getByRole('checkbox').check();
     await sign.click();
@@ -88,7 +94,7 @@ test('supervisor reviews, mechanic certifies, unit back in service, mails caught
     .poll(async () => (await caught(sup, shop)).filter((m) => m.receivedAt >= startedAt).map((m) => m.subject))
     .toEqual(expect.arrayContaining([`OUT OF SERVICE: unit ${target.unitNumber} (Northbank Freight Co.)`, `Back in service: unit ${target.unitNumber} (Northbank Freight Co.)`]));
 
-  // The next driver must acknowledge the report, and now may operate: its defects are certified.
+  // The next driver must acknowledge the report, and now may operate: every defect is certified.
   const driver = await signedIn(browser, demoPerson('driver').email);
   const res = await driver.request.get(`/api/reports/acknowledgements?units=${target.unitId}`);
   expect(res.status()).toBe(200);

@@ -1,7 +1,7 @@
 'use client';
 
 import type { ReactNode } from 'react';
-import { Area, AreaChart, Bar, BarChart, CartesianGrid, Legend, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
+import { Bar, BarChart, CartesianGrid, Legend, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import type { OfficeDashboard } from '@/lib/services/get-office-dashboard';
 
 // Axis and text colours come from the theme tokens, so the charts follow day and night.
@@ -41,13 +41,13 @@ export function DashboardCharts({ data }: { data: OfficeDashboard }) {
       </Card>
       <Card title="Major defects open" note="At the end of each day: reported and not yet certified repaired. Each one keeps a unit out of service.">
         <ResponsiveContainer>
-          <AreaChart data={data.openMajorByDay}>
+          <BarChart data={data.openMajorByDay} barCategoryGap={1}>
             <CartesianGrid strokeDasharray="3 3" stroke="rgb(var(--edge) / 0.15)" />
             <XAxis dataKey="day" {...axis} minTickGap={24} />
             <YAxis allowDecimals={false} {...axis} />
             <Tooltip {...tooltip} />
-            <Area type="stepAfter" dataKey="open" name="open major defects" stroke="rgb(var(--major))" fill="rgb(var(--major) / 0.35)" strokeWidth={2} />
-          </AreaChart>
+            <Bar dataKey="open" name="open major defects" fill="rgb(var(--major))" />
+          </BarChart>
         </ResponsiveContainer>
       </Card>
       <Card title="Time taken, against the minimum" note={`Inspections by whole minutes taken, last 60 days. Lines: fleet minimum ${data.minimums.preTrip} min pre-trip, ${data.minimums.postTrip} min post-trip (fleet setting; no regulation sets one).`}>

@@ -2,10 +2,10 @@ import { HydrationBoundary, QueryClient, dehydrate } from '@tanstack/react-query
 import { requireRole } from '@/lib/auth/guards';
 import { getDb } from '@/lib/db';
 import { listReportFilterOptions } from '@/lib/db/reports';
-import { reportKeys } from '@/lib/queries/reports';
+import { paramsFromSearch, reportKeys } from '@/lib/queries/reports';
 import { listReportsQuerySchema } from '@/lib/schemas/reports';
-import { listReports } from '@/lib/services/list-reports';
-import { ReportsClient, paramsFromSearch } from './reports-client';
+import { getFleetMinimumsOrThrow, listReports } from '@/lib/services/list-reports';
+import { ReportsClient } from './reports-client';
 
 export const metadata = { title: 'Reports' };
 
@@ -16,10 +16,10 @@ export default async function ReportsPage({ searchParams }: { searchParams: Prom
   const qc = new QueryClient();
   const parsed = listReportsQuerySchema.safeParse(params);
   if (parsed.success) qc.setQueryData(reportKeys.list(params), await listReports({ fleetId: user.fleetId, query: parsed.data }));
-  const options = await listReportFilterOptions(getDb(), { fleetId: user.fleetId });
+  const [options, fleet] = await Promise.all([listReportFilterOptions(getDb(), { fleetId: user.fleetId }), getFleetMinimumsOrThrow(user.fleetId)]);
   return (
     <HydrationBoundary state={dehydrate(qc)}>
-      <ReportsClient drivers={options.drivers} units={options.units} />
+      <ReportsClient drivers={options.drivers} units={options.units} timezone={fleet.timezone} />
     </HydrationBoundary>
   );
 }

@@ -8,29 +8,17 @@ import { useMemo } from 'react';
 import { formatDateTime, formatDuration, kindLabel } from '@/components/office/format';
 import { MajorMark, MinorMark, PassMark } from '@/components/office/severity-mark';
 import { useHydrated } from '@/components/office/use-hydrated';
-import { reportListOptions, toReportSearch, type ReportListParams } from '@/lib/queries/reports';
+import { paramsFromSearch, reportListOptions, toReportSearch, type ReportListParams } from '@/lib/queries/reports';
 import type { ReportRow } from '@/lib/schemas/reports';
-
-const keys = ['from', 'to', 'driverId', 'unitId', 'kind', 'hasDefects', 'short', 'status', 'page', 'pageSize', 'sort', 'dir'] as const;
-
-/** The table's state is the URL's query string: shareable, and the back button works. */
-export function paramsFromSearch(sp: URLSearchParams): ReportListParams {
-  const p: ReportListParams = {};
-  for (const k of keys) {
-    const v = sp.get(k);
-    if (v) p[k] = v;
-  }
-  return p;
-}
 
 const col = createColumnHelper<ReportRow>();
 
-const columns = [
+const makeColumns = (tz: string) => [
   col.accessor('startedAt', {
     header: 'Started',
     cell: (c) => (
       <Link href={`/supervisor/reports/${c.row.original.id}`} className="font-bold underline-offset-2 hover:underline" data-testid="report-link">
-        {formatDateTime(c.getValue())}
+        {formatDateTime(c.getValue(), tz)}
       </Link>
     ),
   }),
@@ -80,7 +68,8 @@ const sortable = new Set(['startedAt', 'kind', 'driverName', 'tractorNumber', 'd
 
 type Option = { id: string; name?: string; unitNumber?: string; kind?: string };
 
-export function ReportsClient({ drivers, units }: { drivers: Option[]; units: Option[] }) {
+export function ReportsClient({ drivers, units, timezone }: { drivers: Option[]; units: Option[]; timezone: string }) {
+  const columns = useMemo(() => makeColumns(timezone), [timezone]);
   const router = useRouter();
   const pathname = usePathname();
   const search = useSearchParams();
@@ -125,7 +114,7 @@ export function ReportsClient({ drivers, units }: { drivers: Option[]; units: Op
         </a>
       </div>
 
-      <form aria-label="Filters" data-live={live ? "yes" : "no"} className="grid grid-cols-2 gap-3 rounded-lg border-2 border-edge/30 bg-panel p-3 md:grid-cols-4 lg:grid-cols-8" onSubmit={(e) => e.preventDefault()}>
+      <form aria-label="Filters" data-live={live ? "yes" : "no"} className="grid grid-cols-[repeat(auto-fill,minmax(9.5rem,1fr))] gap-3 rounded-lg border-2 border-edge/30 bg-panel p-3" onSubmit={(e) => e.preventDefault()}>
         <label className="flex flex-col text-sm font-bold">
           From
           <input type="date" className={field} value={String(params.from ?? '')} onChange={(e) => set({ from: e.target.value })} />
@@ -223,7 +212,7 @@ export function ReportsClient({ drivers, units }: { drivers: Option[]; units: Op
           </thead>
           <tbody className={isFetching ? 'opacity-60' : ''}>
             {table.getRowModel().rows.map((row) => (
-              <tr key={row.id} className={`border-t border-edge/15 align-top ${row.original.majorCount ? 'border-l-8 border-l-major' : ''}`} data-testid="report-row">
+              <tr key={row.id} className={`border-t border-edge/15 align-top ${row.original.majorCount ? 'shadow-[inset_8px_0_0_rgb(var(--major))]' : ''}`} data-testid="report-row">
                 {row.getVisibleCells().map((cell) => (
                   <td key={cell.id} className="px-3 py-2">
                     {flexRender(cell.column.columnDef.cell, cell.getContext())}

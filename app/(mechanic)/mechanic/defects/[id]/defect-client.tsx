@@ -59,8 +59,8 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
           </div>
           <div>
             <dt className="text-sm font-bold uppercase text-muted">Where</dt>
-            <dd className="capitalize">
-              {zoneLabel(d.zone)} · {d.component}, {d.condition}
+            <dd>
+              <span className="capitalize">{zoneLabel(d.zone)}</span> · {d.component}, {d.condition}
               {d.position ? `, ${d.position}` : ''}
             </dd>
           </div>
@@ -95,6 +95,13 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
         )}
       </header>
 
+      {certify.data && (
+        <p role="status" className="rounded border-2 border-pass p-2 text-lg font-bold" data-testid="certify-result">
+          Certified. Unit {certify.data.unit.unitNumber} is {certify.data.unit.status === 'in_service' ? 'in service' : 'still OUT OF SERVICE'}
+          {certify.data.openMajor > 0 ? ` (${certify.data.openMajor} major defect${certify.data.openMajor > 1 ? 's' : ''} still open)` : ''}
+          {certify.data.unit.changed && certify.data.mailed ? '; maintenance and the supervisor were mailed.' : '.'}
+        </p>
+      )}
       {d.certification ? (
         <section aria-labelledby="cert-heading" className="rounded-lg border-slab border-pass bg-panel p-4" data-testid="certification">
           <h2 id="cert-heading" className="text-xl font-extrabold">
@@ -163,13 +170,6 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
               </button>
             ) : (
               <p className="text-muted">Only a mechanic signs a repair certification.</p>
-            )}
-            {certify.data && (
-              <p role="status" className="rounded border-2 border-pass p-2 text-lg font-bold" data-testid="certify-result">
-                Certified. Unit {certify.data.unit.unitNumber} is {certify.data.unit.status === 'in_service' ? 'in service' : 'still OUT OF SERVICE'}
-                {certify.data.openMajor > 0 ? ` (${certify.data.openMajor} major defect${certify.data.openMajor > 1 ? 's' : ''} still open)` : ''}
-                {certify.data.unit.changed && certify.data.mailed ? '; maintenance and the supervisor were mailed.' : '.'}
-              </p>
             )}
           </form>
           <SafetyCautions />

@@ -60,15 +60,15 @@ export function Transcript({ report }: { report: ReportDetail }) {
             <span className="text-sm font-bold normal-case text-muted">{formatDuration(z.seconds)} in zone</span>
           </h3>
           <div className="overflow-x-auto">
-            <table className="w-full min-w-[820px] text-sm">
+            <table className="w-full min-w-[820px] table-fixed text-sm">
               <thead className="text-left uppercase tracking-wide text-muted">
                 <tr>
                   <th className="w-20 px-4 py-1">Time</th>
-                  <th className="px-2 py-1">Heard</th>
-                  <th className="px-2 py-1">Other readings</th>
+                  <th className="w-[22%] px-2 py-1">Heard</th>
+                  <th className="w-[16%] px-2 py-1">Other readings</th>
                   <th className="px-2 py-1">Matched / measured</th>
                   <th className="w-16 px-2 py-1 text-right">Score</th>
-                  <th className="w-40 px-2 py-1">Settled</th>
+                  <th className="w-36 px-2 py-1">Settled</th>
                   <th className="w-24 px-4 py-1">Photos</th>
                 </tr>
               </thead>
