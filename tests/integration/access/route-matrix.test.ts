@@ -31,6 +31,7 @@ import * as unitReview from '@/app/api/units/[id]/review/route';
 import * as units from '@/app/api/units/route';
 import { makeInspection, makeUnit } from '../../../db/factories';
 import { adminRouteCases } from '../admin/admin-routes';
+import { vocabularyRouteCases } from '../vocabulary/vocabulary-routes';
 import { roles, type Role } from '@/lib/auth/roles';
 import { makeFleetFixture, type FleetFixture } from '../../setup/fleet-fixture';
 import { callRoute, makeRequest } from '../../setup/session';
@@ -169,6 +170,8 @@ const cases: Case[] = [
   { route: 'dashboard', method: 'GET', allowed: ['supervisor'], call: (_f, cookie) => callRoute(dashboard.GET, makeRequest('/api/dashboard', { cookie })) },
   { route: 'dashboard/board', method: 'GET', allowed: ['supervisor'], call: (_f, cookie) => callRoute(dashboardBoard.GET, makeRequest('/api/dashboard/board', { cookie })) },
   { route: 'mail', method: 'GET', allowed: ['admin'], call: (_f, cookie) => callRoute(caughtMail.GET, makeRequest('/api/mail', { cookie })) },
+  // The trainer's vocabulary routes.
+  ...vocabularyRouteCases,
   ...adminRouteCases.map(
     (a): Case => ({ route: a.path.replace(/^\/api\//, ''), method: a.method as Case['method'], allowed: ['admin'], call: (_f, cookie) => a.call(cookie) }),
   ),
