@@ -1,11 +1,15 @@
 import { RoleHome } from '@/components/app-shell/role-home';
+import { TrainerNav } from '@/components/trainer/trainer-nav';
 import { requireRole } from '@/lib/auth/guards';
+import { VersionsClient } from './versions-client';
 
 export default async function TrainerHomePage() {
   const user = await requireRole('trainer');
   return (
     <RoleHome user={user} title="Defect vocabulary">
-      <p className="text-xl">The words drivers say, what they match, and how sure the match is.</p>
+      <TrainerNav />
+      <p className="text-lg">The words drivers say, what they match, and how sure the match is. Edits go to a draft; a published version never changes, and each inspection keeps the version it started with.</p>
+      <VersionsClient />
     </RoleHome>
   );
 }

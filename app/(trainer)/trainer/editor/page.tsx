@@ -1,0 +1,17 @@
+import type { Metadata } from 'next';
+import { RoleHome } from '@/components/app-shell/role-home';
+import { TrainerNav } from '@/components/trainer/trainer-nav';
+import { requireRole } from '@/lib/auth/guards';
+import { EditorClient } from './editor-client';
+
+export const metadata: Metadata = { title: 'Vocabulary editor' };
+
+export default async function VocabularyEditorPage() {
+  const user = await requireRole('trainer');
+  return (
+    <RoleHome user={user} title="Vocabulary editor">
+      <TrainerNav />
+      <EditorClient />
+    </RoleHome>
+  );
+}

@@ -1,0 +1,252 @@
+'use client';
+
+import { useQuery } from '@tanstack/react-query';
+import { useState } from 'react';
+import { buttonClass, cardClass, fieldClass, pct } from '@/components/trainer/controls';
+import { OpenDraftButton } from '@/components/trainer/open-draft-button';
+import { useVersions } from '@/components/trainer/use-draft';
+import { ApiError } from '@/lib/http/fetch-json';
+import { testSetOptions, useEvaluationMutation, useImportGrammarMutation, usePublishMutation, useSaveTestSetMutation } from '@/lib/queries/vocabulary';
+import type { EvaluationLine, EvaluationReport, Figures } from '@/lib/schemas/vocabulary';
+
+const grammarFiles = ['vocabulary', 'commands', 'positions', 'numbers', 'zones'] as const;
+
+export function EvaluationClient() {
+  const { list, draftSummary, publishedSummary } = useVersions();
+  if (list.isPending) return <p className="text-muted">Loading…</p>;
+  return (
+    <div className="space-y-4">
+      <TestSetCard />
+      {draftSummary ? (
+        <DraftEvaluation key={draftSummary.id} id={draftSummary.id} label={draftSummary.label} />
+      ) : (
+        <div className={`${cardClass} flex items-center gap-3`}>
+          <span>No draft is open{publishedSummary ? `; drivers use “${publishedSummary.label}”` : ''}.</span>
+          <OpenDraftButton />
+        </div>
+      )}
+      <GrammarFilesCard draftId={draftSummary?.id ?? null} publishedId={publishedSummary?.id ?? null} />
+    </div>
+  );
+}
+
+function TestSetCard() {
+  const set = useQuery(testSetOptions());
+  const save = useSaveTestSetMutation();
+  const [picked, setPicked] = useState<{ name: string; jsonl: string } | null>(null);
+  return (
+    <section className={`${cardClass} flex flex-wrap items-center gap-4`} aria-label="Labelled set">
+      <div className="mr-auto">
+        <h2 className="text-lg font-extrabold">Labelled utterance set</h2>
+        <p>
+          {set.data ? (
+            <>
+              <b>{set.data.name}</b> · <span className="tabular-nums">{set.data.count}</span> lines · {set.data.source === 'fleet' ? 'this fleet’s own' : 'the built-in set'}
+            </>
+          ) : (
+            '…'
+          )}
+        </p>
+      </div>
+      <a className={buttonClass()} href="/api/vocabulary/test-set?format=jsonl">Export JSONL</a>
+      <label className="flex items-center gap-2">
+        <span className="text-sm font-bold">Import JSONL</span>
+        <input
+          type="file"
+          accept=".jsonl,.ndjson,.txt,application/x-ndjson"
+          className="text-sm"
+          onChange={async (e) => {
+            const file = e.target.files?.[0];
+            if (file) setPicked({ name: file.name.replace(/\.[^.]+$/, ''), jsonl: await file.text() });
+          }}
+        />
+      </label>
+      {picked && (
+        <button type="button" className={buttonClass('primary')} disabled={save.isPending} onClick={() => save.mutate(picked, { onSuccess: () => setPicked(null) })}>
+          Use “{picked.name}” as this fleet’s set
+        </button>
+      )}
+      {save.error && <p role="alert" className="w-full text-sm font-bold text-major">{save.error.message}</p>}
+    </section>
+  );
+}
+
+function FigureCard({ title, figures, testId }: { title: string; figures: Figures; testId: string }) {
+  return (
+    <div className={cardClass} data-testid={testId}>
+      <h3 className="text-sm font-bold uppercase tracking-wide text-muted">{title}</h3>
+      <p className="text-3xl font-extrabold tabular-nums">{pct(figures.top1Rate)}</p>
+      <p className="tabular-nums">
+        top-1 {figures.top1}/{figures.total} · top-3 {figures.top3}/{figures.total} ({pct(figures.top3Rate)})
+      </p>
+    </div>
+  );
+}
+
+const signed = (n: number) => (n > 0 ? `+${n}` : n === 0 ? '±0' : `−${Math.abs(n)}`);
+
+function Difference({ report }: { report: EvaluationReport }) {
+  if (!report.published) return <div className={cardClass}><h3 className="text-sm font-bold uppercase tracking-wide text-muted">Difference</h3><p>Nothing published yet to compare with.</p></div>;
+  const d1 = report.figures.top1 - report.published.figures.top1;
+  const d3 = report.figures.top3 - report.published.figures.top3;
+  const worse = report.lowersAccuracy;
+  return (
+    <div className={`${cardClass} ${worse ? 'border-major' : ''}`} data-testid="evaluation-difference">
+      <h3 className="text-sm font-bold uppercase tracking-wide text-muted">Difference from “{report.published.label}”</h3>
+      <p className="text-3xl font-extrabold tabular-nums">{worse ? '▼ ' : d1 > 0 ? '▲ ' : ''}{signed(d1)} top-1</p>
+      <p className="tabular-nums">
+        {signed(d3)} top-3 · {report.newlyFixed.length} newly right · {report.newlyMissed.length} newly missed
+      </p>
+      {worse && <p className="font-bold text-major">■ Lowers accuracy: publishing needs a reason.</p>}
+    </div>
+  );
+}
+
+function LineTable({ lines, caption }: { lines: EvaluationLine[]; caption: string }) {
+  if (!lines.length) return null;
+  return (
+    <details className={cardClass} open={lines.length <= 12}>
+      <summary className="cursor-pointer text-lg font-extrabold">
+        {caption} ({lines.length})
+      </summary>
+      <table className="mt-2 w-full text-left text-base">
+        <thead className="text-sm text-muted">
+          <tr>
+            <th className="py-1 pr-2">Utterance</th>
+            <th className="py-1 pr-2">Zone</th>
+            <th className="py-1 pr-2">Labelled</th>
+            <th className="py-1 pr-2">Read as</th>
+            <th className="py-1 text-right">Score</th>
+          </tr>
+        </thead>
+        <tbody>
+          {lines.slice(0, 200).map((l, i) => (
+            <tr key={`${l.text}-${i}`} className="border-t border-edge/15">
+              <td className="py-1 pr-2">{l.text}</td>
+              <td className="py-1 pr-2 text-sm">{l.zone?.replace(/_/g, ' ') ?? '—'}</td>
+              <td className="py-1 pr-2"><code className="text-sm">{l.expected}</code></td>
+              <td className="py-1 pr-2"><code className="text-sm">{l.got}</code>{l.top3 && <span className="ml-1 text-sm text-muted">(in top 3)</span>}</td>
+              <td className="py-1 text-right tabular-nums">{l.score.toFixed(2)}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </details>
+  );
+}
+
+function DraftEvaluation({ id, label }: { id: string; label: string }) {
+  const evaluation = useEvaluationMutation(id);
+  const publish = usePublishMutation(id);
+  const [reason, setReason] = useState('');
+  const report = evaluation.data;
+  const needsReason = report?.lowersAccuracy || (publish.error instanceof ApiError && publish.error.status === 409);
+  return (
+    <section className="space-y-3" aria-label="Evaluation">
+      <div className={`${cardClass} flex flex-wrap items-center gap-3`}>
+        <p className="mr-auto text-lg">
+          Draft <b>{label}</b>
+        </p>
+        <button type="button" className={buttonClass('primary')} disabled={evaluation.isPending} onClick={() => evaluation.mutate()}>
+          {evaluation.isPending ? 'Running…' : 'Run the evaluation'}
+        </button>
+      </div>
+      {evaluation.error && <p role="alert" className="font-bold text-major">{evaluation.error.message}</p>}
+      {report && (
+        <>
+          <div className="grid gap-3 md:grid-cols-3">
+            <FigureCard title={`Draft “${report.version.label}”`} figures={report.figures} testId="evaluation-draft" />
+            {report.published ? <FigureCard title={`Published “${report.published.label}”`} figures={report.published.figures} testId="evaluation-published" /> : <div className={cardClass}>No published version.</div>}
+            <Difference report={report} />
+          </div>
+          <LineTable lines={report.newlyMissed} caption="Newly missed by the draft" />
+          <LineTable lines={report.newlyFixed} caption="Newly right in the draft" />
+          <LineTable lines={report.misses} caption="All misses of the draft" />
+        </>
+      )}
+      <div className={`${cardClass} space-y-2`} aria-label="Publish">
+        <h2 className="text-lg font-extrabold">Publish</h2>
+        <p>New inspections use the published version from the moment it is published; inspections already started keep theirs. A published version cannot be changed.</p>
+        {publish.data ? (
+          <p role="status" className="font-bold" data-testid="published-notice">
+            <span className="text-pass">✓</span> Published “{publish.data.version.label}”{publish.data.override ? ' with an override' : ''}: top-1 {publish.data.evaluation.figures.top1}/{publish.data.evaluation.figures.total}.
+          </p>
+        ) : (
+          <>
+            {needsReason && (
+              <label className="block">
+                <span className="block text-sm font-bold">Why publish a draft that scores lower? (kept in the audit log)</span>
+                <textarea className={`${fieldClass} min-h-20`} value={reason} onChange={(e) => setReason(e.target.value)} maxLength={500} />
+              </label>
+            )}
+            <div className="flex flex-wrap gap-2">
+              {needsReason ? (
+                <button type="button" className={buttonClass('danger')} disabled={reason.trim().length < 10 || publish.isPending} onClick={() => publish.mutate({ override: { reason: reason.trim() } })}>
+                  Publish anyway, with this reason
+                </button>
+              ) : (
+                <button type="button" className={buttonClass('primary')} disabled={publish.isPending} onClick={() => publish.mutate({})}>
+                  Publish the draft
+                </button>
+              )}
+            </div>
+            {publish.error && <p role="alert" className="text-sm font-bold text-major">{publish.error.message}</p>}
+          </>
+        )}
+      </div>
+    </section>
+  );
+}
+
+function GrammarFilesCard({ draftId, publishedId }: { draftId: string | null; publishedId: string | null }) {
+  const importer = useImportGrammarMutation();
+  const [message, setMessage] = useState<string | null>(null);
+  return (
+    <section className={`${cardClass} space-y-2`} aria-label="Grammar files">
+      <h2 className="text-lg font-extrabold">Grammar files</h2>
+      <p className="text-sm text-muted">The same format as the grammars/ folder: export a version’s files, or import files into the draft.</p>
+      {[
+        ['Draft', draftId],
+        ['Published', publishedId],
+      ].map(([name, id]) =>
+        id ? (
+          <p key={name} className="flex flex-wrap items-center gap-2">
+            <span className="w-24 font-bold">{name}</span>
+            {grammarFiles.map((f) => (
+              <a key={f} className="underline" href={`/api/vocabulary/versions/${id}/export?file=${f}`}>
+                {f}.json
+              </a>
+            ))}
+            <a className="underline" href={`/api/vocabulary/versions/${id}/export`}>all in one</a>
+          </p>
+        ) : null,
+      )}
+      <label className="flex flex-wrap items-center gap-2">
+        <span className="w-24 font-bold">Import</span>
+        <input
+          type="file"
+          multiple
+          accept=".json,application/json"
+          className="text-sm"
+          onChange={async (e) => {
+            const files: Record<string, unknown> = {};
+            try {
+              for (const file of Array.from(e.target.files ?? [])) {
+                const json = JSON.parse(await file.text()) as Record<string, unknown>;
+                const base = file.name.replace(/\.json$/i, '');
+                if ((grammarFiles as readonly string[]).includes(base)) files[base] = json;
+                else for (const f of grammarFiles) if (f in json) files[f] = json[f];
+              }
+            } catch {
+              setMessage('That file is not JSON.');
+              return;
+            }
+            importer.mutate({ files }, { onSuccess: (r) => setMessage(`Imported ${r.files.join(', ')} into draft “${r.version.label}”.`) });
+          }}
+        />
+      </label>
+      {message && <p role="status">{message}</p>}
+      {importer.error && <p role="alert" className="text-sm font-bold text-major">{importer.error.message}</p>}
+    </section>
+  );
+}
