@@ -1,0 +1,300 @@
+// The load benchmark: the built app on a free loopback port, 100 simulated drivers each walking
+// a 60-step inspection (start, steps with client ids, one photo, sign), driven by autocannon.
+//
+//   npm run bench:load [-- --json] [-- --drivers N --steps N --rate R]
+//
+// Each autocannon connection is one driver with its own session cookie and tractor, posting its
+// steps one after another. `--rate` caps the requests per second across all drivers (a yard of
+// drivers does not press buttons back to back; 0 = as fast as the server answers). Afterwards a
+// share of the steps is sent again, as a device does after a reconnect, and the rows are counted
+// in PostgreSQL: every step exactly once. Runs on its own database (rigcall_load) so that a test
+// run that re-creates rigcall_test at the same time does not pull it out from under us.
+import { spawn, type ChildProcess } from 'node:child_process';
+import { randomUUID } from 'node:crypto';
+import fs from 'node:fs';
+import net from 'node:net';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import autocannon from 'autocannon';
+import { sql } from 'kysely';
+import { encode } from 'next-auth/jwt';
+import pg from 'pg';
+import sharp from 'sharp';
+import { createDb, databaseUrlFromEnv } from '../db/connect';
+import { hashPassword, makeFleet, makeUnit } from '../db/factories';
+import { migrateToLatest } from '../db/migrate';
+import zonesGrammar from '../grammars/zones.json' with { type: 'json' };
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+const args = process.argv.slice(2);
+const flag = (name: string, fallback: number) => {
+  const i = args.indexOf(`--${name}`);
+  return i >= 0 && args[i + 1] !== undefined ? Number(args[i + 1]) : fallback;
+};
+const asJson = args.includes('--json');
+const DRIVERS = flag('drivers', 100);
+const STEPS = flag('steps', 60);
+const RATE = flag('rate', 200);
+const REPLAY_SHARE = 0.1;
+const TIME_LIMIT_S = flag('time-limit', 150);
+const log = (msg: string) => {
+  if (!asJson) console.log(`[bench:load] ${msg}`);
+  else console.error(`[bench:load] ${msg}`);
+};
+
+const hardStop = setTimeout(() => {
+  console.error(`[bench:load] gave up after ${TIME_LIMIT_S + 60} s`);
+  stopApp();
+  process.exit(2);
+}, (TIME_LIMIT_S + 60) * 1000);
+hardStop.unref();
+
+// ------------------------------------------------------------------ database
+
+function loadDatabaseUrl(): string {
+  const u = new URL(databaseUrlFromEnv());
+  if (!['127.0.0.1', 'localhost', '::1'].includes(u.hostname)) throw new Error(`refusing to load a database on ${u.hostname}`);
+  u.pathname = '/rigcall_load';
+  return u.toString();
+}
+
+async function ensureLoadDatabase(url: string) {
+  const admin = new URL(url);
+  admin.pathname = '/postgres';
+  const client = new pg.Client({ connectionString: admin.toString() });
+  await client.connect();
+  const exists = await client.query(`select 1 from pg_database where datname = 'rigcall_load'`);
+  if (!exists.rowCount) await client.query('create database rigcall_load');
+  await client.end();
+  const db = createDb(url, 2);
+  await migrateToLatest(db);
+  await db.destroy();
+}
+
+// ------------------------------------------------------------------ the app
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const srv = net.createServer();
+    srv.once('error', reject);
+    srv.listen(0, '127.0.0.1', () => {
+      const port = (srv.address() as net.AddressInfo).port;
+      srv.close(() => resolve(port));
+    });
+  });
+}
+
+let app: ChildProcess | null = null;
+function stopApp() {
+  if (app?.pid && app.exitCode === null) {
+    try {
+      process.kill(-app.pid, 'SIGTERM');
+    } catch {
+      /* gone */
+    }
+  }
+}
+process.on('exit', stopApp);
+
+function runBuildIfMissing(env: NodeJS.ProcessEnv) {
+  if (fs.existsSync(path.join(root, '.next', 'BUILD_ID'))) return Promise.resolve();
+  log('no build found; building (next build)…');
+  return new Promise<void>((resolve, reject) => {
+    const b = spawn(process.execPath, ['node_modules/next/dist/bin/next', 'build'], { cwd: root, env, stdio: asJson ? ['ignore', 'ignore', 'inherit'] : 'inherit' });
+    b.on('exit', (code) => (code === 0 ? resolve() : reject(new Error(`next build exited with ${code}`))));
+  });
+}
+
+async function startApp(databaseUrl: string): Promise<string> {
+  const port = await freePort();
+  const base = `http://127.0.0.1:${port}`;
+  const env = { ...process.env, DATABASE_URL: databaseUrl, NEXTAUTH_URL: base, APP_PORT: String(port), NODE_ENV: 'production' as const };
+  await runBuildIfMissing(env);
+  fs.mkdirSync(path.join(root, '.data', 'logs'), { recursive: true });
+  const out = fs.openSync(path.join(root, '.data', 'logs', 'bench-load-app.log'), 'w');
+  app = spawn(process.execPath, ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(port)], { cwd: root, env, detached: true, stdio: ['ignore', out, out] });
+  const until = Date.now() + 60_000;
+  while (Date.now() < until) {
+    if (app.exitCode !== null) throw new Error('the app exited at start (see .data/logs/bench-load-app.log)');
+    try {
+      const res = await fetch(`${base}/api/health`);
+      if (res.ok) return base;
+    } catch {
+      /* not yet */
+    }
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new Error('the app did not answer /api/health within 60 s');
+}
+
+// ------------------------------------------------------------------ the walk
+
+type Driver = { id: string; name: string; cookie: string; tractorId: string; inspectionId: string; sent: { id: string; body: string }[] };
+const items = (zonesGrammar as { zones: { id: string; items: { id: string; configurations?: string[] }[] }[] }).zones.flatMap((z) => z.items.filter((i) => !i.configurations || i.configurations.includes('bobtail')).map((i) => ({ zone: z.id, item: i.id })));
+
+/** Step n of a walk: a zone visit when the zone changes, OKs for the items, one defect. */
+function stepBody(n: number): Record<string, unknown> {
+  const at = items[n % items.length]!;
+  const deviceAt = new Date().toISOString();
+  if (n === 7) return { seq: n, zone: 'in_cab', kind: 'defect', termKey: 'horn:inoperative', heard: 'horn does not work', inputMode: 'voice', score: 0.93, resolution: 'auto', deviceAt };
+  if (n === 0 || at.zone !== items[(n - 1) % items.length]!.zone) return { seq: n, zone: at.zone, kind: 'visit', inputMode: 'tap', deviceAt };
+  return { seq: n, zone: at.zone, item: at.item, kind: 'ok', heard: 'good', inputMode: n % 3 ? 'voice' : 'tap', score: 0.98, resolution: 'auto', deviceAt };
+}
+
+async function pool<T>(list: T[], width: number, fn: (t: T) => Promise<void>) {
+  let next = 0;
+  await Promise.all(Array.from({ length: Math.min(width, list.length) }, async () => {
+    while (next < list.length) await fn(list[next++]!);
+  }));
+}
+
+const pct = (sorted: number[], p: number) => (sorted.length ? sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)]! : 0);
+
+async function main() {
+  const t0 = Date.now();
+  const url = loadDatabaseUrl();
+  log(`database rigcall_load on ${new URL(url).host}`);
+  await ensureLoadDatabase(url);
+  const db = createDb(url, 4);
+  const base = await startApp(url);
+  log(`app at ${base}`);
+
+  // Drivers: a user, a session cookie and a tractor each, in one fleet of their own.
+  const fleet = await makeFleet(db, { name: `Load fleet ${new Date().toISOString()}` });
+  const passwordHash = await hashPassword('load-password', 4);
+  const secret = process.env.NEXTAUTH_SECRET;
+  if (!secret) throw new Error('NEXTAUTH_SECRET is not set');
+  const drivers: Driver[] = [];
+  for (let i = 0; i < DRIVERS; i++) {
+    const name = `Load Driver ${i + 1}`;
+    const user = await db.insertInto('appUser').values({ fleetId: fleet.id, email: `load-${fleet.slug}-${i}@load.example`, name, passwordHash, roles: ['driver'], active: true }).returning(['id']).executeTakeFirstOrThrow();
+    const tractor = await makeUnit(db, { fleetId: fleet.id, kind: 'tractor' });
+    const token = await encode({ secret, token: { uid: user.id, name, email: `load-${i}@load.example`, fleetId: fleet.id, roles: ['driver'], sub: user.id } as never });
+    drivers.push({ id: user.id, name, cookie: `next-auth.session-token=${token}`, tractorId: tractor.id, inspectionId: randomUUID(), sent: [] });
+  }
+  log(`${DRIVERS} drivers ready`);
+
+  const headers = (d: Driver) => ({ cookie: d.cookie, 'content-type': 'application/json', origin: base });
+  let otherErrors = 0;
+  const note = (what: string, status: number, text: string) => {
+    otherErrors++;
+    if (otherErrors <= 5) log(`${what}: ${status} ${text.slice(0, 200)}`);
+  };
+
+  // Start every walk.
+  await pool(drivers, 20, async (d) => {
+    const res = await fetch(`${base}/api/inspections`, { method: 'POST', headers: headers(d), body: JSON.stringify({ id: d.inspectionId, kind: 'pre_trip', tractorId: d.tractorId, trailerId: null, odometer: 100_000, startedAt: new Date().toISOString() }) });
+    if (res.status !== 201) note('start', res.status, await res.text());
+  });
+
+  // The steps: one autocannon connection per driver, STEPS requests each.
+  let nextDriver = 0;
+  const latencies: number[] = [];
+  const statuses = new Map<number, number>();
+  let resolveRun: (r: autocannon.Result) => void = () => {};
+  let rejectRun: (e: unknown) => void = () => {};
+  const finished = new Promise<autocannon.Result>((resolve, reject) => {
+    resolveRun = resolve;
+    rejectRun = reject;
+  });
+  const instance = autocannon({
+    url: base,
+    connections: DRIVERS,
+    pipelining: 1,
+    maxConnectionRequests: STEPS,
+    ...(RATE > 0 ? { overallRate: RATE } : {}),
+    timeout: 10,
+    duration: TIME_LIMIT_S,
+    initialContext: {},
+    // One entry per step: autocannon keeps a connection's context through its request list and
+    // resets it only when the list starts over, which maxConnectionRequests never lets happen.
+    requests: Array.from({ length: STEPS }, (_x, n) => ({
+      method: 'POST' as const,
+      setupRequest: (req: autocannon.Request, context: Record<string, unknown>) => {
+        const ctx = context as { driver?: Driver };
+        ctx.driver ??= drivers[nextDriver++ % drivers.length]!;
+        const d = ctx.driver;
+        const id = randomUUID();
+        const body = JSON.stringify({ id, ...stepBody(n) });
+        d.sent.push({ id, body });
+        return { ...req, method: 'POST' as const, path: `/api/inspections/${d.inspectionId}/steps`, headers: headers(d), body };
+      },
+    })) as unknown as autocannon.Request[],
+  }, (err, res) => (err ? rejectRun(err) : resolveRun(res)));
+  instance.on('response', (_client: unknown, statusCode: number, _bytes: number, responseTime: number) => {
+    latencies.push(responseTime);
+    statuses.set(statusCode, (statuses.get(statusCode) ?? 0) + 1);
+  });
+  if (!asJson) autocannon.track(instance, { renderProgressBar: false, renderResultsTable: false, renderLatencyTable: false });
+  const result = await finished;
+  const stepSeconds = result.duration;
+  log(`steps phase: ${result.requests.total} requests in ${stepSeconds.toFixed(1)} s; statuses ${JSON.stringify(Object.fromEntries(statuses))}`);
+
+  // Replays: a share of every driver's steps sent again, as after a reconnect.
+  let replayErrors = 0;
+  const replays = drivers.flatMap((d) => d.sent.filter((_s, i) => i % Math.round(1 / REPLAY_SHARE) === 3).map((s) => ({ d, s })));
+  await pool(replays, 20, async ({ d, s }) => {
+    const res = await fetch(`${base}/api/inspections/${d.inspectionId}/steps`, { method: 'POST', headers: headers(d), body: s.body });
+    if (res.status !== 200) {
+      replayErrors++;
+      note('replay', res.status, await res.text());
+    }
+  });
+
+  // One photo per driver, then sign.
+  const photo = await sharp({ create: { width: 1200, height: 900, channels: 3, background: '#5a6470' } }).jpeg({ quality: 80 }).toBuffer();
+  await pool(drivers, 8, async (d) => {
+    const stepId = d.sent[7]?.id;
+    const res = await fetch(`${base}/api/inspections/${d.inspectionId}/photos/${randomUUID()}${stepId ? `?stepId=${stepId}` : ''}`, { method: 'PUT', headers: { cookie: d.cookie, 'content-type': 'image/jpeg', origin: base }, body: new Uint8Array(photo) });
+    if (res.status !== 201) note('photo', res.status, await res.text());
+  });
+  await pool(drivers, 10, async (d) => {
+    const res = await fetch(`${base}/api/inspections/${d.inspectionId}/finish`, { method: 'POST', headers: headers(d), body: JSON.stringify({ signatureName: d.name, certify: true, finishedAt: new Date().toISOString() }) });
+    if (res.status !== 200) note('finish', res.status, await res.text());
+  });
+
+  // Count the rows.
+  const inspectionIds = drivers.map((d) => d.inspectionId);
+  const sentIds = new Set(drivers.flatMap((d) => d.sent.map((s) => s.id)));
+  const rows = await db.selectFrom('inspectionStep').select(['id', 'inspectionId', 'seq']).where('inspectionId', 'in', inspectionIds).execute();
+  const seen = new Map<string, number>();
+  for (const r of rows) seen.set(r.id, (seen.get(r.id) ?? 0) + 1);
+  const lost = [...sentIds].filter((id) => !seen.has(id)).length;
+  const bySeq = new Map<string, number>();
+  for (const r of rows) bySeq.set(`${r.inspectionId}:${r.seq}`, (bySeq.get(`${r.inspectionId}:${r.seq}`) ?? 0) + 1);
+  const doubled = [...seen.values()].filter((n) => n > 1).length + [...bySeq.values()].filter((n) => n > 1).length + rows.filter((r) => !sentIds.has(r.id)).length;
+  const signed = await db.selectFrom('inspection').select((eb) => eb.fn.countAll<number>().as('n')).where('id', 'in', inspectionIds).where('status', '=', 'submitted').executeTakeFirstOrThrow();
+  const photos = await db.selectFrom('attachment').select((eb) => eb.fn.countAll<number>().as('n')).where('inspectionId', 'in', inspectionIds).executeTakeFirstOrThrow();
+  const dbSize = await sql<{ size: string }>`select pg_size_pretty(pg_database_size('rigcall_load')) as size`.execute(db);
+
+  const non2xx = [...statuses.entries()].filter(([s]) => s < 200 || s >= 300).reduce((a, [, n]) => a + n, 0);
+  const errors = result.errors + result.timeouts + non2xx + otherErrors;
+  const sorted = [...latencies].sort((a, b) => a - b);
+  const summary = {
+    drivers: DRIVERS,
+    steps: latencies.length,
+    steps_per_s: Math.round((latencies.length / stepSeconds) * 10) / 10,
+    p50_ms: Math.round(pct(sorted, 50) * 10) / 10,
+    p95_ms: Math.round(pct(sorted, 95) * 10) / 10,
+    p99_ms: Math.round(pct(sorted, 99) * 10) / 10,
+    errors,
+    lost,
+    doubled,
+  };
+
+  log(`rate cap ${RATE > 0 ? `${RATE} requests/s` : 'none'}; ${summary.steps} steps by ${DRIVERS} drivers in ${stepSeconds.toFixed(1)} s = ${summary.steps_per_s} steps/s`);
+  log(`step route latency p50 ${summary.p50_ms} ms, p95 ${summary.p95_ms} ms, p99 ${summary.p99_ms} ms, max ${sorted[sorted.length - 1] ?? 0} ms (target p99 <= 50 ms: ${summary.p99_ms <= 50 ? 'met' : 'MISSED'})`);
+  log(`errors ${errors} (step errors ${result.errors}, timeouts ${result.timeouts}, non-2xx ${non2xx}, start/replay/photo/finish ${otherErrors}); ${replays.length} steps sent again, ${replayErrors} of them not answered 200`);
+  log(`rows: ${rows.length} steps for ${sentIds.size} sent, lost ${lost}, doubled ${doubled}; ${Number(signed.n)}/${DRIVERS} reports signed, ${Number(photos.n)} photos; rigcall_load is ${dbSize.rows[0]?.size}`);
+  log(`total ${((Date.now() - t0) / 1000).toFixed(1)} s`);
+  await db.destroy();
+  stopApp();
+  console.log(JSON.stringify(summary));
+  process.exit(errors === 0 && lost === 0 && doubled === 0 ? 0 : 1);
+}
+
+main().catch((err) => {
+  console.error('[bench:load] failed:', err);
+  stopApp();
+  process.exit(1);
+});
