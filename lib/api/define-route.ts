@@ -95,7 +95,14 @@ async function readBytes(req: Request, maxBytes: number): Promise<Uint8Array> {
   const chunks: Uint8Array[] = [];
   let size = 0;
   for (;;) {
-    const { done, value } = await reader.read();
+    let chunk: ReadableStreamReadResult<Uint8Array>;
+    try {
+      chunk = await reader.read();
+    } catch {
+      // The connection dropped mid-upload: nothing was stored, and the device sends it again.
+      throw new AppError('invalid_body', 'The upload was cut off before it finished. Nothing was saved; send the photo again.');
+    }
+    const { done, value } = chunk;
     if (done) break;
     size += value.byteLength;
     if (size > maxBytes) {
