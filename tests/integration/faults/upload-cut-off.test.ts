@@ -15,7 +15,7 @@ let jpeg: Buffer;
 beforeAll(async () => {
   f = await makeFleetFixture(db, 'Upload fault fleet');
   // A photo with some detail, so that half of it is really half an image.
-  jpeg = await sharp({ create: { width: 1600, height: 1200, channels: 3, noise: { type: 'gaussian', mean: 120, sigma: 40 } } }).jpeg({ quality: 85 }).toBuffer();
+  jpeg = await sharp({ create: { width: 1600, height: 1200, channels: 3, background: '#777777', noise: { type: 'gaussian', mean: 120, sigma: 40 } } }).jpeg({ quality: 85 }).toBuffer();
 });
 afterAll(() => db.destroy());
 
@@ -42,7 +42,7 @@ function brokenUpload(inspectionId: string, photoId: string, stepId: string) {
   return callRoute(photos.PUT, req, { id: inspectionId, photoId });
 }
 
-const upload = (inspectionId: string, photoId: string, stepId: string, bytes: Uint8Array) =>
+const upload = (inspectionId: string, photoId: string, stepId: string, bytes: Uint8Array<ArrayBuffer>) =>
   callRoute(photos.PUT, makeRequest(`/api/inspections/${inspectionId}/photos/${photoId}?stepId=${stepId}`, { method: 'PUT', cookie: f.cookies.driver, headers: { 'content-type': 'image/jpeg' }, body: bytes }), { id: inspectionId, photoId });
 
 const attachmentsOf = (inspectionId: string) => db.selectFrom('attachment').select(['id', 'stepId', 'sizeBytes']).where('inspectionId', '=', inspectionId).execute();
