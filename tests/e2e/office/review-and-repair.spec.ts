@@ -57,6 +57,11 @@ test('supervisor reviews, mechanic certifies, unit back in service, mails caught
   // A report reviewed on an earlier run offers to update the review instead.
   await sup.getByRole('button', { name: /^(Mark reviewed|Update review)$/ }).click();
   await expect(sup.getByTestId('review-state')).toContainText('Reviewed by Marcus Lindqvist');
+  // The printable report comes from the built app (pdfkit loaded at run time).
+  const pdf = await sup.request.get(`/api/reports/${target.reportId}/pdf`);
+  expect(pdf.status()).toBe(200);
+  expect(pdf.headers()['content-type']).toBe('application/pdf');
+  expect((await pdf.body()).subarray(0, 5).toString()).toBe('%PDF-');
   await sup.getByRole('button', { name: 'Mail the shop about open defects' }).click();
   await expect(sup.getByRole('status').filter({ hasText: 'Out-of-service notice' })).toContainText(`unit ${target.unitNumber} sent`);
 
