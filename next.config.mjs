@@ -6,7 +6,7 @@ const nextConfig = {
   // the build does not repeat that work.
   typescript: { ignoreBuildErrors: true },
   // Server-only packages that should stay outside the bundle.
-  serverExternalPackages: ['pg', 'nodemailer', 'bcryptjs', 'sharp'],
+  serverExternalPackages: ['pg', 'nodemailer', 'bcryptjs', 'sharp', 'pdfkit'],
   async headers() {
     const dev = process.env.NODE_ENV !== 'production';
     // Next's App Router writes inline scripts (the RSC payload) without a nonce on static pages,

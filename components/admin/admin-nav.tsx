@@ -8,6 +8,7 @@ const links = [
   { href: '/admin/users', label: 'People' },
   { href: '/admin/units', label: 'Units' },
   { href: '/admin/settings', label: 'Fleet settings' },
+  { href: '/admin/mail', label: 'Sent mail' },
 ];
 
 /** The admin's sections; the current one is marked for sight and for screen readers. */

@@ -9,6 +9,7 @@ import { isTrailerItem } from '@/lib/inspection/build-check';
 import { listDefectSteps } from '@/lib/inspection/walk-progress';
 import { serializeReport, toCanonicalSteps } from '@/lib/reports/canonical-report';
 import type { FinishInspectionBody } from '@/lib/schemas/inspections';
+import { renderOutOfServiceMail } from '@/lib/mail/templates';
 import { deliverOutbox } from './deliver-outbox';
 import { recordAudit } from './record-audit';
 
@@ -101,15 +102,17 @@ export async function finishInspection({ fleetId, actorId, actorName, inspection
         const fleet = await trx.selectFrom('fleet').select(['name', 'maintenanceEmail', 'supervisorEmail']).where('id', '=', fleetId).executeTakeFirstOrThrow();
         const to = [fleet.maintenanceEmail, fleet.supervisorEmail].filter((x): x is string => !!x);
         if (to.length) {
-          const lines = defects.filter((d) => d.severity === 'major').map((d) => `- ${d.description} (${d.zone.replace(/_/g, ' ')})`);
-          const url = `${appUrl}/supervisor/reports/${inspectionId}`;
-          const subject = `OUT OF SERVICE: unit ${outOfService.join(', ')} — major defect on ${inspection.kind === 'pre_trip' ? 'pre-trip' : 'post-trip'}`;
-          const text = [`${fleet.name}`, '', `Unit ${outOfService.join(', ')} is out of service after ${actorName}'s inspection.`, '', 'Major defects:', ...lines, '', `Report: ${url}`, '', 'The unit stays out of service until a mechanic certifies the repair.'].join('\n');
-          const html = `<p><strong>${escapeHtml(fleet.name)}</strong></p><p>Unit <strong>${escapeHtml(outOfService.join(', '))}</strong> is <strong>OUT OF SERVICE</strong> after ${escapeHtml(actorName)}'s inspection.</p><p>Major defects:</p><ul>${defects
-            .filter((d) => d.severity === 'major')
-            .map((d) => `<li>${escapeHtml(d.description)} (${escapeHtml(d.zone.replace(/_/g, ' '))})</li>`)
-            .join('')}</ul><p><a href="${escapeHtml(url)}">Open the report</a></p><p>The unit stays out of service until a mechanic certifies the repair.</p>`;
-          await trx.insertInto('mailOutbox').values({ fleetId, kind: 'out_of_service', toAddresses: to, subject, textBody: text, htmlBody: html }).execute();
+          const inspectionUrl = `${appUrl}/supervisor/reports/${inspectionId}`;
+          for (const [i, unitId] of majorUnits.entries()) {
+            const mail = renderOutOfServiceMail({
+              fleetName: fleet.name,
+              unitNumber: outOfService[i]!,
+              defects: defects.filter((d) => d.unitId === unitId).map((d) => ({ severity: d.severity, description: d.description })),
+              inspectionUrl,
+              driverName: actorName,
+            });
+            await trx.insertInto('mailOutbox').values({ fleetId, kind: 'out_of_service', toAddresses: to, subject: mail.subject, textBody: mail.text, htmlBody: mail.html }).execute();
+          }
         }
       }
       await recordAudit(trx, { fleetId, actorId, action: 'inspection.sign', entity: 'inspection', entityId: inspectionId, detail: { contentHash, defects: defects.length, outOfService } });
@@ -119,6 +122,3 @@ export async function finishInspection({ fleetId, actorId, actorName, inspection
   return result;
 }
 
-function escapeHtml(s: string): string {
-  return s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
-}
