@@ -2,7 +2,7 @@
 
 import { useState, type FormEvent } from 'react';
 import { Field, FormNotice } from '@/components/admin/field';
-import { useHydrated } from '@/components/admin/use-hydrated';
+import { useHydrated } from '@/components/ui/use-hydrated';
 import { fieldsOfZod, firstError, readFailure, type FieldErrors } from '@/components/admin/form-errors';
 import { inputClass, officeButtonClass, panelClass } from '@/components/admin/office-controls';
 import { useInviteUserMutation } from '@/lib/queries/admin';

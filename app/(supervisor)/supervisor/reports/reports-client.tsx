@@ -7,7 +7,7 @@ import { usePathname, useRouter, useSearchParams } from 'next/navigation';
 import { useMemo } from 'react';
 import { formatDateTime, formatDuration, kindLabel } from '@/components/office/format';
 import { MajorMark, MinorMark, PassMark } from '@/components/office/severity-mark';
-import { useHydrated } from '@/components/office/use-hydrated';
+import { useHydrated } from '@/components/ui/use-hydrated';
 import { paramsFromSearch, reportListOptions, toReportSearch, type ReportListParams } from '@/lib/queries/reports';
 import type { ReportRow } from '@/lib/schemas/reports';
 

@@ -4,7 +4,7 @@ import { useQuery } from '@tanstack/react-query';
 import { useState, type FormEvent } from 'react';
 import type { z } from 'zod';
 import { Field, FormNotice } from '@/components/admin/field';
-import { useHydrated } from '@/components/admin/use-hydrated';
+import { useHydrated } from '@/components/ui/use-hydrated';
 import { fieldsOfZod, firstError, numberOrNull, readFailure, type FieldErrors } from '@/components/admin/form-errors';
 import { inputClass, officeButtonClass, panelClass, selectClass } from '@/components/admin/office-controls';
 import { fleetSettingsQuery } from '@/lib/queries/admin';

@@ -4,7 +4,7 @@ import { useQuery } from '@tanstack/react-query';
 import Link from 'next/link';
 import { useState } from 'react';
 import { formatDateTime, kindLabel, zoneLabel } from '@/components/office/format';
-import { useHydrated } from '@/components/office/use-hydrated';
+import { useHydrated } from '@/components/ui/use-hydrated';
 import { SafetyCautions } from '@/components/office/safety-cautions';
 import { PassMark, SeverityMark, UnitStatusBadge } from '@/components/office/severity-mark';
 import { ApiError } from '@/lib/http/fetch-json';

@@ -4,7 +4,7 @@ import { useQuery } from '@tanstack/react-query';
 import Link from 'next/link';
 import { useState } from 'react';
 import { formatDateTime, formatDuration, formatTime, kindLabel } from '@/components/office/format';
-import { useHydrated } from '@/components/office/use-hydrated';
+import { useHydrated } from '@/components/ui/use-hydrated';
 import { MajorMark, MinorMark, PassMark, SeverityMark, UnitStatusBadge } from '@/components/office/severity-mark';
 import { reportDetailOptions, useNotifyShopMutation, useReviewReportMutation } from '@/lib/queries/reports';
 import type { ReportDetail } from '@/lib/services/get-report-detail';
