@@ -3,7 +3,7 @@
 import { useQuery } from '@tanstack/react-query';
 import Link from 'next/link';
 import { formatDateTime } from '@/components/office/format';
-import { useHydrated } from '@/components/office/use-hydrated';
+import { useHydrated } from '@/components/ui/use-hydrated';
 import { buttonClass, cardClass } from '@/components/trainer/controls';
 import { OpenDraftButton } from '@/components/trainer/open-draft-button';
 import { useVersions } from '@/components/trainer/use-draft';

@@ -1,6 +1,7 @@
 'use client';
 
 import { useState } from 'react';
+import { useHydrated } from '@/components/ui/use-hydrated';
 import { buttonClass, cardClass, fieldClass } from '@/components/trainer/controls';
 import { ScoreBar } from '@/components/trainer/score-bar';
 import { useBenchMutation } from '@/lib/queries/vocabulary';
@@ -20,6 +21,7 @@ export function BenchClient() {
   const [zone, setZone] = useState<string>('front');
   const [listening, setListening] = useState(false);
   const bench = useBenchMutation();
+  const hydrated = useHydrated();
   const run = (t = text) => t.trim() && bench.mutate({ text: t.trim(), zone: zone ? (zone as never) : null });
   const speak = () => {
     const Ctor = speechCtor();
@@ -57,7 +59,7 @@ export function BenchClient() {
           </select>
         </label>
         <button type="submit" className={buttonClass('primary')} disabled={!text.trim() || bench.isPending}>Try it</button>
-        {speechCtor() && <button type="button" className={buttonClass()} onClick={speak} disabled={listening}>{listening ? '● listening…' : '🎙 Speak'}</button>}
+        {hydrated && speechCtor() && <button type="button" className={buttonClass()} onClick={speak} disabled={listening}>{listening ? '● Listening…' : '● Speak'}</button>}
       </form>
       {bench.error && <p role="alert" className="font-bold text-major">{bench.error.message}</p>}
       {result && <BenchOutput result={result} />}

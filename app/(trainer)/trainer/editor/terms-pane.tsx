@@ -131,20 +131,20 @@ export function TermsPane({ grammar, edit, onOpenCondition }: { grammar: Grammar
                   {selected.defects.map((d, i) => (
                     <tr key={d.condition} className="border-t border-edge/15 align-top">
                       <td className="py-1 pr-2">
-                        <button type="button" className="font-bold underline-offset-2 hover:underline" onClick={() => onOpenCondition(d.condition)}>
+                        <button type="button" className="text-left font-bold underline-offset-2 hover:underline" onClick={() => onOpenCondition(d.condition)}>
                           {conditionName.get(d.condition) ?? d.condition}
                         </button>
                       </td>
                       {(['us', 'ca'] as const).map((p) => (
                         <td key={p} className="py-1 pr-2">
-                          <select aria-label={`${p === 'us' ? 'US' : 'Canada'} severity of ${conditionName.get(d.condition)}`} className={fieldClass} value={d.severity[p]} onChange={(e) => editComponent((c) => void (c.defects[i]!.severity[p] = e.target.value as 'minor' | 'major'))}>
+                          <select aria-label={`${p === 'us' ? 'US' : 'Canada'} severity of ${conditionName.get(d.condition)}`} className={fieldClass.replace('w-full', 'w-28')} value={d.severity[p]} onChange={(e) => editComponent((c) => void (c.defects[i]!.severity[p] = e.target.value as 'minor' | 'major'))}>
                             <option value="minor">△ minor</option>
-                            <option value="major">■ major (out of service)</option>
+                            <option value="major">■ major</option>
                           </select>
                         </td>
                       ))}
-                      <td className="py-1 pr-2">
-                        <input aria-label={`Source of ${conditionName.get(d.condition)}`} className={fieldClass} value={d.source} onChange={(e) => editComponent((c) => void (c.defects[i]!.source = e.target.value))} />
+                      <td className="w-full py-1 pr-2">
+                        <input title={d.source} aria-label={`Source of ${conditionName.get(d.condition)}`} className={fieldClass} value={d.source} onChange={(e) => editComponent((c) => void (c.defects[i]!.source = e.target.value))} />
                       </td>
                       <td className="py-1">
                         <button type="button" className={buttonClass()} disabled={selected.defects.length <= 1} aria-label={`Remove ${conditionName.get(d.condition)}`} onClick={() => editComponent((c) => void c.defects.splice(i, 1))}>

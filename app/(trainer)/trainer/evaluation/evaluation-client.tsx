@@ -6,19 +6,25 @@ import { buttonClass, cardClass, fieldClass, pct } from '@/components/trainer/co
 import { OpenDraftButton } from '@/components/trainer/open-draft-button';
 import { useVersions } from '@/components/trainer/use-draft';
 import { ApiError } from '@/lib/http/fetch-json';
-import { testSetOptions, useEvaluationMutation, useImportGrammarMutation, usePublishMutation, useSaveTestSetMutation } from '@/lib/queries/vocabulary';
+import { testSetOptions, useEvaluationMutation, useImportGrammarMutation, usePublishMutation, useSaveTestSetMutation, type PublishResult } from '@/lib/queries/vocabulary';
 import type { EvaluationLine, EvaluationReport, Figures } from '@/lib/schemas/vocabulary';
 
 const grammarFiles = ['vocabulary', 'commands', 'positions', 'numbers', 'zones'] as const;
 
 export function EvaluationClient() {
   const { list, draftSummary, publishedSummary } = useVersions();
+  const [published, setPublished] = useState<PublishResult | null>(null);
   if (list.isPending) return <p className="text-muted">Loading…</p>;
   return (
     <div className="space-y-4">
+      {published && (
+        <p role="status" className="rounded-lg border-2 border-pass bg-panel px-4 py-2 text-lg font-bold" data-testid="published-notice">
+          <span className="text-pass">✓</span> Published “{published.version.label}”{published.override ? ' with an override (reason kept in the audit log)' : ''}: top-1 {published.evaluation.figures.top1}/{published.evaluation.figures.total}, top-3 {published.evaluation.figures.top3}/{published.evaluation.figures.total}. New inspections use it from now on.
+        </p>
+      )}
       <TestSetCard />
       {draftSummary ? (
-        <DraftEvaluation key={draftSummary.id} id={draftSummary.id} label={draftSummary.label} />
+        <DraftEvaluation key={draftSummary.id} id={draftSummary.id} label={draftSummary.label} onPublished={setPublished} />
       ) : (
         <div className={`${cardClass} flex items-center gap-3`}>
           <span>No draft is open{publishedSummary ? `; drivers use “${publishedSummary.label}”` : ''}.</span>
@@ -135,7 +141,7 @@ function LineTable({ lines, caption }: { lines: EvaluationLine[]; caption: strin
   );
 }
 
-function DraftEvaluation({ id, label }: { id: string; label: string }) {
+function DraftEvaluation({ id, label, onPublished }: { id: string; label: string; onPublished: (r: PublishResult) => void }) {
   const evaluation = useEvaluationMutation(id);
   const publish = usePublishMutation(id);
   const [reason, setReason] = useState('');
@@ -167,12 +173,7 @@ function DraftEvaluation({ id, label }: { id: string; label: string }) {
       <div className={`${cardClass} space-y-2`} aria-label="Publish">
         <h2 className="text-lg font-extrabold">Publish</h2>
         <p>New inspections use the published version from the moment it is published; inspections already started keep theirs. A published version cannot be changed.</p>
-        {publish.data ? (
-          <p role="status" className="font-bold" data-testid="published-notice">
-            <span className="text-pass">✓</span> Published “{publish.data.version.label}”{publish.data.override ? ' with an override' : ''}: top-1 {publish.data.evaluation.figures.top1}/{publish.data.evaluation.figures.total}.
-          </p>
-        ) : (
-          <>
+        <>
             {needsReason && (
               <label className="block">
                 <span className="block text-sm font-bold">Why publish a draft that scores lower? (kept in the audit log)</span>
@@ -181,18 +182,17 @@ function DraftEvaluation({ id, label }: { id: string; label: string }) {
             )}
             <div className="flex flex-wrap gap-2">
               {needsReason ? (
-                <button type="button" className={buttonClass('danger')} disabled={reason.trim().length < 10 || publish.isPending} onClick={() => publish.mutate({ override: { reason: reason.trim() } })}>
+                <button type="button" className={buttonClass('danger')} disabled={reason.trim().length < 10 || publish.isPending} onClick={() => publish.mutateAsync({ override: { reason: reason.trim() } }).then(onPublished, () => undefined)}>
                   Publish anyway, with this reason
                 </button>
               ) : (
-                <button type="button" className={buttonClass('primary')} disabled={publish.isPending} onClick={() => publish.mutate({})}>
+                <button type="button" className={buttonClass('primary')} disabled={publish.isPending} onClick={() => publish.mutateAsync({}).then(onPublished, () => undefined)}>
                   Publish the draft
                 </button>
               )}
             </div>
             {publish.error && <p role="alert" className="text-sm font-bold text-major">{publish.error.message}</p>}
-          </>
-        )}
+        </>
       </div>
     </section>
   );

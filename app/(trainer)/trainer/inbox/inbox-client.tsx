@@ -3,7 +3,7 @@
 import { useQuery } from '@tanstack/react-query';
 import { useMemo, useState } from 'react';
 import { formatDateTime } from '@/components/office/format';
-import { useHydrated } from '@/components/office/use-hydrated';
+import { useHydrated } from '@/components/ui/use-hydrated';
 import { buttonClass, cardClass, chipClass, fieldClass } from '@/components/trainer/controls';
 import { OpenDraftButton } from '@/components/trainer/open-draft-button';
 import { useVersions } from '@/components/trainer/use-draft';
@@ -92,7 +92,10 @@ function InboxGroup({ group, draftId, terms, onAdded }: { group: FieldUtteranceG
                 type="button"
                 className={buttonClass('primary')}
                 disabled={!draftId || !termKey || add.isPending}
-                onClick={() => termKey && add.mutate({ termKey, text: group.text, utteranceIds: group.ids }, { onSuccess: onAdded })}
+                onClick={() => {
+                  // The group leaves the list once resolved, so the notice is raised by the list.
+                  if (termKey) add.mutateAsync({ termKey, text: group.text, utteranceIds: group.ids }).then(onAdded, () => undefined);
+                }}
               >
                 Add as phrase of {termKey ? term : 'this term'}
               </button>
