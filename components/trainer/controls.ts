@@ -1,7 +1,7 @@
 // Dense office controls for the trainer screens (same palette and type as the rest).
 
 export const buttonClass = (tone: 'primary' | 'plain' | 'danger' = 'plain') =>
-  `inline-flex min-h-10 items-center justify-center gap-2 rounded-md border-2 border-edge px-3 py-1.5 text-base font-bold disabled:opacity-50 ${
+  `inline-flex min-h-10 shrink-0 items-center whitespace-nowrap justify-center gap-2 rounded-md border-2 border-edge px-3 py-1.5 text-base font-bold disabled:opacity-50 ${
     tone === 'primary' ? 'bg-vest text-on-vest' : tone === 'danger' ? 'bg-major text-on-major' : 'bg-panel text-ink hover:bg-ground'
   }`;
 

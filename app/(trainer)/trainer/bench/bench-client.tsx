@@ -47,7 +47,7 @@ export function BenchClient() {
           run();
         }}
       >
-        <label className="min-w-[20rem] grow">
+        <label className="min-w-0 basis-full sm:min-w-[20rem] sm:basis-auto sm:grow">
           <span className="block text-sm font-bold">Utterance, as a driver would say it</span>
           <input className={fieldClass} value={text} onChange={(e) => setText(e.target.value)} placeholder="e.g. bubble on the passenger steer tyre" maxLength={400} />
         </label>

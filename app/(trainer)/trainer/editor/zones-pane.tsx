@@ -67,7 +67,7 @@ export function ZonesPane({ grammar, edit }: { grammar: Grammar; edit: EditFn })
                         <button type="button" aria-label={`Move ${item.label} up`} className="px-1" onClick={() => edit((g) => move(g.zones.zones[zoneIndex]!.items, i, items[n - 1]?.i ?? -1))}>↑</button>
                         <button type="button" aria-label={`Move ${item.label} down`} className="px-1" onClick={() => edit((g) => move(g.zones.zones[zoneIndex]!.items, i, items[n + 1]?.i ?? -1))}>↓</button>
                       </td>
-                      <td className="py-1 pr-2">
+                      <td className="w-1/2 py-1 pr-2">
                         <input aria-label={`Label of ${item.id}`} className={fieldClass} value={item.label} onChange={(e) => edit((g) => void (g.zones.zones[zoneIndex]!.items[i]!.label = e.target.value))} />
                       </td>
                       <td className="py-1 pr-2">
