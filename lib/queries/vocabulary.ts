@@ -35,7 +35,7 @@ export function useOpenDraftMutation() {
 export function useSaveDraftMutation(id: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: { grammar: Grammar; label?: string }) => fetchJson<VersionDetail>(`/api/vocabulary/versions/${id}`, { method: 'PUT', json: body }),
+    mutationFn: (body: { grammar: Grammar; label?: string; baseUpdatedAt?: string }) => fetchJson<VersionDetail>(`/api/vocabulary/versions/${id}`, { method: 'PUT', json: body }),
     onSuccess: (v) => {
       qc.setQueryData(vocabularyKeys.version(id), v);
       return qc.invalidateQueries({ queryKey: vocabularyKeys.versions() });

@@ -32,7 +32,12 @@ export const createVersionBodySchema = z.object({
 });
 export type CreateVersionBody = z.infer<typeof createVersionBodySchema>;
 
-export const updateDraftBodySchema = z.object({ grammar: checkedGrammarSchema, label: z.string().trim().min(1).max(60).optional() });
+export const updateDraftBodySchema = z.object({
+  grammar: checkedGrammarSchema,
+  label: z.string().trim().min(1).max(60).optional(),
+  /** The draft's updatedAt when the editor loaded it: a save over someone else's newer save is refused (409). */
+  baseUpdatedAt: z.iso.datetime({ offset: true }).optional(),
+});
 export type UpdateDraftBody = z.infer<typeof updateDraftBodySchema>;
 
 export const addPhraseBodySchema = z.object({

@@ -238,6 +238,17 @@ describe('export and import in the grammars/ format', () => {
     expect(notAGrammar.status).toBe(422);
   });
 
+  it('a save over someone else’s newer save of the draft is refused', async () => {
+    const draft = await openDraft();
+    const put = (baseUpdatedAt: string) => callRoute(version.PUT, makeRequest(`/api/vocabulary/versions/${draft.id}`, asTrainer({ method: 'PUT', json: { grammar: draft.grammar, baseUpdatedAt } })), { id: draft.id });
+    const first = await put(draft.updatedAt);
+    expect(first.status, await first.clone().text()).toBe(200);
+    const stale = await put(draft.updatedAt);
+    expect(stale.status).toBe(409);
+    expect((await stale.json()).error.message).toMatch(/someone else/);
+    expect((await put((await first.json()).updatedAt)).status).toBe(200);
+  });
+
   it("another fleet's version is 404", async () => {
     const other = await makeFleetFixture(db, 'Other vocabulary fleet');
     const theirs: VersionDetail = await (await callRoute(versions.POST, makeRequest('/api/vocabulary/versions', { method: 'POST', cookie: other.cookies.trainer, json: {} }))).json();

@@ -70,25 +70,25 @@ export function BenchClient() {
 function BenchOutput({ result }: { result: BenchResult }) {
   return (
     <div className="space-y-3">
-      <dl className={`${cardClass} grid grid-cols-[10rem_1fr] gap-x-4 gap-y-1`}>
+      <dl className={`${cardClass} grid grid-cols-[auto_1fr] gap-x-4 gap-y-1`}>
         <dt className="font-bold">Normalised</dt>
         <dd data-testid="bench-normalized"><code>{result.normalized || '—'}</code></dd>
         <dt className="font-bold">Numbers found</dt>
         <dd>{result.numbers.length ? result.numbers.map((n, i) => <span key={i} className="mr-3 tabular-nums">“{n.words}” → <b>{n.value}</b> {n.unit ?? '(no unit)'}</span>) : 'none'}</dd>
       </dl>
       <div className="grid gap-3 md:grid-cols-2">
-        <MatchColumn title="Draft" side={result.draft} testId="bench-draft" />
-        <MatchColumn title="Published (drivers use it now)" side={result.published} testId="bench-published" />
+        <MatchColumn title="Draft" side={result.draft} testId="bench-draft" empty="No draft is open." />
+        <MatchColumn title="Published (drivers use it now)" side={result.published} testId="bench-published" empty="Nothing published: drivers use the built-in vocabulary." />
       </div>
     </div>
   );
 }
 
-function MatchColumn({ title, side, testId }: { title: string; side: BenchResult['draft']; testId: string }) {
+function MatchColumn({ title, side, testId, empty }: { title: string; side: BenchResult['draft']; testId: string; empty: string }) {
   return (
     <section className={cardClass} data-testid={testId} aria-label={title}>
       <h2 className="text-lg font-extrabold">{title}</h2>
-      {!side ? <p className="text-muted">No such version.</p> : <RankedMatches label={side.label} match={side.match} />}
+      {!side ? <p className="text-muted">{empty}</p> : <RankedMatches label={side.label} match={side.match} />}
     </section>
   );
 }

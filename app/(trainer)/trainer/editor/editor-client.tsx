@@ -77,7 +77,7 @@ function DraftEditor({ id, label, saved, updatedAt }: { id: string; label: strin
         >
           Discard
         </button>
-        <button type="button" className={buttonClass('primary')} disabled={!dirty || save.isPending || problems.length > 0} onClick={() => save.mutate({ grammar }, { onSuccess: () => setDirty(false) })}>
+        <button type="button" className={buttonClass('primary')} disabled={!dirty || save.isPending || problems.length > 0} onClick={() => save.mutateAsync({ grammar, baseUpdatedAt: updatedAt }).then(() => setDirty(false), () => undefined)}>
           Save draft
         </button>
       </div>
