@@ -13,6 +13,7 @@ import { spawn, type ChildProcess } from 'node:child_process';
 import { randomUUID } from 'node:crypto';
 import fs from 'node:fs';
 import net from 'node:net';
+import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import autocannon from 'autocannon';
@@ -34,7 +35,7 @@ const flag = (name: string, fallback: number) => {
 const asJson = args.includes('--json');
 const DRIVERS = flag('drivers', 100);
 const STEPS = flag('steps', 60);
-const RATE = flag('rate', 200);
+const RATE = flag('rate', 100);
 const REPLAY_SHARE = 0.1;
 const TIME_LIMIT_S = flag('time-limit', 150);
 const log = (msg: string) => {
@@ -85,14 +86,47 @@ function freePort(): Promise<number> {
 }
 
 let app: ChildProcess | null = null;
+const helpers: ChildProcess[] = [];
 function stopApp() {
-  if (app?.pid && app.exitCode === null) {
-    try {
-      process.kill(-app.pid, 'SIGTERM');
-    } catch {
-      /* gone */
+  for (const child of [app, ...helpers]) {
+    if (child?.pid && child.exitCode === null) {
+      try {
+        process.kill(-child.pid, 'SIGTERM');
+      } catch {
+        /* gone */
+      }
     }
   }
+}
+
+async function waitForPort(port: number, what: string) {
+  const until = Date.now() + 20_000;
+  while (Date.now() < until) {
+    const open = await new Promise<boolean>((resolve) => {
+      const sock = net.connect({ port, host: '127.0.0.1' });
+      sock.once('connect', () => (sock.destroy(), resolve(true)));
+      sock.once('error', () => resolve(false));
+    });
+    if (open) return;
+    await new Promise((r) => setTimeout(r, 150));
+  }
+  throw new Error(`${what} did not open port ${port}`);
+}
+
+/** An object store and a mail catcher of the bench's own, so that no other run can stop them under it. */
+async function startFakes(): Promise<Record<string, string>> {
+  const [s3, smtp, mailHttp] = [await freePort(), await freePort(), await freePort()];
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'rigcall-bench-'));
+  const spawnHelper = (script: string, args: string[]) => {
+    const child = spawn(process.execPath, [script, ...args], { cwd: root, detached: true, stdio: 'ignore' });
+    helpers.push(child);
+  };
+  spawnHelper('scripts/object-store.mjs', ['--port', String(s3), '--dir', path.join(dir, 's3'), '--bucket', 'rigcall']);
+  spawnHelper('scripts/mail-catcher.mjs', ['--smtp', String(smtp), '--http', String(mailHttp), '--dir', path.join(dir, 'mail')]);
+  await waitForPort(s3, 'the object store');
+  await waitForPort(smtp, 'the mail catcher');
+  process.on('exit', () => fs.rmSync(dir, { recursive: true, force: true }));
+  return { S3_ENDPOINT: `http://127.0.0.1:${s3}`, S3_BUCKET: 'rigcall', S3_FORCE_PATH_STYLE: 'true', SMTP_URL: `smtp://127.0.0.1:${smtp}`, MAIL_CATCHER_URL: `http://127.0.0.1:${mailHttp}` };
 }
 process.on('exit', stopApp);
 
@@ -106,9 +140,10 @@ function runBuildIfMissing(env: NodeJS.ProcessEnv) {
 }
 
 async function startApp(databaseUrl: string): Promise<string> {
+  const fakes = await startFakes();
   const port = await freePort();
   const base = `http://127.0.0.1:${port}`;
-  const env = { ...process.env, DATABASE_URL: databaseUrl, NEXTAUTH_URL: base, APP_PORT: String(port), NODE_ENV: 'production' as const };
+  const env = { ...process.env, ...fakes, DATABASE_URL: databaseUrl, NEXTAUTH_URL: base, APP_PORT: String(port), NODE_ENV: 'production' as const };
   await runBuildIfMissing(env);
   fs.mkdirSync(path.join(root, '.data', 'logs'), { recursive: true });
   const out = fs.openSync(path.join(root, '.data', 'logs', 'bench-load-app.log'), 'w');
@@ -187,48 +222,55 @@ async function main() {
     if (res.status !== 201) note('start', res.status, await res.text());
   });
 
-  // The steps: one autocannon connection per driver, STEPS requests each.
-  let nextDriver = 0;
+  // The steps: GROUPS autocannon instances, each with one connection per driver of its group;
+  // a connection walks its driver's STEPS requests in order (autocannon keeps a connection's
+  // context through its request list, and maxConnectionRequests stops it at the end of it).
+  // The groups start apart, so that the drivers' once-a-second rate budgets (autocannon's rate
+  // limit is a per-second budget per connection) do not all renew at the same instant.
   const latencies: number[] = [];
   const statuses = new Map<number, number>();
-  let resolveRun: (r: autocannon.Result) => void = () => {};
-  let rejectRun: (e: unknown) => void = () => {};
-  const finished = new Promise<autocannon.Result>((resolve, reject) => {
-    resolveRun = resolve;
-    rejectRun = reject;
-  });
-  const instance = autocannon({
-    url: base,
-    connections: DRIVERS,
-    pipelining: 1,
-    maxConnectionRequests: STEPS,
-    ...(RATE > 0 ? { overallRate: RATE } : {}),
-    timeout: 10,
-    duration: TIME_LIMIT_S,
-    initialContext: {},
-    // One entry per step: autocannon keeps a connection's context through its request list and
-    // resets it only when the list starts over, which maxConnectionRequests never lets happen.
-    requests: Array.from({ length: STEPS }, (_x, n) => ({
-      method: 'POST' as const,
-      setupRequest: (req: autocannon.Request, context: Record<string, unknown>) => {
-        const ctx = context as { driver?: Driver };
-        ctx.driver ??= drivers[nextDriver++ % drivers.length]!;
-        const d = ctx.driver;
-        const id = randomUUID();
-        const body = JSON.stringify({ id, ...stepBody(n) });
-        d.sent.push({ id, body });
-        return { ...req, method: 'POST' as const, path: `/api/inspections/${d.inspectionId}/steps`, headers: headers(d), body };
-      },
-    })) as unknown as autocannon.Request[],
-  }, (err, res) => (err ? rejectRun(err) : resolveRun(res)));
-  instance.on('response', (_client: unknown, statusCode: number, _bytes: number, responseTime: number) => {
-    latencies.push(responseTime);
-    statuses.set(statusCode, (statuses.get(statusCode) ?? 0) + 1);
-  });
-  if (!asJson) autocannon.track(instance, { renderProgressBar: false, renderResultsTable: false, renderLatencyTable: false });
-  const result = await finished;
-  const stepSeconds = result.duration;
-  log(`steps phase: ${result.requests.total} requests in ${stepSeconds.toFixed(1)} s; statuses ${JSON.stringify(Object.fromEntries(statuses))}`);
+  const perDriverRate = RATE > 0 ? RATE / DRIVERS : 0;
+  const GROUPS = Math.min(10, DRIVERS);
+  const stepsStarted = Date.now();
+  const runGroup = (group: Driver[]) =>
+    new Promise<autocannon.Result>((resolve, reject) => {
+      let next = 0;
+      const requests = Array.from({ length: STEPS }, (_x, n) => ({
+        method: 'POST' as const,
+        setupRequest: (req: autocannon.Request, context: Record<string, unknown>) => {
+          const ctx = context as { driver?: Driver };
+          ctx.driver ??= group[next++ % group.length]!;
+          const d = ctx.driver;
+          const id = randomUUID();
+          const body = JSON.stringify({ id, ...stepBody(n) });
+          d.sent.push({ id, body });
+          return { ...req, method: 'POST' as const, path: `/api/inspections/${d.inspectionId}/steps`, headers: headers(d), body };
+        },
+      })) as unknown as autocannon.Request[];
+      const instance = autocannon(
+        {
+          url: base,
+          connections: group.length,
+          pipelining: 1,
+          maxConnectionRequests: STEPS,
+          ...(perDriverRate > 0 ? { connectionRate: perDriverRate } : {}),
+          timeout: 10,
+          duration: TIME_LIMIT_S,
+          initialContext: {},
+          requests,
+        },
+        (err, res) => (err ? reject(err) : resolve(res)),
+      );
+      instance.on('response', (_client: unknown, statusCode: number, _bytes: number, responseTime: number) => {
+        latencies.push(responseTime);
+        statuses.set(statusCode, (statuses.get(statusCode) ?? 0) + 1);
+      });
+    });
+  const groups = Array.from({ length: GROUPS }, (_x, g) => drivers.filter((_d, i) => i % GROUPS === g));
+  const results = await Promise.all(groups.map((group, g) => new Promise<void>((r) => setTimeout(r, (g * 1000) / GROUPS)).then(() => runGroup(group))));
+  const stepSeconds = (Date.now() - stepsStarted) / 1000;
+  const result = { errors: results.reduce((a, r) => a + r.errors, 0), timeouts: results.reduce((a, r) => a + r.timeouts, 0), total: results.reduce((a, r) => a + r.requests.total, 0) };
+  log(`steps phase: ${result.total} requests in ${stepSeconds.toFixed(1)} s; statuses ${JSON.stringify(Object.fromEntries(statuses))}`);
 
   // Replays: a share of every driver's steps sent again, as after a reconnect.
   let replayErrors = 0;
