@@ -222,6 +222,21 @@ async function main() {
     if (res.status !== 201) note('start', res.status, await res.text());
   });
 
+  // Warm-up, not counted: a fresh server compiles and optimises on its first requests.
+  {
+    const warm = await db.insertInto('appUser').values({ fleetId: fleet.id, email: `warm-${fleet.slug}@load.example`, name: 'Warm Up', passwordHash, roles: ['driver'], active: true }).returning(['id']).executeTakeFirstOrThrow();
+    const tractor = await makeUnit(db, { fleetId: fleet.id, kind: 'tractor' });
+    const token = await encode({ secret, token: { uid: warm.id, name: 'Warm Up', email: 'warm@load.example', fleetId: fleet.id, roles: ['driver'], sub: warm.id } as never });
+    const w: Driver = { id: warm.id, name: 'Warm Up', cookie: `next-auth.session-token=${token}`, tractorId: tractor.id, inspectionId: randomUUID(), sent: [] };
+    await fetch(`${base}/api/inspections`, { method: 'POST', headers: headers(w), body: JSON.stringify({ id: w.inspectionId, kind: 'pre_trip', tractorId: w.tractorId, trailerId: null, odometer: 1, startedAt: new Date().toISOString() }) });
+    let n = 0;
+    await pool(Array.from({ length: 300 }, (_x, i) => i), 4, async () => {
+      const res = await fetch(`${base}/api/inspections/${w.inspectionId}/steps`, { method: 'POST', headers: headers(w), body: JSON.stringify({ id: randomUUID(), ...stepBody(n++ % STEPS), seq: n }) });
+      await res.arrayBuffer();
+    });
+    log('warmed up with 300 steps on a walk of its own');
+  }
+
   // The steps: GROUPS autocannon instances, each with one connection per driver of its group;
   // a connection walks its driver's STEPS requests in order (autocannon keeps a connection's
   // context through its request list, and maxConnectionRequests stops it at the end of it).
