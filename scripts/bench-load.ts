@@ -37,6 +37,10 @@ const DRIVERS = flag('drivers', 100);
 const STEPS = flag('steps', 60);
 const RATE = flag('rate', 100);
 const REPLAY_SHARE = 0.1;
+if (RATE > 0 && RATE < DRIVERS) {
+  console.error(`[bench:load] --rate ${RATE} is below one step per second per driver, the slowest autocannon paces a connection; use at least ${DRIVERS}, or 0 for no cap`);
+  process.exit(2);
+}
 const TIME_LIMIT_S = flag('time-limit', 150);
 const log = (msg: string) => {
   if (!asJson) console.log(`[bench:load] ${msg}`);

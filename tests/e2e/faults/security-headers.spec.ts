@@ -44,3 +44,22 @@ test('the pages run under the policy: no violations on sign-in and the driver ho
   expect(font).toBe(true);
   expect(violations).toEqual([]);
 });
+
+test('the running app locks an account after repeated wrong passwords, even for the right one', async ({ request }) => {
+  const { createDb } = await import('../../../db/connect');
+  const { makeUser } = await import('../../../db/factories');
+  const db = createDb(process.env.DATABASE_URL ?? '', 1);
+  const fleet = await db.selectFrom('fleet').select('id').where('slug', '=', 'northbank').executeTakeFirstOrThrow();
+  const email = `locked-${Date.now().toString(36)}@northbank.example`;
+  await makeUser(db, { fleetId: fleet.id, roles: ['driver'], email, password: demoPassword });
+  await db.destroy();
+
+  const attempt = async (password: string) => {
+    const { csrfToken } = (await (await request.get('/api/auth/csrf')).json()) as { csrfToken: string };
+    const res = await request.post('/api/auth/callback/credentials', { form: { email, password, csrfToken, json: 'true' }, maxRedirects: 0 });
+    const body = (await res.json().catch(() => ({}))) as { url?: string };
+    return new URL(body.url ?? res.headers().location ?? 'http://x/').searchParams.get('error');
+  };
+  for (let i = 0; i < 5; i++) expect(await attempt('wrong-password')).toBe('CredentialsSignin');
+  expect(await attempt(demoPassword)).toMatch(/Too many failed sign-ins/);
+});
