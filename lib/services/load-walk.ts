@@ -1,5 +1,4 @@
 import 'server-only';
-import zonesGrammar from '@/grammars/zones.json' with { type: 'json' };
 import type { DB } from '@/lib/db';
 import { findFleetSettings } from '@/lib/db/fleets';
 import { listInspectionSteps } from '@/lib/db/inspections';
@@ -7,7 +6,6 @@ import { findFleetUnit } from '@/lib/db/units';
 import { findVocabularyVersion, getDefaultGrammar } from '@/lib/db/vocabulary';
 import type { WalkStep } from '@/lib/inspection/store';
 import { listWalkZones } from '@/lib/matcher';
-import type { Zones } from '@/lib/schemas/grammar';
 import { z } from 'zod';
 import { loadCheckContext } from './record-step';
 
@@ -32,7 +30,9 @@ export async function loadWalkOrNull(db: DB, { fleetId, driverId, inspectionId }
     // The grammar of the version the inspection started with (read as text: see findVocabularyVersion).
     inspection.vocabularyVersionId ? findVocabularyVersion(db, { fleetId, id: inspection.vocabularyVersionId }) : Promise.resolve(undefined),
   ]);
-  const zones = listWalkZones(zonesGrammar as Zones, inspection.trailerId ? 'tractor_trailer' : 'bobtail').filter(
+  const grammar = version?.grammar ?? getDefaultGrammar();
+  // The version's own zone checklists (a trainer may have changed them).
+  const zones = listWalkZones(grammar.zones, inspection.trailerId ? 'tractor_trailer' : 'bobtail').filter(
     // Air-brake tests belong to the pre-trip; a post-trip walk ends in the cab.
     (zone) => inspection.kind === 'pre_trip' || zone.id !== 'air_brake_tests',
   );
@@ -66,7 +66,7 @@ export async function loadWalkOrNull(db: DB, { fleetId, driverId, inspectionId }
     zones,
     context,
     serverSteps,
-    grammar: version?.grammar ?? getDefaultGrammar(),
+    grammar,
   };
 }
 

@@ -1,5 +1,4 @@
 import 'server-only';
-import zonesGrammar from '@/grammars/zones.json' with { type: 'json' };
 import { getDb, type DB } from '@/lib/db';
 import { findFleetSettings } from '@/lib/db/fleets';
 import { findInspectionForUpdate, findStep, stepColumns } from '@/lib/db/inspections';
@@ -11,10 +10,10 @@ import type { Zones } from '@/lib/schemas/grammar';
 import type { recordStepBodySchema } from '@/lib/schemas/inspections';
 import type { z } from 'zod';
 import { recordAudit } from './record-audit';
-import { loadVocabulary, resolveTerm } from './resolve-vocabulary';
+import { loadGrammar, resolveTerm } from './resolve-vocabulary';
 
 type Body = z.output<typeof recordStepBodySchema>;
-const items = new Map((zonesGrammar as unknown as Zones).zones.flatMap((z) => z.items.map((i) => [i.id, i] as const)));
+const itemsOf = (zones: Zones) => new Map(zones.zones.flatMap((z) => z.items.map((i) => [i.id, i] as const)));
 
 /** What the rules need about the units of this inspection. */
 export async function loadCheckContext(db: DB, i: { fleetId: string; tractorId: string; trailerId: string | null }): Promise<CheckContext> {
@@ -71,8 +70,9 @@ async function writeStep({ fleetId, actorId, inspectionId, body }: { fleetId: st
       let value: number | null = null;
       let unit: string | null = null;
 
+      const grammar = await loadGrammar(trx, inspection.vocabularyVersionId);
       if (body.termKey) {
-        const vocab = await loadVocabulary(trx, inspection.vocabularyVersionId);
+        const vocab = grammar.vocabulary;
         const term = resolveTerm(vocab, body.termKey, inspection.ruleProfile);
         if (!term) throw new AppError('invalid_body', `“${body.termKey}” is not in this inspection’s vocabulary.`, { termKey: ['not in the vocabulary'] });
         component = term.component;
@@ -83,10 +83,10 @@ async function writeStep({ fleetId, actorId, inspectionId, body }: { fleetId: st
         }
       }
       if (body.kind === 'measurement' && body.reading && body.item) {
-        const item = items.get(body.item);
+        const item = itemsOf(grammar.zones).get(body.item);
         if (!item?.measure) throw new AppError('invalid_body', `“${body.item}” is not a checklist item that takes a reading.`, { item: ['not a measured item'] });
         measurementKind = item.measure;
-        component = (await loadVocabulary(trx, inspection.vocabularyVersionId)).components.find((c) => c.id === item.component)?.name ?? item.label;
+        component = grammar.vocabulary.components.find((c) => c.id === item.component)?.name ?? item.label;
         value = body.reading.value;
         unit = measureUnit[item.measure];
         const input = buildCheckInput(item, body.reading, await loadCheckContext(trx, inspection));

@@ -1,24 +1,31 @@
 import 'server-only';
 import { sql } from 'kysely';
-import defaultVocabulary from '@/grammars/vocabulary.json' with { type: 'json' };
 import type { DB } from '@/lib/db';
+import { getDefaultGrammar, toFullGrammar } from '@/lib/db/vocabulary';
 import { getFindingSeverity } from '@/lib/rules';
-import { vocabularySchema, type Vocabulary } from '@/lib/schemas/grammar';
+import type { Grammar, Vocabulary } from '@/lib/schemas/grammar';
 
-const cache = new Map<string, Vocabulary>();
-const fallback = vocabularySchema.parse(defaultVocabulary);
+const cache = new Map<string, Grammar>();
 
-/** The vocabulary an inspection was started with (published versions never change, so they are cached). */
-export async function loadVocabulary(db: DB, versionId: string | null): Promise<Vocabulary> {
-  if (!versionId) return fallback;
+/** The whole grammar an inspection was started with (published versions never change, so they are cached). */
+export async function loadGrammar(db: DB, versionId: string | null): Promise<Grammar> {
+  if (!versionId) return getDefaultGrammar();
   const hit = cache.get(versionId);
   if (hit) return hit;
   const row = await db.selectFrom('vocabularyVersion').select(['status', sql<string>`grammar::text`.as('grammarText')]).where('id', '=', versionId).executeTakeFirst();
-  const raw = row ? (JSON.parse(row.grammarText) as { vocabulary?: unknown } | null) : null;
-  const parsed = vocabularySchema.safeParse(raw && typeof raw === 'object' && 'vocabulary' in raw ? raw.vocabulary : raw);
-  const vocab = parsed.success ? parsed.data : fallback;
-  if (row?.status === 'published') cache.set(versionId, vocab);
-  return vocab;
+  let grammar: Grammar;
+  try {
+    grammar = row ? toFullGrammar(JSON.parse(row.grammarText)) : getDefaultGrammar();
+  } catch {
+    grammar = getDefaultGrammar();
+  }
+  if (row?.status === 'published') cache.set(versionId, grammar);
+  return grammar;
+}
+
+/** The vocabulary part of an inspection's grammar. */
+export async function loadVocabulary(db: DB, versionId: string | null): Promise<Vocabulary> {
+  return (await loadGrammar(db, versionId)).vocabulary;
 }
 
 export type ResolvedTerm = { componentId: string; component: string; condition: string; severity: 'minor' | 'major'; source: string | null };

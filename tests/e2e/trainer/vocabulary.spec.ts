@@ -46,7 +46,7 @@ test('a trainer turns a field utterance into a synonym, evaluates, publishes; th
   await group.getByLabel(/Term for/).fill('mud flap, loose');
   await shot(page, 'trainer-inbox');
   await group.getByRole('button', { name: 'Add as phrase of mud flap, loose' }).click();
-  await expect(page.getByTestId('phrase-added')).toContainText('The draft now reads it as mud flap, loose');
+  await expect(page.getByTestId('phrase-added')).toContainText('The draft now reads it as mud flap, loose', { timeout: 15_000 });
   await expect(page.getByTestId('inbox-group').filter({ hasText: heard })).toHaveCount(0);
 
   // Test bench: the draft reads it, the published version does not.
@@ -71,11 +71,11 @@ test('a trainer turns a field utterance into a synonym, evaluates, publishes; th
   // Evaluation, then publish.
   await page.getByRole('link', { name: 'Evaluate & publish' }).click();
   await page.getByRole('button', { name: 'Run the evaluation' }).click();
-  await expect(page.getByTestId('evaluation-draft')).toContainText('top-1');
+  await expect(page.getByTestId('evaluation-draft')).toContainText('top-1', { timeout: 30_000 }); // two versions over the whole labelled set
   await expect(page.getByTestId('evaluation-difference')).toContainText('±0 top-1');
   await shot(page, 'trainer-evaluation');
   await page.getByRole('button', { name: 'Publish the draft' }).click();
-  await expect(page.getByTestId('published-notice')).toContainText('Published');
+  await expect(page.getByTestId('published-notice')).toContainText('Published', { timeout: 30_000 });
   const published = await db.selectFrom('vocabularyVersion').select(['id', 'label']).where('fleetId', '=', fleet.id).where('status', '=', 'published').orderBy('publishedAt', 'desc').executeTakeFirstOrThrow();
   expect(await db.selectFrom('vocabularyVersion').select('id').where('fleetId', '=', fleet.id).where('status', '=', 'draft').execute()).toEqual([]);
 

@@ -3,7 +3,6 @@
 import Link from 'next/link';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { useStore } from 'zustand';
-import vocabulary from '@/grammars/vocabulary.json' with { type: 'json' };
 import { SlabButton, slabClass } from '@/components/ui/slab-button';
 import { buildCheckInput, measureUnit, type CheckContext } from '@/lib/inspection/build-check';
 import { enqueueRequest } from '@/lib/inspection/device-queue';
@@ -31,11 +30,12 @@ type Props = {
   driverName: string;
 };
 
-const vocab = vocabulary as unknown as Vocabulary;
-const conditionName = new Map(vocab.conditions.map((c) => [c.id, c.name]));
-const componentById = new Map(vocab.components.map((c) => [c.id, c]));
 const profileKey = (p: string) => (p.startsWith('ca') ? 'ca' : 'us');
 const certification = 'I performed this inspection and the report lists every defect I found or that was reported to me.';
+
+function namesOf(vocab: Vocabulary) {
+  return { conditionName: new Map(vocab.conditions.map((c) => [c.id, c.name])), componentById: new Map(vocab.components.map((c) => [c.id, c])) };
+}
 
 export function WalkClient(props: Props) {
   const { inspection, zones, context } = props;
@@ -58,6 +58,8 @@ export function WalkClient(props: Props) {
   const photoInput = useRef<HTMLInputElement>(null);
   const zone = zones[zoneIndex]!;
   const matcher = useMemo(() => createMatcher(props.grammar), [props.grammar]);
+  // Words for taps and read-backs come from the same version the matcher uses.
+  const { conditionName, componentById } = useMemo(() => namesOf(props.grammar.vocabulary), [props.grammar]);
 
   const answers = useMemo(() => mapItemAnswers(zones, steps), [zones, steps]);
   const visited = useMemo(() => listVisitedZones(steps), [steps]);
