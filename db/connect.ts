@@ -13,8 +13,12 @@ export type DB = Kysely<Database>;
  * tools (migrate, seed, benchmarks) and the tests make their own, one per process.
  */
 export function createDb(connectionString: string, max = 10): DB {
+  const pool = new pg.Pool({ connectionString, max });
+  // An idle connection dropped by the server (a restart) must not crash the process; the next
+  // query opens a new one.
+  pool.on('error', (err) => console.error('[rigcall] database connection lost:', err.message));
   return new Kysely<Database>({
-    dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString, max }) }),
+    dialect: new PostgresDialect({ pool }),
     // Nested keys too: relations built with jsonArrayFrom come back camel-cased like top-level
     // columns. A jsonb document whose keys must stay as written (a grammar) is read as text.
     plugins: [new CamelCasePlugin({ maintainNestedObjectKeys: false })],

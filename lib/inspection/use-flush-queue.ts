@@ -25,8 +25,9 @@ export function useFlushQueue(): QueueStatus & { flushNow: () => void } {
         setStatus((s) => ({
           pending: items.filter((i) => i.state === 'pending').length,
           failed: items.filter((i) => i.state === 'failed'),
-          offline: out.offline || (typeof navigator !== 'undefined' && navigator.onLine === false),
-          serverAway: !!out.lastError && !out.offline,
+          // No answer while the phone has a network means the server is away, not the signal.
+          offline: typeof navigator !== 'undefined' && navigator.onLine === false,
+          serverAway: !!out.lastError && (out.offline ? navigator.onLine !== false : true),
           lastError: out.lastError,
           lastSentAt: out.sent > 0 ? Date.now() : s.lastSentAt,
         }));

@@ -52,9 +52,11 @@ async function writeStep({ fleetId, actorId, inspectionId, body }: { fleetId: st
       const inspection = await findInspectionForUpdate(trx, { fleetId, id: inspectionId });
       if (!inspection) throw new AppError('not_found', 'No such inspection in your fleet.');
       if (inspection.driverId !== actorId) throw new AppError('forbidden', 'Only the driver who started this inspection records its steps.');
-      const already = await findStep(trx, { inspectionId, id: body.id });
-      if (already) return { step: already, created: false };
-      if (inspection.status === 'submitted') return { refused: true as const };
+      if (inspection.status === 'submitted') {
+        // A replay of a step the report already holds is harmless; anything new is refused.
+        const already = await findStep(trx, { inspectionId, id: body.id });
+        return already ? { step: already, created: false } : { refused: true as const };
+      }
       if (body.undoesStepId) {
         const target = await findStep(trx, { inspectionId, id: body.undoesStepId });
         if (!target) throw new AppError('invalid_body', 'The step to take back is not part of this inspection.', { undoesStepId: ['not part of this inspection'] });
@@ -143,7 +145,10 @@ async function writeStep({ fleetId, actorId, inspectionId, body }: { fleetId: st
             .execute();
         }
       }
-      // A concurrent replay of the same id won the insert: return what it recorded.
-      return { step: step ?? (await findStep(trx, { inspectionId, id: body.id }))!, created: !!step };
+      if (step) return { step, created: true };
+      // Sent before (a replay after a reconnect): return what was recorded the first time.
+      const recorded = await findStep(trx, { inspectionId, id: body.id });
+      if (!recorded) throw new AppError('conflict', 'That step id is already used by another inspection.');
+      return { step: recorded, created: false };
     });
 }

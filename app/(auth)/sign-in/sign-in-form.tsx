@@ -25,7 +25,8 @@ export function SignInForm({ next }: { next: string }) {
         window.location.assign(next);
         return;
       }
-      setError('That e-mail and password do not match an active account. Check both and try again.');
+      // A lock-out says so (and for how long); anything else is the same plain refusal.
+      setError(res?.error && /too many/i.test(res.error) ? res.error : 'That e-mail and password do not match an active account. Check both and try again.');
     } catch {
       setError('RigCall cannot be reached. Check the connection and try again.');
     }
