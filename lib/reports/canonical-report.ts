@@ -94,3 +94,46 @@ export function serializeReport(report: Omit<CanonicalReport, 'startedAt' | 'fin
     sortKeys({ ...report, startedAt: iso(report.startedAt), finishedAt: iso(report.finishedAt), signedAt: iso(report.signedAt), format: 'rigcall-report/1' }),
   );
 }
+
+type HeaderSource = {
+  id: string;
+  fleetId: string;
+  kind: string;
+  driverId: string;
+  tractorId: string;
+  trailerId: string | null;
+  odometer: number | null;
+  location: string | null;
+  billOfLading: string | null;
+  sealNumber: string | null;
+  ruleProfile: string;
+  vocabularyVersionId: string | null;
+  startedAt: Date | string;
+  finishedAt: Date | string;
+  certificationText: string;
+  signatureName: string;
+  signedAt: Date | string;
+};
+
+/** The header fields that make the record, from any row or object that carries them. */
+export function pickReportHeader(h: HeaderSource): HeaderSource {
+  return {
+    id: h.id,
+    fleetId: h.fleetId,
+    kind: h.kind,
+    driverId: h.driverId,
+    tractorId: h.tractorId,
+    trailerId: h.trailerId,
+    odometer: h.odometer,
+    location: h.location,
+    billOfLading: h.billOfLading,
+    sealNumber: h.sealNumber,
+    ruleProfile: h.ruleProfile,
+    vocabularyVersionId: h.vocabularyVersionId,
+    startedAt: h.startedAt,
+    finishedAt: h.finishedAt,
+    certificationText: h.certificationText,
+    signatureName: h.signatureName,
+    signedAt: h.signedAt,
+  };
+}

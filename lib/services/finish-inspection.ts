@@ -7,7 +7,7 @@ import { findFleetUnit } from '@/lib/db/units';
 import { AppError } from '@/lib/errors';
 import { isTrailerItem } from '@/lib/inspection/build-check';
 import { listDefectSteps } from '@/lib/inspection/walk-progress';
-import { serializeReport, toCanonicalSteps } from '@/lib/reports/canonical-report';
+import { pickReportHeader, serializeReport, toCanonicalSteps } from '@/lib/reports/canonical-report';
 import type { FinishInspectionBody } from '@/lib/schemas/inspections';
 import { renderOutOfServiceMail } from '@/lib/mail/templates';
 import { deliverOutbox } from './deliver-outbox';
@@ -37,25 +37,7 @@ export async function finishInspection({ fleetId, actorId, actorName, inspection
       const steps = await listInspectionSteps(trx, { inspectionId });
       const finishedAt = new Date(body.finishedAt) < inspection.startedAt ? new Date() : new Date(body.finishedAt);
       const signedAt = new Date();
-      const header = {
-        id: inspection.id,
-        fleetId,
-        kind: inspection.kind,
-        driverId: inspection.driverId,
-        tractorId: inspection.tractorId,
-        trailerId: inspection.trailerId,
-        odometer: inspection.odometer,
-        location: inspection.location,
-        billOfLading: inspection.billOfLading,
-        sealNumber: inspection.sealNumber,
-        ruleProfile: inspection.ruleProfile,
-        vocabularyVersionId: inspection.vocabularyVersionId,
-        startedAt: inspection.startedAt,
-        finishedAt,
-        certificationText: certificationStatement,
-        signatureName: body.signatureName.trim(),
-        signedAt,
-      };
+      const header = pickReportHeader({ ...inspection, finishedAt, certificationText: certificationStatement, signatureName: body.signatureName.trim(), signedAt });
       const canonical = serializeReport({ ...header, steps: toCanonicalSteps(steps) });
       const contentHash = createHash('sha256').update(canonical).digest('hex');
 

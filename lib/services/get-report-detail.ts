@@ -4,7 +4,7 @@ import { getDb } from '@/lib/db';
 import { findInspectionDetail } from '@/lib/db/inspections';
 import { findFleetMinimums, findReportRecord } from '@/lib/db/reports';
 import { AppError } from '@/lib/errors';
-import { serializeReport, toCanonicalSteps } from '@/lib/reports/canonical-report';
+import { pickReportHeader, serializeReport, toCanonicalSteps } from '@/lib/reports/canonical-report';
 import { checkInspectionDuration } from '@/lib/rules';
 import { listExpectedZones, zoneName } from './walk-zones';
 
@@ -23,23 +23,7 @@ export function checkReportHash(record: NonNullable<Awaited<ReturnType<typeof fi
     return { state: 'unsigned', stored: h.contentHash, computed: null };
   }
   const text = serializeReport({
-    id: h.id,
-    fleetId: h.fleetId,
-    kind: h.kind,
-    driverId: h.driverId,
-    tractorId: h.tractorId,
-    trailerId: h.trailerId,
-    odometer: h.odometer,
-    location: h.location,
-    billOfLading: h.billOfLading,
-    sealNumber: h.sealNumber,
-    ruleProfile: h.ruleProfile,
-    vocabularyVersionId: h.vocabularyVersionId,
-    startedAt: h.startedAt,
-    finishedAt: h.finishedAt,
-    certificationText: h.certificationText,
-    signatureName: h.signatureName,
-    signedAt: h.signedAt,
+    ...pickReportHeader({ ...h, finishedAt: h.finishedAt, signedAt: h.signedAt, signatureName: h.signatureName, certificationText: h.certificationText }),
     steps: toCanonicalSteps(record.steps.map((s) => ({ ...s, value: s.value === null ? null : Number(s.value) }))),
   });
   const computed = createHash('sha256').update(text).digest('hex');

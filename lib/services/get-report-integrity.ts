@@ -2,7 +2,7 @@ import 'server-only';
 import { createHash } from 'node:crypto';
 import { getDb } from '@/lib/db';
 import { AppError } from '@/lib/errors';
-import { serializeReport, toCanonicalSteps } from '@/lib/reports/canonical-report';
+import { pickReportHeader, serializeReport, toCanonicalSteps } from '@/lib/reports/canonical-report';
 
 export type ReportIntegrity = {
   /** True when the report is signed and its rows still hash to what was stored at signing. */
@@ -41,23 +41,7 @@ export async function checkReportIntegrity({ fleetId, inspectionId }: { fleetId:
     .where('inspectionId', '=', inspectionId)
     .execute();
   const text = serializeReport({
-    id: h.id,
-    fleetId: h.fleetId,
-    kind: h.kind,
-    driverId: h.driverId,
-    tractorId: h.tractorId,
-    trailerId: h.trailerId,
-    odometer: h.odometer,
-    location: h.location,
-    billOfLading: h.billOfLading,
-    sealNumber: h.sealNumber,
-    ruleProfile: h.ruleProfile,
-    vocabularyVersionId: h.vocabularyVersionId,
-    startedAt: h.startedAt,
-    finishedAt: h.finishedAt,
-    certificationText: h.certificationText,
-    signatureName: h.signatureName,
-    signedAt: h.signedAt,
+    ...pickReportHeader({ ...h, finishedAt: h.finishedAt, signedAt: h.signedAt, signatureName: h.signatureName, certificationText: h.certificationText }),
     steps: toCanonicalSteps(steps.map((s) => ({ ...s, value: s.value === null ? null : Number(s.value) }))),
   });
   const computed = createHash('sha256').update(text).digest('hex');
