@@ -31,7 +31,10 @@ export async function notifyReportDefects({ fleetId, actorName, id }: { fleetId:
   const byUnit = new Map<string, typeof open>();
   for (const d of open) byUnit.set(d.unitNumber, [...(byUnit.get(d.unitNumber) ?? []), d]);
   const sent: { unitNumber: string; kind: string; sent: boolean }[] = [];
-  for (const [unitNumber, defects] of byUnit) {
+  // Units out of service first, then by unit number: the shop reads the worst news first.
+  const hasMajor = (list: typeof open) => Number(list.some((d) => d.severity === 'major'));
+  const ordered = [...byUnit].sort(([a, listA], [b, listB]) => hasMajor(listB) - hasMajor(listA) || a.localeCompare(b));
+  for (const [unitNumber, defects] of ordered) {
     const list = defects.map((d) => ({ severity: d.severity === 'major' ? ('major' as const) : ('minor' as const), description: d.description, unitNumber }));
     const major = list.some((d) => d.severity === 'major');
     const inspectionUrl = appUrl(`/supervisor/reports/${id}`);
