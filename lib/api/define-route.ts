@@ -88,7 +88,7 @@ function parseBodyOrThrow<T>(schema: ZodType<T>, value: unknown): T {
 
 async function readBytes(req: Request, maxBytes: number): Promise<Uint8Array> {
   const declared = Number(req.headers.get('content-length') ?? 0);
-  const limit = `${Math.round(maxBytes / (1024 * 1024))} MB`;
+  const limit = maxBytes >= 1024 * 1024 ? `${Math.round(maxBytes / (1024 * 1024))} MB` : `${Math.round(maxBytes / 1024)} KB`;
   if (declared > maxBytes) throw new AppError('payload_too_large', `The file is larger than ${limit}.`);
   if (!req.body) throw new AppError('invalid_body', 'The upload is empty.');
   const reader = req.body.getReader();

@@ -3,7 +3,7 @@ import os from 'node:os';
 import sharp from 'sharp';
 import { expect, test } from '@playwright/test';
 import { fakeSpeechScript } from '../fixtures/fake-speech';
-import { countSteps, db, expectZone, makeTestRig, say, signIn, startPreTrip, waitForMail } from '../fixtures/walk-helpers';
+import { countSteps, db, expectZone, makeTestRig, say, signIn, signReport, startPreTrip, waitForMail } from '../fixtures/walk-helpers';
 
 test.describe.configure({ mode: 'serial' });
 test.setTimeout(120_000);
@@ -76,17 +76,15 @@ test('a whole pre-trip by voice: findings, a "no", readings, a photo, undo, sign
 
   await expect(page.getByRole('heading', { name: 'Review and sign' })).toBeVisible();
   await expect(page.getByRole('alert').filter({ hasText: 'OUT OF SERVICE' })).toBeVisible();
-  await page.getByRole('checkbox').check();
-  await page.getByLabel('Type your full name to sign').fill('Luis Ferreira');
-  await page.getByRole('button', { name: 'Sign and lock the report' }).click();
+  await signReport(page, 'Luis Ferreira');
   await expect(page.getByTestId('signed-status')).toHaveText('✓ Report locked on RigCall’s server.', { timeout: 20_000 });
 
   // The database: every step once, the defects (not the one taken back), the unit out of service.
   const counted = await countSteps(inspectionId);
   expect(counted.total).toBe(counted.distinctSeq);
   expect(counted.byKind).toMatchObject({ visit: 10, zone_ok: 10, defect: 3, undo: 1 });
-  const report = await db.selectFrom('inspection').select(['status', 'contentHash', 'signatureName']).where('id', '=', inspectionId).executeTakeFirstOrThrow();
-  expect(report).toMatchObject({ status: 'submitted', signatureName: 'Luis Ferreira' });
+  const report = await db.selectFrom('inspection').select(['status', 'contentHash', 'signatureName', 'signatureKey']).where('id', '=', inspectionId).executeTakeFirstOrThrow();
+  expect(report).toMatchObject({ status: 'submitted', signatureName: 'Luis Ferreira', signatureKey: `fleet/${rig.tractor.fleetId}/inspections/${inspectionId}/signature.png` });
   const defects = await db.selectFrom('defect').select(['component', 'condition', 'severity', 'unitId']).where('inspectionId', '=', inspectionId).orderBy('createdAt').execute();
   expect(defects.map((d) => `${d.component}:${d.condition}`)).toEqual(['steer tire:bulge', 'steer tire:tread depth fails the limit', 'glad hand:audible air leak', 'air system:air leak fails the limit']);
   const unit = await db.selectFrom('unit').select('status').where('id', '=', rig.tractor.id).executeTakeFirstOrThrow();
@@ -127,9 +125,7 @@ test('offline for the middle zones and back: nothing lost, nothing recorded twic
     await say(page, 'all good');
   }
   await say(page, 'finish');
-  await page.getByRole('checkbox').check();
-  await page.getByLabel('Type your full name to sign').fill('Wren Castillo');
-  await page.getByRole('button', { name: 'Sign and lock the report' }).click();
+  await signReport(page, 'Wren Castillo');
   await expect(page.getByTestId('signed-status')).toHaveText('✓ Report locked on RigCall’s server.', { timeout: 20_000 });
 
   const after = await countSteps(inspectionId);

@@ -7,7 +7,7 @@ import { createDb, type DB } from '../../../db/connect';
 import { makeUnit, makeUser } from '../../../db/factories';
 import { demoPassword } from '../fixtures/demo';
 import { fakeSpeechScript } from '../fixtures/fake-speech';
-import { expectZone, say, signIn, startPreTrip } from '../fixtures/walk-helpers';
+import { expectZone, say, signIn, signReport, startPreTrip } from '../fixtures/walk-helpers';
 import { AppServer, ThrowawayCluster } from './fault-servers';
 
 test.describe.configure({ mode: 'serial' });
@@ -41,9 +41,7 @@ async function finishWalk(page: Page, zones: string[], name: string) {
     await say(page, 'all good');
   }
   await say(page, 'finish');
-  await page.getByRole('checkbox').check();
-  await page.getByLabel('Type your full name to sign').fill(name);
-  await page.getByRole('button', { name: 'Sign and lock the report' }).click();
+  await signReport(page, name);
   await expect(page.getByTestId('signed-status')).toHaveText('✓ Report locked on RigCall’s server.', { timeout: 30_000 });
 }
 

@@ -23,6 +23,7 @@ import * as reportReview from '@/app/api/reports/[id]/review/route';
 import * as reportNotify from '@/app/api/reports/[id]/notify/route';
 import * as finish from '@/app/api/inspections/[id]/finish/route';
 import * as photos from '@/app/api/inspections/[id]/photos/[photoId]/route';
+import * as signature from '@/app/api/inspections/[id]/signature/route';
 import * as inspection from '@/app/api/inspections/[id]/route';
 import * as steps from '@/app/api/inspections/[id]/steps/route';
 import * as inspections from '@/app/api/inspections/route';
@@ -94,6 +95,16 @@ const cases: Case[] = [
       const draft = await freshDraft(f);
       const photoId = randomUUID();
       return callRoute(photos.PUT, makeRequest(`/api/inspections/${draft}/photos/${photoId}`, { method: 'PUT', cookie, body: await tinyJpeg() }), { id: draft, photoId });
+    },
+  },
+  {
+    route: 'inspections/[id]/signature',
+    method: 'PUT',
+    allowed: ['driver'],
+    call: async (f, cookie) => {
+      const draft = await freshDraft(f);
+      const png = await sharp({ create: { width: 300, height: 100, channels: 4, background: '#ffffff' } }).png().toBuffer();
+      return callRoute(signature.PUT, makeRequest(`/api/inspections/${draft}/signature`, { method: 'PUT', cookie, body: png }), { id: draft });
     },
   },
   {

@@ -5,6 +5,7 @@ import * as acks from '@/app/api/acknowledgements/route';
 import * as attachments from '@/app/api/attachments/[id]/route';
 import * as finish from '@/app/api/inspections/[id]/finish/route';
 import * as photos from '@/app/api/inspections/[id]/photos/[photoId]/route';
+import * as signature from '@/app/api/inspections/[id]/signature/route';
 import * as steps from '@/app/api/inspections/[id]/steps/route';
 import * as inspections from '@/app/api/inspections/route';
 import * as review from '@/app/api/units/[id]/review/route';
@@ -93,6 +94,17 @@ describe('the walk through the API', () => {
     expect(meta.width).toBe(800);
     const notImage = await callRoute(photos.PUT, makeRequest(`/api/inspections/${inspectionId}/photos/${randomUUID()}`, { method: 'PUT', cookie: f.cookies.driver, body: Buffer.from('<html>hello</html>'), headers: { 'content-type': 'image/jpeg' } }), { id: inspectionId, photoId: randomUUID() });
     expect(notImage.status).toBe(415);
+  });
+
+  it('keeps a drawn signature as a PNG, and refuses anything else', async () => {
+    const png = await sharp({ create: { width: 600, height: 200, channels: 4, background: '#ffffff' } }).png().toBuffer();
+    const put = () => callRoute(signature.PUT, makeRequest(`/api/inspections/${inspectionId}/signature`, { method: 'PUT', cookie: f.cookies.driver, body: png }), { id: inspectionId });
+    expect((await put()).status).toBe(201);
+    const jpeg = await sharp({ create: { width: 60, height: 20, channels: 3, background: '#ffffff' } }).jpeg().toBuffer();
+    const wrong = await callRoute(signature.PUT, makeRequest(`/api/inspections/${inspectionId}/signature`, { method: 'PUT', cookie: f.cookies.driver, body: jpeg }), { id: inspectionId });
+    expect(wrong.status).toBe(415);
+    const row = await db.selectFrom('inspection').select('signatureKey').where('id', '=', inspectionId).executeTakeFirstOrThrow();
+    expect(row.signatureKey).toBe(`fleet/${f.fleet.id}/inspections/${inspectionId}/signature.png`);
   });
 
   it('signs and locks: defects created, unit out of service, maintenance mailed', async () => {

@@ -15,7 +15,7 @@ import { cautionFooter, zoneCautions } from '@/lib/inspection/zone-cautions';
 import { createMatcher, type WalkZone } from '@/lib/matcher';
 import { checkInspectionDuration, evaluateMeasurement } from '@/lib/rules';
 import type { Grammar, Vocabulary, ZoneItem } from '@/lib/schemas/grammar';
-import { AirTimer, AnswerMark, capitalize, formatReading, HoldToTalk, inputClass, PendingMatchPanel, ReadingResult, SealCheckPanel, SeverityMark, WalkStatusBar } from './walk-parts';
+import { AirTimer, AnswerMark, capitalize, formatReading, HoldToTalk, inputClass, PendingMatchPanel, ReadingResult, SealCheckPanel, SeverityMark, SignaturePad, WalkStatusBar } from './walk-parts';
 
 type Props = {
   inspection: { id: string; kind: 'pre_trip' | 'post_trip'; status: 'draft' | 'submitted'; startedAt: string; sealNumber: string | null; ruleProfile: string };
@@ -478,8 +478,13 @@ function ReviewAndSign(props: Props & { store: ReturnType<typeof createWalkStore
   const sent =
     inspection.status === 'submitted' || (phase === 'signed' && signedClickAt !== null && (queue.lastSentAt ?? 0) >= signedClickAt && queue.pending === 0 && queue.failed.length === 0);
 
+  const pad = useRef<HTMLCanvasElement | null>(null);
+  const [inked, setInked] = useState(false);
   const sign = async () => {
     setSignedClickAt(Date.now());
+    const drawn = await new Promise<Blob | null>((resolve) => (pad.current ? pad.current.toBlob(resolve, 'image/png') : resolve(null)));
+    // The drawn signature goes first; the outbox keeps the order, online or not.
+    if (drawn) await enqueueRequest({ label: 'drawn signature', url: `/api/inspections/${inspection.id}/signature`, method: 'PUT', blob: drawn });
     await enqueueRequest({ label: 'signature', url: `/api/inspections/${inspection.id}/finish`, method: 'POST', json: { signatureName: name, certify: true, finishedAt: new Date().toISOString() } });
     store.getState().setPhase('signed', name);
   };
@@ -551,7 +556,9 @@ function ReviewAndSign(props: Props & { store: ReturnType<typeof createWalkStore
             Type your full name to sign
             <input className={inputClass} value={name} onChange={(e) => setName(e.target.value)} placeholder={props.driverName} autoComplete="name" />
           </label>
-          <SlabButton tone="primary" disabled={!certified || name.trim().length < 2} onClick={() => void sign()}>
+          <p className="text-lg font-bold">Sign with your finger</p>
+          <SignaturePad canvasRef={pad} onInk={setInked} />
+          <SlabButton tone="primary" disabled={!certified || name.trim().length < 2 || !inked} onClick={() => void sign()}>
             Sign and lock the report
           </SlabButton>
         </>

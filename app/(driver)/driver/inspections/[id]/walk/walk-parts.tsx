@@ -206,3 +206,51 @@ export function HoldToTalk({ onDown, onUp, disabled }: { onDown: () => void; onU
     </button>
   );
 }
+
+/** A pad to sign with a finger (gloves work on a pad this big); reports whether it holds ink. */
+export function SignaturePad({ onInk, canvasRef }: { onInk: (hasInk: boolean) => void; canvasRef: React.RefObject<HTMLCanvasElement | null> }) {
+  const drawing = useRef(false);
+  const pos = (e: React.PointerEvent<HTMLCanvasElement>) => {
+    const r = e.currentTarget.getBoundingClientRect();
+    return { x: ((e.clientX - r.left) * e.currentTarget.width) / r.width, y: ((e.clientY - r.top) * e.currentTarget.height) / r.height };
+  };
+  const clear = () => {
+    const c = canvasRef.current;
+    c?.getContext('2d')?.clearRect(0, 0, c.width, c.height);
+    onInk(false);
+  };
+  return (
+    <div className="space-y-2">
+      <canvas
+        ref={canvasRef}
+        width={900}
+        height={320}
+        aria-label="Draw your signature here"
+        className="h-40 w-full touch-none rounded-lg border-slab border-edge bg-white"
+        onPointerDown={(e) => {
+          e.currentTarget.setPointerCapture(e.pointerId);
+          drawing.current = true;
+          const ctx = e.currentTarget.getContext('2d');
+          if (!ctx) return;
+          const p = pos(e);
+          ctx.lineWidth = 6;
+          ctx.lineCap = 'round';
+          ctx.strokeStyle = '#14161a';
+          ctx.beginPath();
+          ctx.moveTo(p.x, p.y);
+        }}
+        onPointerMove={(e) => {
+          if (!drawing.current) return;
+          const ctx = e.currentTarget.getContext('2d');
+          const p = pos(e);
+          ctx?.lineTo(p.x, p.y);
+          ctx?.stroke();
+          onInk(true);
+        }}
+        onPointerUp={() => (drawing.current = false)}
+        onPointerCancel={() => (drawing.current = false)}
+      />
+      <SlabButton onClick={clear}>Clear the signature</SlabButton>
+    </div>
+  );
+}
