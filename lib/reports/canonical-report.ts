@@ -89,31 +89,14 @@ function sortKeys(value: unknown): unknown {
 }
 
 /** The one text that is hashed: keys sorted, times in ISO form, steps in order. */
-export function serializeReport(report: Omit<CanonicalReport, 'startedAt' | 'finishedAt' | 'signedAt'> & { startedAt: Date | string; finishedAt: Date | string; signedAt: Date | string }): string {
+export function serializeReport(report: HeaderSource & { steps: CanonicalStep[] }): string {
   return JSON.stringify(
     sortKeys({ ...report, startedAt: iso(report.startedAt), finishedAt: iso(report.finishedAt), signedAt: iso(report.signedAt), format: 'rigcall-report/1' }),
   );
 }
 
-type HeaderSource = {
-  id: string;
-  fleetId: string;
-  kind: string;
-  driverId: string;
-  tractorId: string;
-  trailerId: string | null;
-  odometer: number | null;
-  location: string | null;
-  billOfLading: string | null;
-  sealNumber: string | null;
-  ruleProfile: string;
-  vocabularyVersionId: string | null;
-  startedAt: Date | string;
-  finishedAt: Date | string;
-  certificationText: string;
-  signatureName: string;
-  signedAt: Date | string;
-};
+type Moment = Date | string;
+type HeaderSource = Omit<CanonicalReport, 'steps' | 'startedAt' | 'finishedAt' | 'signedAt'> & { startedAt: Moment; finishedAt: Moment; signedAt: Moment };
 
 /** The header fields that make the record, from any row or object that carries them. */
 export function pickReportHeader(h: HeaderSource): HeaderSource {
