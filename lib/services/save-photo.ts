@@ -20,6 +20,23 @@ export function sniffImageType(bytes: Uint8Array): 'image/jpeg' | 'image/png' | 
 }
 
 /**
+ * Check a photo by its bytes and re-encode it (which drops its metadata, location included),
+ * with a thumbnail.
+ */
+export async function encodePhoto(bytes: Uint8Array): Promise<{ type: string; full: Buffer; thumb: Buffer }> {
+  const type = sniffImageType(bytes);
+  if (!type) throw new AppError('unsupported_media_type', 'That file is not a photo RigCall can read. Send a JPEG, PNG or WebP image.');
+  try {
+    const image = sharp(bytes, { failOn: 'error', limitInputPixels: 80_000_000 }).rotate();
+    const full = await image.clone().resize({ width: 1600, height: 1600, fit: 'inside', withoutEnlargement: true }).jpeg({ quality: 82, mozjpeg: true }).toBuffer();
+    const thumb = await image.clone().resize({ width: 320, height: 320, fit: 'inside', withoutEnlargement: true }).jpeg({ quality: 70 }).toBuffer();
+    return { type, full, thumb };
+  } catch {
+    throw new AppError('unsupported_media_type', 'That photo is damaged or cut off; take it again.');
+  }
+}
+
+/**
  * Store a defect photo: the type is checked from the bytes, the image is re-encoded (which drops
  * its metadata, location included) and a thumbnail is made. The same photo id twice stores once.
  */
@@ -30,17 +47,7 @@ export async function savePhoto({ fleetId, actorId, inspectionId, photoId, stepI
     if (existing.inspectionId !== inspectionId) throw new AppError('conflict', 'That photo id belongs to another inspection.');
     return { attachment: existing, created: false };
   }
-  const type = sniffImageType(bytes);
-  if (!type) throw new AppError('unsupported_media_type', 'That file is not a photo RigCall can read. Send a JPEG, PNG or WebP image.');
-  let full: Buffer;
-  let thumb: Buffer;
-  try {
-    const image = sharp(bytes, { failOn: 'error', limitInputPixels: 80_000_000 }).rotate();
-    full = await image.clone().resize({ width: 1600, height: 1600, fit: 'inside', withoutEnlargement: true }).jpeg({ quality: 82, mozjpeg: true }).toBuffer();
-    thumb = await image.clone().resize({ width: 320, height: 320, fit: 'inside', withoutEnlargement: true }).jpeg({ quality: 70 }).toBuffer();
-  } catch {
-    throw new AppError('unsupported_media_type', 'That photo is damaged or cut off; take it again.');
-  }
+  const { type, full, thumb } = await encodePhoto(bytes);
   const inspection = await db.selectFrom('inspection').select(['id', 'driverId', 'status']).where('fleetId', '=', fleetId).where('id', '=', inspectionId).executeTakeFirst();
   if (!inspection) throw new AppError('not_found', 'No such inspection in your fleet.');
   if (inspection.driverId !== actorId) throw new AppError('forbidden', 'Only the driver of this inspection adds its photos.');

@@ -24,6 +24,7 @@ import * as reportNotify from '@/app/api/reports/[id]/notify/route';
 import * as finish from '@/app/api/inspections/[id]/finish/route';
 import * as photos from '@/app/api/inspections/[id]/photos/[photoId]/route';
 import * as signature from '@/app/api/inspections/[id]/signature/route';
+import * as repairPhotos from '@/app/api/defects/[id]/photos/[photoId]/route';
 import * as inspection from '@/app/api/inspections/[id]/route';
 import * as steps from '@/app/api/inspections/[id]/steps/route';
 import * as inspections from '@/app/api/inspections/route';
@@ -105,6 +106,17 @@ const cases: Case[] = [
       const draft = await freshDraft(f);
       const png = await sharp({ create: { width: 300, height: 100, channels: 4, background: '#ffffff' } }).png().toBuffer();
       return callRoute(signature.PUT, makeRequest(`/api/inspections/${draft}/signature`, { method: 'PUT', cookie, body: png }), { id: draft });
+    },
+  },
+  {
+    route: 'defects/[id]/photos/[photoId]',
+    method: 'PUT',
+    allowed: ['mechanic'],
+    call: async (f, cookie) => {
+      const { reportId } = await reportWithDefect(f);
+      const defect = await db.selectFrom('defect').select('id').where('inspectionId', '=', reportId).executeTakeFirstOrThrow();
+      const photoId = randomUUID();
+      return callRoute(repairPhotos.PUT, makeRequest(`/api/defects/${defect.id}/photos/${photoId}`, { method: 'PUT', cookie, body: await tinyJpeg() }), { id: defect.id, photoId });
     },
   },
   {

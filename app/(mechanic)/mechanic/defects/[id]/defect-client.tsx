@@ -1,13 +1,13 @@
 'use client';
 
-import { useQuery } from '@tanstack/react-query';
+import { useQuery, useQueryClient } from '@tanstack/react-query';
 import Link from 'next/link';
 import { useState } from 'react';
 import { formatDateTime, kindLabel, zoneLabel } from '@/components/office/format';
 import { useHydrated } from '@/components/ui/use-hydrated';
 import { SafetyCautions } from '@/components/office/safety-cautions';
 import { PassMark, SeverityMark, UnitStatusBadge } from '@/components/office/severity-mark';
-import { ApiError } from '@/lib/http/fetch-json';
+import { ApiError, fetchJson } from '@/lib/http/fetch-json';
 import { defectDetailOptions, useCertifyRepairMutation } from '@/lib/queries/defects';
 import { repairCertificationStatement } from '@/lib/schemas/defects';
 
@@ -23,6 +23,18 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
   const [name, setName] = useState(userName);
   const [confirm, setConfirm] = useState(false);
   const live = useHydrated();
+  const queryClient = useQueryClient();
+  const [photoState, setPhotoState] = useState<string | null>(null);
+  const addRepairPhoto = async (file: File) => {
+    setPhotoState('Sending the photo…');
+    try {
+      await fetchJson(`/api/defects/${id}/photos/${crypto.randomUUID()}`, { method: 'PUT', body: file, headers: { 'content-type': file.type || 'application/octet-stream' } });
+      setPhotoState('Photo added.');
+      await queryClient.invalidateQueries({ queryKey: defectDetailOptions(id).queryKey });
+    } catch (e) {
+      setPhotoState(e instanceof ApiError ? e.message : 'The photo could not be sent.');
+    }
+  };
   if (!d) return <p>Loading the defect…</p>;
   const fields: Record<string, string[]> = certify.error instanceof ApiError ? (certify.error.fields ?? {}) : {};
   const fieldError = (k: string) =>
@@ -91,6 +103,19 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
                 <img src={`${p.url}?size=thumb`} alt={`Photo of ${d.component}`} className="h-28 w-36 rounded border-2 border-edge object-cover" />
               </a>
             ))}
+          </div>
+        )}
+        {canCertify && (
+          <div className="flex flex-wrap items-center gap-3">
+            <label className="inline-flex min-h-target cursor-pointer items-center rounded-lg border-slab border-edge bg-panel px-4 text-lg font-bold">
+              Add a repair photo
+              <input type="file" accept="image/*" capture="environment" className="sr-only" disabled={!live} onChange={(e) => (e.target.files?.[0] ? void addRepairPhoto(e.target.files[0]) : undefined, (e.target.value = ''))} />
+            </label>
+            {photoState && (
+              <span role="status" className="text-base" data-testid="repair-photo-status">
+                {photoState}
+              </span>
+            )}
           </div>
         )}
       </header>
