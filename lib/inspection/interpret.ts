@@ -30,13 +30,13 @@ export function findFocusItem(zone: WalkZone, answers: ReadonlyMap<string, ItemA
   return zone.items.find((i) => !answers.has(i.id)) ?? null;
 }
 
-const vocab = vocabulary as unknown as Vocabulary;
+const defaultVocabulary = vocabulary as unknown as Vocabulary;
 
 /**
  * Choices to offer after a "no": the matcher's runners-up, then the zone's other components that
  * can have the same condition, then other conditions of the same component.
  */
-export function listChoices(top: { termKey: string; heard?: string }, matcherAlternatives: readonly MatchAlternative[], zone: WalkZone, max = 4): MatchAlternative[] {
+export function listChoices(top: { termKey: string; heard?: string }, matcherAlternatives: readonly MatchAlternative[], zone: WalkZone, vocab: Vocabulary = defaultVocabulary, max = 4): MatchAlternative[] {
   const [componentId, conditionId] = top.termKey.split(':');
   const seen = new Set([top.termKey, ...matcherAlternatives.map((a) => a.termId)]);
   const out = [...matcherAlternatives];
@@ -61,7 +61,8 @@ export function listChoices(top: { termKey: string; heard?: string }, matcherAlt
   return out.slice(0, max);
 }
 
-export function decideFromMatch(result: MatchResult, zone: WalkZone, answers: ReadonlyMap<string, ItemAnswer>): Decision {
+/** `vocab` is the inspection's own vocabulary version (the default files when not given). */
+export function decideFromMatch(result: MatchResult, zone: WalkZone, answers: ReadonlyMap<string, ItemAnswer>, vocab: Vocabulary = defaultVocabulary): Decision {
   switch (result.kind) {
     case 'command':
       return result.command === 'ok' ? { do: 'zone_ok' } : result.command ? { do: 'command', command: result.command } : { do: 'not_understood' };
@@ -96,7 +97,7 @@ export function decideFromMatch(result: MatchResult, zone: WalkZone, answers: Re
         severity: result.severity,
         score: result.score,
         needsConfirmation: result.needsConfirmation,
-        alternatives: result.needsConfirmation ? listChoices({ termKey: result.termId, heard: result.input }, result.alternatives, zone) : result.alternatives,
+        alternatives: result.needsConfirmation ? listChoices({ termKey: result.termId, heard: result.input }, result.alternatives, zone, vocab) : result.alternatives,
         itemId: item?.id ?? null,
       };
     }

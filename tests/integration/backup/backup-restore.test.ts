@@ -12,7 +12,7 @@ import { makeFleetFixture, type FleetFixture } from '../../setup/fleet-fixture';
 import { getTestDb } from '../../setup/test-db';
 import { makeSignedReport } from '../security/walk-helpers';
 import { createHash } from 'node:crypto';
-import { serializeReport, toCanonicalSteps } from '@/lib/reports/canonical-report';
+import { pickReportHeader, serializeReport, toCanonicalSteps } from '@/lib/reports/canonical-report';
 
 const SCRATCH = 'rigcall_backup_scratch_test';
 const root = path.resolve(__dirname, '../../..');
@@ -52,23 +52,7 @@ async function hashHolds(d: DB, id: string) {
   const h = await d.selectFrom('inspection').selectAll().where('id', '=', id).executeTakeFirstOrThrow();
   const steps = await d.selectFrom('inspectionStep').selectAll().where('inspectionId', '=', id).execute();
   const text = serializeReport({
-    id: h.id,
-    fleetId: h.fleetId,
-    kind: h.kind,
-    driverId: h.driverId,
-    tractorId: h.tractorId,
-    trailerId: h.trailerId,
-    odometer: h.odometer,
-    location: h.location,
-    billOfLading: h.billOfLading,
-    sealNumber: h.sealNumber,
-    ruleProfile: h.ruleProfile,
-    vocabularyVersionId: h.vocabularyVersionId,
-    startedAt: h.startedAt,
-    finishedAt: h.finishedAt!,
-    certificationText: h.certificationText!,
-    signatureName: h.signatureName!,
-    signedAt: h.signedAt!,
+    ...pickReportHeader({ ...h, finishedAt: h.finishedAt!, certificationText: h.certificationText!, signatureName: h.signatureName!, signedAt: h.signedAt! }),
     steps: toCanonicalSteps(steps),
   });
   return createHash('sha256').update(text).digest('hex') === h.contentHash;

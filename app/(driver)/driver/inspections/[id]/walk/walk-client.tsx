@@ -187,7 +187,7 @@ export function WalkClient(props: Props) {
         return;
       }
       if (waiting) store.getState().holdForConfirmation(null);
-      const d = decideFromMatch(result, zone, answers);
+      const d = decideFromMatch(result, zone, answers, props.grammar.vocabulary);
       switch (d.do) {
         case 'zone_ok':
           return markZoneGood(inputMode, heard);
