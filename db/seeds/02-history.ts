@@ -182,7 +182,7 @@ export async function seedHistory(db: DB, opts: { fleetSlug: string; days?: numb
           return row;
         };
         const addDefect = (step: Insertable<InspectionStep>, unitId: string, severity: 'minor' | 'major', description: string) => {
-          myDefects.push({ id: uuidFrom(`${step.id}:defect`), fleetId: fleet.id, inspectionId, stepId: step.id!, unitId, zone: step.zone, component: step.component ?? 'unknown', condition: step.condition ?? 'fails check', position: step.position ?? null, severity, description, createdAt: step.deviceAt });
+          myDefects.push({ id: uuidFrom(`${step.id}:defect`), fleetId: fleet.id, inspectionId, stepId: step.id!, unitId, zone: step.zone, component: step.component ?? 'unknown', condition: step.condition ?? `${String(step.measurementKind ?? 'reading').replace(/_/g, ' ')} fails the limit`, position: step.position ?? null, severity, description, createdAt: step.deviceAt });
         };
         const finding = kind === 'pre_trip' && r.chance(0.2) ? r.pick(scenarios.filter((s) => s.unit === 'tractor' || trailer)) : null;
         const skipZone = short && r.chance(0.6) ? r.pick(walk).id : null;
