@@ -11,9 +11,24 @@ import type { VersionSummary } from '@/lib/schemas/vocabulary';
 
 // Grammar columns are read as text: the camel-case plugin would rewrite the keys inside jsonb.
 
-/** The grammars/ files as one document. */
+let defaultGrammar: Grammar | null = null;
+
+/** Freezes a parsed document all the way down, so that a shared copy cannot be changed by one caller for all. */
+function deepFreeze<T>(value: T): T {
+  if (value && typeof value === 'object' && !Object.isFrozen(value)) {
+    Object.freeze(value);
+    for (const v of Object.values(value)) deepFreeze(v);
+  }
+  return value;
+}
+
+/**
+ * The grammars/ files as one document. The files ship with the build and never change while
+ * the app runs, so they are checked once and the same frozen document is shared.
+ */
 export function getDefaultGrammar(): Grammar {
-  return grammarSchema.parse({ vocabulary, commands, positions, numbers, zones });
+  defaultGrammar ??= deepFreeze(grammarSchema.parse({ vocabulary, commands, positions, numbers, zones }));
+  return defaultGrammar;
 }
 
 /** A stored grammar as a full document: a bare vocabulary (older rows) gets the other parts from the default files. */
