@@ -72,6 +72,8 @@ export const finishInspectionBodySchema = z.object({
   signatureName: text(120, 'The name').min(2, 'Type your full name to sign.'),
   certify: z.literal(true, { error: 'Tick the certification to sign the report.' }),
   finishedAt: deviceTime,
+  /** Every step the phone recorded: signing is refused while the server lacks one of them. */
+  stepIds: z.array(idSchema).max(5000, 'A walk has at most 5000 steps.').optional(),
 });
 export type FinishInspectionBody = z.input<typeof finishInspectionBodySchema>;
 

@@ -35,6 +35,15 @@ export async function finishInspection({ fleetId, actorId, actorName, inspection
         throw new AppError('invalid_body', `Sign with your name as it is on your account: ${actorName}.`, { signatureName: [`Type ${actorName}.`] });
       }
       const steps = await listInspectionSteps(trx, { inspectionId });
+      if (body.stepIds) {
+        // The phone names every step it recorded; one the server lacks (never arrived, or lost
+        // before it reached the disk) is sent again before the report can lock.
+        const held = new Set(steps.map((s) => s.id));
+        const missing = [...new Set(body.stepIds)].filter((id) => !held.has(id));
+        if (missing.length) {
+          throw new AppError('conflict', `${missing.length === 1 ? 'One step' : `${missing.length} steps`} recorded on this phone ${missing.length === 1 ? 'has' : 'have'} not reached RigCall’s server yet. The phone sends ${missing.length === 1 ? 'it' : 'them'} again; the report locks once ${missing.length === 1 ? 'it is' : 'they are'} in.`, { stepIds: missing.slice(0, 500) });
+        }
+      }
       const finishedAt = new Date(body.finishedAt) < inspection.startedAt ? new Date() : new Date(body.finishedAt);
       const signedAt = new Date();
       const header = pickReportHeader({ ...inspection, finishedAt, certificationText: certificationStatement, signatureName: body.signatureName.trim(), signedAt });

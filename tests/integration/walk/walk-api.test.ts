@@ -149,3 +149,46 @@ describe('the walk through the API', () => {
     expect((await start(randomUUID())).status).toBe(201);
   });
 });
+
+describe('signing names every step the phone recorded', () => {
+  // The phone keeps its steps until the report locks, and the server commits an open walk's steps
+  // without waiting for its disk: a step it lost in a crash is found here and sent again.
+  // A fleet of its own, so that the walk tests below find their tractor as they expect it.
+  let g: FleetFixture;
+  beforeAll(async () => {
+    g = await makeFleetFixture(db, 'Signing fleet');
+  });
+  const inspectionId = randomUUID();
+  const [first, second, neverArrived] = [randomUUID(), randomUUID(), randomUUID()];
+  const begin = () =>
+    callRoute(inspections.POST, makeRequest('/api/inspections', { method: 'POST', cookie: g.cookies.driver, json: { id: inspectionId, kind: 'pre_trip', tractorId: g.tractor.id, trailerId: null, odometer: 88000, startedAt: now() } }));
+  const record = (body: Record<string, unknown>) =>
+    callRoute(steps.POST, makeRequest(`/api/inspections/${inspectionId}/steps`, { method: 'POST', cookie: g.cookies.driver, json: { inputMode: 'voice', deviceAt: now(), ...body } }), { id: inspectionId });
+  const sign = (stepIds: string[]) =>
+    callRoute(finish.POST, makeRequest(`/api/inspections/${inspectionId}/finish`, { method: 'POST', cookie: g.cookies.driver, json: { signatureName: g.users.driver.name, certify: true, finishedAt: now(), stepIds } }), { id: inspectionId });
+
+  it('refuses to lock while the server lacks one, names it, and changes nothing', async () => {
+    expect((await begin()).status).toBe(201);
+    expect((await record({ id: first, seq: 0, zone: 'front', kind: 'visit', inputMode: 'tap' })).status).toBe(201);
+    expect((await record({ id: second, seq: 1, zone: 'front', kind: 'defect', heard: 'horn does not work', termKey: 'horn:inoperative', score: 0.95, resolution: 'auto' })).status).toBe(201);
+    const refused = await sign([first, second, neverArrived]);
+    expect(refused.status).toBe(409);
+    const body = await refused.json();
+    expect(body.error.fields.stepIds).toEqual([neverArrived]);
+    expect(body.error.message).toMatch(/One step recorded on this phone has not reached/);
+    const row = await db.selectFrom('inspection').select(['status', 'contentHash']).where('id', '=', inspectionId).executeTakeFirstOrThrow();
+    expect(row).toEqual({ status: 'draft', contentHash: null });
+    const defects = await db.selectFrom('defect').select('id').where('inspectionId', '=', inspectionId).execute();
+    expect(defects).toEqual([]);
+  });
+
+  it('locks once the phone has sent it again, with every step in the report', async () => {
+    expect((await record({ id: neverArrived, seq: 2, zone: 'front', kind: 'zone_ok', heard: 'all good', score: 0.99, resolution: 'auto' })).status).toBe(201);
+    const signed = await sign([first, second, neverArrived]);
+    expect(signed.status).toBe(200);
+    const held = await db.selectFrom('inspectionStep').select('id').where('inspectionId', '=', inspectionId).execute();
+    expect(held.map((r) => r.id).sort()).toEqual([first, second, neverArrived].sort());
+    // Sent again after the lock (the phone did not hear the answer): the same report, unchanged.
+    expect((await sign([first, second, neverArrived])).status).toBe(200);
+  });
+});
