@@ -43,4 +43,10 @@ describe('flushQueue', () => {
     await flushQueue(store, async (i) => (sent.push(i.key), { ok: true }));
     expect(sent).toEqual(['2']);
   });
+
+  it('keeps the server’s per-field details of a refusal, such as the steps a signature found missing', async () => {
+    const store = memoryStore([req('1')]);
+    await flushQueue(store, async (): Promise<SendResult> => ({ ok: false, retry: false, status: 409, message: 'One step has not reached the server.', fields: { stepIds: ['s-7'] } }));
+    expect(store.items.get('1')).toMatchObject({ state: 'failed', errorFields: { stepIds: ['s-7'] } });
+  });
 });

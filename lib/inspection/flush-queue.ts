@@ -12,7 +12,11 @@ export type QueuedRequest = {
   blob?: Blob;
   state: 'pending' | 'failed';
   error?: string;
+  /** The server's per-field details of a refusal (the steps a signature found missing). */
+  errorFields?: Record<string, string[]>;
   attempts: number;
+  /** How many times a refused signature was sent again after the missing steps. */
+  resendRound?: number;
 };
 
 export type QueueStore = {
@@ -21,7 +25,7 @@ export type QueueStore = {
   remove: (key: string) => Promise<void>;
 };
 
-export type SendResult = { ok: true } | { ok: false; retry: boolean; status: number; message: string };
+export type SendResult = { ok: true } | { ok: false; retry: boolean; status: number; message: string; fields?: Record<string, string[]> };
 
 export type FlushOutcome = { sent: number; failed: number; waiting: number; offline: boolean; lastError: string | null };
 
@@ -50,7 +54,7 @@ export async function flushQueue(store: QueueStore, send: (item: QueuedRequest) 
       const waiting = items.slice(i).filter((x) => x.state === 'pending').length;
       return { sent, failed, waiting, offline: result.status === 0, lastError: result.message };
     }
-    await store.put({ ...item, state: 'failed', attempts: item.attempts + 1, error: result.message });
+    await store.put({ ...item, state: 'failed', attempts: item.attempts + 1, error: result.message, ...(result.fields ? { errorFields: result.fields } : {}) });
     failed++;
   }
   return { sent, failed, waiting: 0, offline: false, lastError: null };
@@ -70,11 +74,14 @@ export async function sendQueued(item: QueuedRequest): Promise<SendResult> {
   }
   if (res.ok) return { ok: true };
   let message = `The server answered ${res.status}.`;
+  let fields: Record<string, string[]> | undefined;
   try {
-    message = ((await res.json()) as { error?: { message?: string } }).error?.message ?? message;
+    const body = (await res.json()) as { error?: { message?: string; fields?: Record<string, string[]> } };
+    message = body.error?.message ?? message;
+    fields = body.error?.fields;
   } catch {
     /* not JSON */
   }
   const retry = res.status >= 500 || res.status === 429 || res.status === 401;
-  return { ok: false, retry, status: res.status, message: retry && res.status >= 500 ? 'RigCall’s server is not answering. Saved on this phone; it will be sent.' : message };
+  return { ok: false, retry, status: res.status, message: retry && res.status >= 500 ? 'RigCall’s server is not answering. Saved on this phone; it will be sent.' : message, ...(fields ? { fields } : {}) };
 }

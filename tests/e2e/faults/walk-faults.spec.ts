@@ -148,3 +148,40 @@ test.describe('PostgreSQL stopped for 10 seconds mid-walk', () => {
     expect(report.status).toBe('submitted');
   });
 });
+
+test.describe('a step the server answered for, then lost before it reached its disk', () => {
+  // An open walk's steps commit without waiting for the disk, so a database crash can lose one
+  // the phone was told was saved. Taking the row away plays that crash; signing must find it.
+  const db = createDb(process.env.DATABASE_URL ?? '', 2);
+  test.afterAll(() => db.destroy());
+
+  test('signing finds it missing, the phone sends it again, and the report locks with it', async ({ page }) => {
+    const rig = await makeRig(db);
+    const email = `lost-${randomUUID().slice(0, 6)}@northbank.example`;
+    await makeUser(db, { fleetId: rig.fleetId, roles: ['driver'], email, name: 'Lou Lostwrite', password: demoPassword });
+    await signIn(page, email);
+    const inspectionId = await startPreTrip(page, rig);
+    await page.getByRole('button', { name: '● Listen' }).click();
+    await say(page, 'all good');
+    await expectZone(page, 'Engine bay');
+    await say(page, 'all good');
+    await expectZone(page, 'Driver side tractor');
+    // The engine bay's "all good" reached the server (the status line may still show the moment before it was sent).
+    const engineBayOk = () => db.selectFrom('inspectionStep').select(['id']).where('inspectionId', '=', inspectionId).where('kind', '=', 'zone_ok').where('zone', '=', 'engine_bay').executeTakeFirst();
+    await expect.poll(async () => !!(await engineBayOk()), { timeout: 10_000 }).toBe(true);
+    await expect(page.getByTestId('sync-status')).toHaveText('✓ All saved');
+    const lost = (await engineBayOk())!;
+    await db.deleteFrom('inspectionStep').where('id', '=', lost.id).execute();
+
+    await finishWalk(page, ['Driver side tractor', 'Coupling', 'Driver side trailer', 'Rear', 'Passenger side trailer', 'Passenger side tractor', 'In cab', 'Air-brake tests'], 'Lou Lostwrite');
+
+    const after = await countSteps(db, inspectionId);
+    expect(after).toEqual({ total: 20, distinctSeq: 20, distinctId: 20, byKind: { visit: 10, zone_ok: 10 } });
+    const back = await db.selectFrom('inspectionStep').select('id').where('id', '=', lost.id).execute();
+    expect(back).toHaveLength(1);
+    const report = await db.selectFrom('inspection').select('status').where('id', '=', inspectionId).executeTakeFirstOrThrow();
+    expect(report.status).toBe('submitted');
+    const refused = await db.selectFrom('auditLog').select('action').where('entityId', '=', inspectionId).where('action', '=', 'inspection.sign').execute();
+    expect(refused).toHaveLength(1);
+  });
+});

@@ -5,7 +5,8 @@ import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { useStore } from 'zustand';
 import { SlabButton, slabClass } from '@/components/ui/slab-button';
 import { buildCheckInput, measureUnit, type CheckContext } from '@/lib/inspection/build-check';
-import { enqueueRequest } from '@/lib/inspection/device-queue';
+import { deviceQueue, dropFailedRequest, enqueueRequest } from '@/lib/inspection/device-queue';
+import { planResend } from '@/lib/inspection/resend-missing';
 import { decideFromMatch, findFocusItem, readBackFinding } from '@/lib/inspection/interpret';
 import { createListener, hasSpeechRecognition, speak, type Listener, type MicState } from '@/lib/inspection/speech';
 import { createWalkStore, toStepBody, type WalkStep } from '@/lib/inspection/store';
@@ -480,14 +481,36 @@ function ReviewAndSign(props: Props & { store: ReturnType<typeof createWalkStore
 
   const pad = useRef<HTMLCanvasElement | null>(null);
   const [inked, setInked] = useState(false);
+  const finishUrl = `/api/inspections/${inspection.id}/finish`;
   const sign = async () => {
     setSignedClickAt(Date.now());
     const drawn = await new Promise<Blob | null>((resolve) => (pad.current ? pad.current.toBlob(resolve, 'image/png') : resolve(null)));
     // The drawn signature goes first; the outbox keeps the order, online or not.
     if (drawn) await enqueueRequest({ label: 'drawn signature', url: `/api/inspections/${inspection.id}/signature`, method: 'PUT', blob: drawn });
-    await enqueueRequest({ label: 'signature', url: `/api/inspections/${inspection.id}/finish`, method: 'POST', json: { signatureName: name, certify: true, finishedAt: new Date().toISOString() } });
+    // The signature names every step on this phone, so that the server cannot lock a report short of one.
+    const stepIds = store.getState().steps.map((s) => s.id);
+    await enqueueRequest({ label: 'signature', url: finishUrl, method: 'POST', json: { signatureName: name, certify: true, finishedAt: new Date().toISOString(), stepIds } });
     store.getState().setPhase('signed', name);
   };
+
+  // Signing refused because the server lacks steps: send them again from this phone, then sign again.
+  const refusedKeys = queue.failed.map((f) => f.key).join(',');
+  const resending = useRef(false);
+  useEffect(() => {
+    if (!refusedKeys || resending.current) return;
+    resending.current = true;
+    void (async () => {
+      try {
+        const plan = planResend({ outbox: await deviceQueue.list(), steps: store.getState().steps, finishUrl });
+        if (!plan) return;
+        await dropFailedRequest(plan.dropKey);
+        for (const step of plan.steps) await enqueueRequest({ label: step.label ?? step.kind, url: `/api/inspections/${inspection.id}/steps`, method: 'POST', json: toStepBody(step) });
+        await enqueueRequest({ label: 'signature', url: finishUrl, method: 'POST', json: plan.finishJson, resendRound: plan.round });
+      } finally {
+        resending.current = false;
+      }
+    })();
+  }, [refusedKeys, store, finishUrl, inspection.id]);
 
   return (
     <div className="flex flex-col gap-4 pb-10">
