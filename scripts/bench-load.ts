@@ -1,7 +1,7 @@
 // The load benchmark: the built app on a free loopback port, 100 simulated drivers each walking
 // a 60-step inspection (start, steps with client ids, one photo, sign), driven by autocannon.
 //
-//   npm run bench:load [-- --json] [-- --drivers N --steps N --rate R]
+//   npm run bench:load [-- --json] [-- --drivers N --steps N --rate R --groups G] [-- --profile DIR]
 //
 // Each autocannon connection is one driver with its own session cookie and tractor, posting its
 // steps one after another. `--rate` caps the requests per second across all drivers (a yard of
@@ -42,6 +42,9 @@ if (RATE > 0 && RATE < DRIVERS) {
   process.exit(2);
 }
 const TIME_LIMIT_S = flag('time-limit', 150);
+const profileAt = args.indexOf('--profile');
+/** `--profile DIR`: the app writes a V8 CPU profile there when it stops (open it in Chrome's DevTools). */
+const PROFILE_DIR = profileAt >= 0 && args[profileAt + 1] ? path.resolve(args[profileAt + 1]!) : null;
 const log = (msg: string) => {
   if (!asJson) console.log(`[bench:load] ${msg}`);
   else console.error(`[bench:load] ${msg}`);
@@ -151,7 +154,8 @@ async function startApp(databaseUrl: string): Promise<string> {
   await runBuildIfMissing(env);
   fs.mkdirSync(path.join(root, '.data', 'logs'), { recursive: true });
   const out = fs.openSync(path.join(root, '.data', 'logs', 'bench-load-app.log'), 'w');
-  app = spawn(process.execPath, ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(port)], { cwd: root, env, detached: true, stdio: ['ignore', out, out] });
+  const profile = PROFILE_DIR ? ['--cpu-prof', `--cpu-prof-dir=${PROFILE_DIR}`] : [];
+  app = spawn(process.execPath, [...profile, 'node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(port)], { cwd: root, env, detached: true, stdio: ['ignore', out, out] });
   const until = Date.now() + 60_000;
   while (Date.now() < until) {
     if (app.exitCode !== null) throw new Error('the app exited at start (see .data/logs/bench-load-app.log)');
@@ -245,11 +249,13 @@ async function main() {
   // a connection walks its driver's STEPS requests in order (autocannon keeps a connection's
   // context through its request list, and maxConnectionRequests stops it at the end of it).
   // The groups start apart, so that the drivers' once-a-second rate budgets (autocannon's rate
-  // limit is a per-second budget per connection) do not all renew at the same instant.
+  // limit is a per-second budget per connection) do not all renew at the same instant. By
+  // default every driver is a group of its own: drivers in a yard do not press in step with
+  // each other, and `--groups 10` (ten drivers renewing together) shows what bursts cost.
   const latencies: number[] = [];
   const statuses = new Map<number, number>();
   const perDriverRate = RATE > 0 ? RATE / DRIVERS : 0;
-  const GROUPS = Math.min(10, DRIVERS);
+  const GROUPS = Math.max(1, Math.min(flag('groups', DRIVERS), DRIVERS));
   const stepsStarted = Date.now();
   const runGroup = (group: Driver[]) =>
     new Promise<autocannon.Result>((resolve, reject) => {
@@ -310,7 +316,7 @@ async function main() {
     if (res.status !== 201) note('photo', res.status, await res.text());
   });
   await pool(drivers, 10, async (d) => {
-    const res = await fetch(`${base}/api/inspections/${d.inspectionId}/finish`, { method: 'POST', headers: headers(d), body: JSON.stringify({ signatureName: d.name, certify: true, finishedAt: new Date().toISOString() }) });
+    const res = await fetch(`${base}/api/inspections/${d.inspectionId}/finish`, { method: 'POST', headers: headers(d), body: JSON.stringify({ signatureName: d.name, certify: true, finishedAt: new Date().toISOString(), stepIds: d.sent.map((s) => s.id) }) });
     if (res.status !== 200) note('finish', res.status, await res.text());
   });
 
@@ -343,7 +349,7 @@ async function main() {
     doubled,
   };
 
-  log(`rate cap ${RATE > 0 ? `${RATE} requests/s` : 'none'}; ${summary.steps} steps by ${DRIVERS} drivers in ${stepSeconds.toFixed(1)} s = ${summary.steps_per_s} steps/s`);
+  log(`rate cap ${RATE > 0 ? `${RATE} requests/s` : 'none'}, drivers in ${GROUPS} pacing group(s); ${summary.steps} steps by ${DRIVERS} drivers in ${stepSeconds.toFixed(1)} s = ${summary.steps_per_s} steps/s`);
   log(`step route latency p50 ${summary.p50_ms} ms, p95 ${summary.p95_ms} ms, p99 ${summary.p99_ms} ms, max ${sorted[sorted.length - 1] ?? 0} ms (target p99 <= 50 ms: ${summary.p99_ms <= 50 ? 'met' : 'MISSED'})`);
   log(`errors ${errors} (step errors ${result.errors}, timeouts ${result.timeouts}, non-2xx ${non2xx}, start/replay/photo/finish ${otherErrors}); ${replays.length} steps sent again, ${replayErrors} of them not answered 200`);
   log(`rows: ${rows.length} steps for ${sentIds.size} sent, lost ${lost}, doubled ${doubled}; ${Number(signed.n)}/${DRIVERS} reports signed, ${Number(photos.n)} photos; rigcall_load is ${dbSize.rows[0]?.size}`);
