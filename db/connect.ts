@@ -12,8 +12,10 @@ export type DB = Kysely<Database>;
  * Build a Kysely instance over a pg pool. The app has exactly one (lib/db); the command-line
  * tools (migrate, seed, benchmarks) and the tests make their own, one per process.
  */
-export function createDb(connectionString: string, max = 10): DB {
-  const pool = new pg.Pool({ connectionString, max });
+export function createDb(connectionString: string, max = 10, opts: { waitForDisk?: boolean } = {}): DB {
+  // waitForDisk: false gives connections whose commits do not wait for the WAL to reach the disk
+  // (synchronous_commit off): only for writes that the client keeps and checks again later.
+  const pool = new pg.Pool({ connectionString, max, ...(opts.waitForDisk === false ? { options: '-c synchronous_commit=off' } : {}) });
   // An idle connection dropped by the server (a restart) must not crash the process; the next
   // query opens a new one.
   pool.on('error', (err) => console.error('[rigcall] database connection lost:', err.message));

@@ -1,6 +1,6 @@
 import 'server-only';
 import { sql } from 'kysely';
-import { getDb, type DB } from '@/lib/db';
+import { getDb, getStepDb, type DB } from '@/lib/db';
 import { findFleetSettings } from '@/lib/db/fleets';
 import { findInspectionForUpdate, findStep, stepColumns } from '@/lib/db/inspections';
 import { findFleetUnit } from '@/lib/db/units';
@@ -13,7 +13,14 @@ import type { z } from 'zod';
 import { recordAudit } from './record-audit';
 import { loadGrammar, resolveTerm } from './resolve-vocabulary';
 
+// Durability. An open walk's steps are written on getStepDb, whose commits do not wait for the
+// disk: a database crash can lose the last fraction of a second of them after the phone was told
+// they were saved. The phone keeps every step until the report is signed; signing names them
+// all and is refused while the server lacks one (the phone then sends it again), and the
+// signing commit waits for the disk, which makes every earlier step durable with it.
+
 type Body = z.output<typeof recordStepBodySchema>;
+type Inspection = { fleetId: string; tractorId: string; trailerId: string | null; ruleProfile: string; vocabularyVersionId: string | null };
 const itemsOf = (zones: Zones) => new Map(zones.zones.flatMap((z) => z.items.map((i) => [i.id, i] as const)));
 
 /** What the rules need about the units of this inspection. */
@@ -32,11 +39,90 @@ export async function loadCheckContext(db: DB, i: { fleetId: string; tractorId: 
   };
 }
 
+// What an inspection was started with never changes: its units, rule profile and vocabulary.
+// Kept per process, so that a walk's later steps need not read the inspection first.
+const startedWith = new Map<string, Inspection>();
+const rememberInspection = (i: Inspection & { id: string }) => {
+  if (startedWith.size >= 5000) startedWith.delete(startedWith.keys().next().value!);
+  startedWith.set(`${i.fleetId}:${i.id}`, { fleetId: i.fleetId, tractorId: i.tractorId, trailerId: i.trailerId, ruleProfile: i.ruleProfile, vocabularyVersionId: i.vocabularyVersionId });
+};
+
+/** The trainers' inbox takes what the vocabulary missed or half-caught. */
+const utteranceOutcome = (body: Body) =>
+  body.inputMode !== 'voice' || !body.heard ? null : body.kind === 'note' ? 'unmatched' : body.resolution === 'corrected' ? 'corrected' : body.resolution === 'confirmed' ? 'low_score' : null;
+
+/** The step's words and judgement, worked out on the server from the inspection's own vocabulary and units. */
+async function judgeStep(db: DB, inspection: Inspection, body: Body) {
+  const judged = {
+    component: null as string | null,
+    condition: null as string | null,
+    severity: null as 'minor' | 'major' | null,
+    source: null as string | null,
+    verdict: null as 'pass' | 'fail' | null,
+    limitText: null as string | null,
+    measurementKind: null as string | null,
+    value: null as number | null,
+    unit: null as string | null,
+  };
+  const grammar = await loadGrammar(db, inspection.vocabularyVersionId);
+  if (body.termKey) {
+    const term = resolveTerm(grammar.vocabulary, body.termKey, inspection.ruleProfile);
+    if (!term) throw new AppError('invalid_body', `“${body.termKey}” is not in this inspection’s vocabulary.`, { termKey: ['not in the vocabulary'] });
+    judged.component = term.component;
+    judged.condition = term.condition;
+    if (body.kind === 'defect') {
+      judged.severity = term.severity;
+      judged.source = term.source;
+    }
+  }
+  if (body.kind === 'measurement' && body.reading && body.item) {
+    const item = itemsOf(grammar.zones).get(body.item);
+    if (!item?.measure) throw new AppError('invalid_body', `“${body.item}” is not a checklist item that takes a reading.`, { item: ['not a measured item'] });
+    judged.measurementKind = item.measure;
+    judged.component = grammar.vocabulary.components.find((c) => c.id === item.component)?.name ?? item.label;
+    judged.value = body.reading.value;
+    judged.unit = measureUnit[item.measure];
+    const input = buildCheckInput(item, body.reading, await loadCheckContext(db, inspection));
+    if (input) {
+      const outcome = evaluateMeasurement(input, { profile: inspection.ruleProfile });
+      if ('error' in outcome) throw new AppError('invalid_body', `That reading cannot be judged: ${outcome.error}.`, { reading: [outcome.error] });
+      judged.measurementKind = outcome.check;
+      judged.verdict = outcome.verdict;
+      judged.severity = outcome.severity;
+      judged.source = outcome.source;
+      judged.limitText = outcome.limit === null ? null : `${outcome.limit} ${outcome.unit}`;
+    }
+  }
+  return judged;
+}
+
+const stepRow = (fleetId: string, inspectionId: string, body: Body, judged: Awaited<ReturnType<typeof judgeStep>>) => ({
+  id: body.id,
+  fleetId,
+  inspectionId,
+  seq: body.seq,
+  zone: body.zone,
+  item: body.item,
+  kind: body.kind,
+  heard: body.heard,
+  alternatives: JSON.stringify(body.alternatives),
+  inputMode: body.inputMode,
+  termKey: body.termKey,
+  position: body.position,
+  score: body.score,
+  resolution: body.resolution,
+  undoesStepId: body.undoesStepId,
+  deviceAt: new Date(body.deviceAt),
+  ...judged,
+});
+
 /**
  * Record one step of a walk. The id comes from the device: the same step sent twice is recorded
  * once, even after the report is locked. The server judges readings and finds severities itself.
  */
 export async function recordStep({ fleetId, actorId, inspectionId, body }: { fleetId: string; actorId: string; inspectionId: string; body: Body }) {
+  const quick = await writeStepQuickly({ fleetId, actorId, inspectionId, body });
+  if (quick) return { step: quick, created: true };
   const outcome = await writeStep({ fleetId, actorId, inspectionId, body });
   if ('refused' in outcome) {
     // Logged outside the refused write, so the attempt stays on record.
@@ -46,15 +132,41 @@ export async function recordStep({ fleetId, actorId, inspectionId, body }: { fle
   return outcome;
 }
 
+const snake = (s: string) => s.replace(/[A-Z]/g, (c) => `_${c.toLowerCase()}`);
+
+/**
+ * The common case in one statement: a new plain step of an open walk this process has seen
+ * before. The row is written only while the inspection is this driver's and not signed; the
+ * inspection row is share-locked for it, so signing (which locks it for update) waits for the
+ * step or the step for the signing, never both half-way. Anything else (the first step of a walk,
+ * a reading, a take-back, a phrase for the trainers, a replay, a refusal) returns null and goes
+ * the careful way.
+ */
+async function writeStepQuickly({ fleetId, actorId, inspectionId, body }: { fleetId: string; actorId: string; inspectionId: string; body: Body }) {
+  const inspection = startedWith.get(`${fleetId}:${inspectionId}`);
+  if (!inspection || body.kind === 'measurement' || body.undoesStepId || utteranceOutcome(body)) return null;
+  const db = getStepDb();
+  const row = stepRow(fleetId, inspectionId, body, await judgeStep(db, inspection, body));
+  const columns = Object.keys(row).map(snake);
+  const record = Object.fromEntries(Object.entries(row).map(([k, v]) => [snake(k), k === 'alternatives' ? body.alternatives : v]));
+  const result = await sql<Record<(typeof stepColumns)[number], unknown>>`
+    with live as (
+      select id from inspection
+      where id = ${inspectionId} and fleet_id = ${fleetId} and driver_id = ${actorId} and status <> 'submitted'
+      for key share
+    )
+    insert into inspection_step (${sql.join(columns.map((c) => sql.ref(c)))})
+    select ${sql.join(columns.map((c) => sql.ref(`r.${c}`)))}
+    from live, json_populate_record(null::inspection_step, ${JSON.stringify(record)}::json) r
+    on conflict (id) do nothing
+    returning ${sql.join(stepColumns.map((c) => sql.ref(snake(c))))}`.execute(db);
+  return (result.rows[0] as Awaited<ReturnType<typeof findStep>>) ?? null;
+}
+
 async function writeStep({ fleetId, actorId, inspectionId, body }: { fleetId: string; actorId: string; inspectionId: string; body: Body }) {
-  return getDb()
+  return getStepDb()
     .transaction()
     .execute(async (trx) => {
-      // A step of an open walk commits without waiting for the disk: the phone keeps every step
-      // until the report is signed, signing names them all and is refused while one is missing,
-      // and the signing commit does wait, which makes every earlier step durable with it.
-      // (A step replayed after the lock changes nothing, so this costs nothing there.)
-      await sql`set local synchronous_commit = off`.execute(trx);
       const inspection = await findInspectionForUpdate(trx, { fleetId, id: inspectionId });
       if (!inspection) throw new AppError('not_found', 'No such inspection in your fleet.');
       if (inspection.driverId !== actorId) throw new AppError('forbidden', 'Only the driver who started this inspection records its steps.');
@@ -63,93 +175,23 @@ async function writeStep({ fleetId, actorId, inspectionId, body }: { fleetId: st
         const already = await findStep(trx, { inspectionId, id: body.id });
         return already ? { step: already, created: false } : { refused: true as const };
       }
+      rememberInspection(inspection);
       if (body.undoesStepId) {
         const target = await findStep(trx, { inspectionId, id: body.undoesStepId });
         if (!target) throw new AppError('invalid_body', 'The step to take back is not part of this inspection.', { undoesStepId: ['not part of this inspection'] });
       }
-
-      let component: string | null = null;
-      let condition: string | null = null;
-      let severity: 'minor' | 'major' | null = null;
-      let source: string | null = null;
-      let verdict: 'pass' | 'fail' | null = null;
-      let limitText: string | null = null;
-      let measurementKind: string | null = null;
-      let value: number | null = null;
-      let unit: string | null = null;
-
-      const grammar = await loadGrammar(trx, inspection.vocabularyVersionId);
-      if (body.termKey) {
-        const vocab = grammar.vocabulary;
-        const term = resolveTerm(vocab, body.termKey, inspection.ruleProfile);
-        if (!term) throw new AppError('invalid_body', `“${body.termKey}” is not in this inspection’s vocabulary.`, { termKey: ['not in the vocabulary'] });
-        component = term.component;
-        condition = term.condition;
-        if (body.kind === 'defect') {
-          severity = term.severity;
-          source = term.source;
-        }
-      }
-      if (body.kind === 'measurement' && body.reading && body.item) {
-        const item = itemsOf(grammar.zones).get(body.item);
-        if (!item?.measure) throw new AppError('invalid_body', `“${body.item}” is not a checklist item that takes a reading.`, { item: ['not a measured item'] });
-        measurementKind = item.measure;
-        component = grammar.vocabulary.components.find((c) => c.id === item.component)?.name ?? item.label;
-        value = body.reading.value;
-        unit = measureUnit[item.measure];
-        const input = buildCheckInput(item, body.reading, await loadCheckContext(trx, inspection));
-        if (input) {
-          const outcome = evaluateMeasurement(input, { profile: inspection.ruleProfile });
-          if ('error' in outcome) throw new AppError('invalid_body', `That reading cannot be judged: ${outcome.error}.`, { reading: [outcome.error] });
-          measurementKind = outcome.check;
-          verdict = outcome.verdict;
-          severity = outcome.severity;
-          source = outcome.source;
-          limitText = outcome.limit === null ? null : `${outcome.limit} ${outcome.unit}`;
-        }
-      }
-
       const step = await trx
         .insertInto('inspectionStep')
-        .values({
-          id: body.id,
-          fleetId,
-          inspectionId,
-          seq: body.seq,
-          zone: body.zone,
-          item: body.item,
-          kind: body.kind,
-          heard: body.heard,
-          alternatives: JSON.stringify(body.alternatives),
-          inputMode: body.inputMode,
-          termKey: body.termKey,
-          component,
-          condition,
-          position: body.position,
-          score: body.score,
-          resolution: body.resolution,
-          undoesStepId: body.undoesStepId,
-          measurementKind,
-          value,
-          unit,
-          verdict,
-          severity,
-          limitText,
-          source,
-          deviceAt: new Date(body.deviceAt),
-        })
+        .values(stepRow(fleetId, inspectionId, body, await judgeStep(trx, inspection, body)))
         .onConflict((oc) => oc.column('id').doNothing())
         .returning(stepColumns)
         .executeTakeFirst();
-      if (step && body.inputMode === 'voice' && body.heard) {
-        // What the vocabulary missed or half-caught goes to the trainers' inbox.
-        const outcome = body.kind === 'note' ? 'unmatched' : body.resolution === 'corrected' ? 'corrected' : body.resolution === 'confirmed' ? 'low_score' : null;
-        if (outcome) {
-          await trx
-            .insertInto('fieldUtterance')
-            .values({ fleetId, stepId: step.id, zone: body.zone, text: body.heard, normalized: body.heard.toLowerCase().replace(/[^a-z0-9' ]+/g, ' ').replace(/\s+/g, ' ').trim(), outcome, termKey: body.termKey, score: body.score })
-            .execute();
-        }
+      const outcome = utteranceOutcome(body);
+      if (step && outcome && body.heard) {
+        await trx
+          .insertInto('fieldUtterance')
+          .values({ fleetId, stepId: step.id, zone: body.zone, text: body.heard, normalized: body.heard.toLowerCase().replace(/[^a-z0-9' ]+/g, ' ').replace(/\s+/g, ' ').trim(), outcome, termKey: body.termKey, score: body.score })
+          .execute();
       }
       if (step) return { step, created: true };
       // Sent before (a replay after a reconnect): return what was recorded the first time.

@@ -8,6 +8,7 @@ import * as photos from '@/app/api/inspections/[id]/photos/[photoId]/route';
 import * as signature from '@/app/api/inspections/[id]/signature/route';
 import * as steps from '@/app/api/inspections/[id]/steps/route';
 import * as inspections from '@/app/api/inspections/route';
+import * as report from '@/app/api/reports/[id]/route';
 import * as review from '@/app/api/units/[id]/review/route';
 import { makeFleetFixture, type FleetFixture } from '../../setup/fleet-fixture';
 import { callRoute, makeRequest } from '../../setup/session';
@@ -190,5 +191,40 @@ describe('signing names every step the phone recorded', () => {
     expect(held.map((r) => r.id).sort()).toEqual([first, second, neverArrived].sort());
     // Sent again after the lock (the phone did not hear the answer): the same report, unchanged.
     expect((await sign([first, second, neverArrived])).status).toBe(200);
+  });
+});
+
+describe('steps racing the signature', () => {
+  // Steps of an open walk take the quick one-statement path once the walk is known; signing locks
+  // the inspection for update. Whatever the interleaving, a step answered 2xx is in the signed
+  // report (its hash still checks), and one that lost the race is refused with 409.
+  let g: FleetFixture;
+  beforeAll(async () => {
+    g = await makeFleetFixture(db, 'Race fleet');
+  });
+
+  it('never adds a step to a report after its hash was taken', async () => {
+    const inspectionId = randomUUID();
+    const post = (body: Record<string, unknown>) =>
+      callRoute(steps.POST, makeRequest(`/api/inspections/${inspectionId}/steps`, { method: 'POST', cookie: g.cookies.driver, json: { inputMode: 'tap', deviceAt: now(), ...body } }), { id: inspectionId });
+    const begin = await callRoute(inspections.POST, makeRequest('/api/inspections', { method: 'POST', cookie: g.cookies.driver, json: { id: inspectionId, kind: 'pre_trip', tractorId: g.tractor.id, trailerId: null, odometer: 5100, startedAt: now() } }));
+    expect(begin.status).toBe(201);
+    expect((await post({ id: randomUUID(), seq: 0, zone: 'front', kind: 'visit' })).status).toBe(201);
+    const racing = Array.from({ length: 40 }, (_x, i) => ({ id: randomUUID(), seq: i + 1, zone: 'front', kind: 'zone_ok' }));
+    const answers = await Promise.all([
+      ...racing.slice(0, 20).map((b) => post(b)),
+      callRoute(finish.POST, makeRequest(`/api/inspections/${inspectionId}/finish`, { method: 'POST', cookie: g.cookies.driver, json: { signatureName: g.users.driver.name, certify: true, finishedAt: now() } }), { id: inspectionId }),
+      ...racing.slice(20).map((b) => post(b)),
+    ]);
+    const signedAnswer = answers[20]!;
+    expect(signedAnswer.status).toBe(200);
+    const stepAnswers = [...answers.slice(0, 20), ...answers.slice(21)];
+    expect(stepAnswers.every((r) => r.status === 201 || r.status === 409)).toBe(true);
+    const accepted = racing.filter((_b, i) => stepAnswers[i]!.status === 201).map((b) => b.id);
+    const held = await db.selectFrom('inspectionStep').select('id').where('inspectionId', '=', inspectionId).where('kind', '=', 'zone_ok').execute();
+    expect(held.map((r) => r.id).sort()).toEqual(accepted.sort());
+    const integrity = await callRoute(report.GET, makeRequest(`/api/reports/${inspectionId}`, { cookie: g.cookies.supervisor }), { id: inspectionId });
+    expect(integrity.status).toBe(200);
+    expect((await integrity.json()).hash).toMatchObject({ state: 'match' });
   });
 });
