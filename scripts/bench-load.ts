@@ -230,19 +230,24 @@ async function main() {
     if (res.status !== 201) note('start', res.status, await res.text());
   });
 
-  // Warm-up, not counted: a fresh server compiles and optimises on its first requests.
+  // Warm-up, not counted: a fresh server compiles and optimises on its first requests. Ten
+  // walks of their own (their drivers and tractors are not the measured ones), each walked by
+  // one client at a time as a phone does, so that the paths of the measured walks are warm.
   {
-    const warm = await db.insertInto('appUser').values({ fleetId: fleet.id, email: `warm-${fleet.slug}@load.example`, name: 'Warm Up', passwordHash, roles: ['driver'], active: true }).returning(['id']).executeTakeFirstOrThrow();
-    const tractor = await makeUnit(db, { fleetId: fleet.id, kind: 'tractor' });
-    const token = await encode({ secret, token: { uid: warm.id, name: 'Warm Up', email: 'warm@load.example', fleetId: fleet.id, roles: ['driver'], sub: warm.id } as never });
-    const w: Driver = { id: warm.id, name: 'Warm Up', cookie: `next-auth.session-token=${token}`, tractorId: tractor.id, inspectionId: randomUUID(), sent: [] };
-    await fetch(`${base}/api/inspections`, { method: 'POST', headers: headers(w), body: JSON.stringify({ id: w.inspectionId, kind: 'pre_trip', tractorId: w.tractorId, trailerId: null, odometer: 1, startedAt: new Date().toISOString() }) });
-    let n = 0;
-    await pool(Array.from({ length: 300 }, (_x, i) => i), 4, async () => {
-      const res = await fetch(`${base}/api/inspections/${w.inspectionId}/steps`, { method: 'POST', headers: headers(w), body: JSON.stringify({ id: randomUUID(), ...stepBody(n++ % STEPS), seq: n }) });
-      await res.arrayBuffer();
+    const WARM_WALKS = 10;
+    const WARM_STEPS = 100;
+    await pool(Array.from({ length: WARM_WALKS }, (_x, i) => i), WARM_WALKS, async (i) => {
+      const warm = await db.insertInto('appUser').values({ fleetId: fleet.id, email: `warm-${i}-${fleet.slug}@load.example`, name: `Warm Up ${i}`, passwordHash, roles: ['driver'], active: true }).returning(['id']).executeTakeFirstOrThrow();
+      const tractor = await makeUnit(db, { fleetId: fleet.id, kind: 'tractor' });
+      const token = await encode({ secret, token: { uid: warm.id, name: `Warm Up ${i}`, email: `warm-${i}@load.example`, fleetId: fleet.id, roles: ['driver'], sub: warm.id } as never });
+      const w: Driver = { id: warm.id, name: `Warm Up ${i}`, cookie: `next-auth.session-token=${token}`, tractorId: tractor.id, inspectionId: randomUUID(), sent: [] };
+      await fetch(`${base}/api/inspections`, { method: 'POST', headers: headers(w), body: JSON.stringify({ id: w.inspectionId, kind: 'pre_trip', tractorId: w.tractorId, trailerId: null, odometer: 1, startedAt: new Date().toISOString() }) });
+      for (let n = 0; n < WARM_STEPS; n++) {
+        const res = await fetch(`${base}/api/inspections/${w.inspectionId}/steps`, { method: 'POST', headers: headers(w), body: JSON.stringify({ id: randomUUID(), ...stepBody(n % STEPS), seq: n }) });
+        await res.arrayBuffer();
+      }
     });
-    log('warmed up with 300 steps on a walk of its own');
+    log(`warmed up with ${WARM_WALKS} walks of ${WARM_STEPS} steps of their own`);
   }
 
   // The steps: GROUPS autocannon instances, each with one connection per driver of its group;
