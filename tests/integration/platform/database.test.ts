@@ -1,6 +1,7 @@
 import { sql } from 'kysely';
 import { afterAll, describe, expect, it } from 'vitest';
 import { makeFleet, makeUnit, makeUser } from '../../../db/factories';
+import { getDb, getStepDb } from '@/lib/db';
 import { getTestDb } from '../../setup/test-db';
 
 const db = getTestDb();
@@ -22,6 +23,13 @@ describe('PostgreSQL through Kysely', () => {
 
     const units = await db.selectFrom('unit').select(['unitNumber', 'status', 'year']).where('fleetId', '=', fleet.id).execute();
     expect(units).toEqual([{ unitNumber: '901', status: 'in_service', year: 2020 }]);
+  });
+
+  it('commits an open walk’s steps without waiting for the disk, and everything else waiting for it', async () => {
+    // Signing runs on getDb: its commit waits, and makes the steps before it durable too.
+    const mode = async (d: typeof db) => (await sql<{ synchronous_commit: string }>`show synchronous_commit`.execute(d)).rows[0];
+    expect(await mode(getStepDb())).toEqual({ synchronousCommit: 'off' });
+    expect(await mode(getDb())).toEqual({ synchronousCommit: 'on' });
   });
 
   it('refuses a role that does not exist', async () => {
