@@ -171,7 +171,17 @@ describe('signing names every step the phone recorded', () => {
   it('refuses to lock while the server lacks one, names it, and changes nothing', async () => {
     expect((await begin()).status).toBe(201);
     expect((await record({ id: first, seq: 0, zone: 'front', kind: 'visit', inputMode: 'tap' })).status).toBe(201);
-    expect((await record({ id: second, seq: 1, zone: 'front', kind: 'defect', heard: 'horn does not work', termKey: 'horn:inoperative', score: 0.95, resolution: 'auto' })).status).toBe(201);
+    // The walk is known now, so this one takes the one-statement path; its answer must be the
+    // same row, in the same words, as the careful path gives back for a replay of it.
+    const secondBody = { id: second, seq: 1, zone: 'front', kind: 'defect', heard: 'horn does not work', termKey: 'horn:inoperative', score: 0.95, resolution: 'auto' };
+    const quick = await record(secondBody);
+    expect(quick.status).toBe(201);
+    const quickStep = (await quick.json()).step;
+    expect(quickStep).toMatchObject({ id: second, termKey: 'horn:inoperative', inputMode: 'voice', kind: 'defect', alternatives: [], undoesStepId: null });
+    expect(quickStep.severity).toMatch(/^(minor|major)$/);
+    const replay = await record(secondBody);
+    expect(replay.status).toBe(200);
+    expect((await replay.json()).step).toEqual(quickStep);
     const refused = await sign([first, second, neverArrived]);
     expect(refused.status).toBe(409);
     const body = await refused.json();
