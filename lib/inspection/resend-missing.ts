@@ -31,7 +31,7 @@ export function planResend({ outbox, steps, finishUrl }: { outbox: QueuedRequest
   const refusedSteps = new Set(
     outbox.filter((r) => r.state === 'failed' && r.url.endsWith('/steps')).map((r) => (r.json as { id?: string } | undefined)?.id).filter((id): id is string => !!id),
   );
-  const onPhone = new Map(steps.map((s) => [s.id, s]));
+  const onPhone = new Set(steps.map((s) => s.id));
   const missing = new Set(refusedFinish.errorFields!.stepIds!);
   const resend = steps.filter((s) => missing.has(s.id) && !refusedSteps.has(s.id));
   // Named steps the phone no longer holds, or that were refused, are dropped from the list.

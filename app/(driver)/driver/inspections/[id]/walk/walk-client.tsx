@@ -18,6 +18,10 @@ import { checkInspectionDuration, evaluateMeasurement } from '@/lib/rules';
 import type { Grammar, Vocabulary, ZoneItem } from '@/lib/schemas/grammar';
 import { AirTimer, AnswerMark, capitalize, formatReading, HoldToTalk, inputClass, PendingMatchPanel, ReadingResult, SealCheckPanel, SeverityMark, SignaturePad, WalkStatusBar } from './walk-parts';
 
+/** One step into the device outbox, on its way to the server. */
+const enqueueStep = (inspectionId: string, step: WalkStep) =>
+  enqueueRequest({ label: step.label ?? step.kind, url: `/api/inspections/${inspectionId}/steps`, method: 'POST', json: toStepBody(step) });
+
 type Props = {
   inspection: { id: string; kind: 'pre_trip' | 'post_trip'; status: 'draft' | 'submitted'; startedAt: string; sealNumber: string | null; ruleProfile: string };
   tractorNumber: string;
@@ -70,7 +74,7 @@ export function WalkClient(props: Props) {
   const record = useCallback(
     (s: Omit<WalkStep, 'id' | 'seq' | 'deviceAt'>) => {
       const step = store.getState().record(s);
-      void enqueueRequest({ label: s.label ?? s.kind, url: `/api/inspections/${inspection.id}/steps`, method: 'POST', json: toStepBody(step) });
+      void enqueueStep(inspection.id, step);
       return step;
     },
     [store, inspection.id],
@@ -504,7 +508,7 @@ function ReviewAndSign(props: Props & { store: ReturnType<typeof createWalkStore
         const plan = planResend({ outbox: await deviceQueue.list(), steps: store.getState().steps, finishUrl });
         if (!plan) return;
         await dropFailedRequest(plan.dropKey);
-        for (const step of plan.steps) await enqueueRequest({ label: step.label ?? step.kind, url: `/api/inspections/${inspection.id}/steps`, method: 'POST', json: toStepBody(step) });
+        for (const step of plan.steps) await enqueueStep(inspection.id, step);
         await enqueueRequest({ label: 'signature', url: finishUrl, method: 'POST', json: plan.finishJson, resendRound: plan.round });
       } finally {
         resending.current = false;
