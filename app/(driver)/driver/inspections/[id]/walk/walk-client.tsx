@@ -500,12 +500,16 @@ function ReviewAndSign(props: Props & { store: ReturnType<typeof createWalkStore
   // Signing refused because the server lacks steps: send them again from this phone, then sign again.
   const refusedKeys = queue.failed.map((f) => f.key).join(',');
   const resending = useRef(false);
+  // Sent again as often as it helps, and the server still lacks steps: say so, not "sending again".
+  const [stillMissing, setStillMissing] = useState(false);
   useEffect(() => {
     if (!refusedKeys || resending.current) return;
     resending.current = true;
     void (async () => {
       try {
-        const plan = planResend({ outbox: await deviceQueue.list(), steps: store.getState().steps, finishUrl });
+        const outbox = await deviceQueue.list();
+        const plan = planResend({ outbox, steps: store.getState().steps, finishUrl });
+        setStillMissing(!plan && outbox.some((r) => r.url === finishUrl && r.state === 'failed' && !!r.errorFields?.stepIds));
         if (!plan) return;
         await dropFailedRequest(plan.dropKey);
         for (const step of plan.steps) await enqueueStep(inspection.id, step);
@@ -566,7 +570,13 @@ function ReviewAndSign(props: Props & { store: ReturnType<typeof createWalkStore
         <div className="space-y-3">
           <p className="text-xl">Signed by {signedName}.</p>
           <p role="status" data-testid="signed-status" className="text-xl font-bold">
-            {sent ? '✓ Report locked on RigCall’s server.' : queue.failed.length ? `▲ ${queue.failed[0]!.error}` : `Saved on this phone; sending ${queue.pending}…`}
+            {sent
+              ? '✓ Report locked on RigCall’s server.'
+              : stillMissing
+                ? '▲ Not locked: RigCall’s server still lacks steps from this phone. Keep this phone and tell the office.'
+                : queue.failed.length
+                  ? `▲ ${queue.failed[0]!.error}`
+                  : `Saved on this phone; sending ${queue.pending}…`}
           </p>
           <Link href="/driver" className={slabClass('primary')}>
             Done
