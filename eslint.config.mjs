@@ -8,8 +8,10 @@ import tseslint from 'typescript-eslint';
 
 /** Server-only modules: never imported by client code, pure code or shared components. */
 const serverOnly = {
-  regex: '^@/(lib/(db|services|api|mail|storage)(/.*)?|lib/auth(/(config|guards|rate-limit|index|session-version))?|lib/env|db/.*)$',
-  message: 'Server-only module: client code, pure code and shared components must not import it (DEVELOPERS.md, layers).',
+  regex:
+    '^@/(lib/(db|services|api|mail|storage)(/.*)?|lib/auth(/(config|guards|rate-limit|index|session-version))?|lib/env|db/.*)$',
+  message:
+    'Server-only module: client code, pure code and shared components must not import it (DEVELOPERS.md, layers).',
 };
 
 /** A local rule: a file that starts with 'use client' may not import a server-only module. */
@@ -25,9 +27,7 @@ const layersPlugin = {
       },
       create(context) {
         const body = context.sourceCode.ast.body;
-        const isClient = body.some(
-          (n) => n.type === 'ExpressionStatement' && n.directive === 'use client',
-        );
+        const isClient = body.some((n) => n.type === 'ExpressionStatement' && n.directive === 'use client');
         if (!isClient) return {};
         const patterns = [
           /^@\/lib\/(db|services|api|mail|storage)(\/|$)/,
@@ -100,7 +100,8 @@ export default tseslint.config(
           patterns: [
             serverOnly,
             {
-              regex: '^(@/(app|components|lib/(inspection|queries|http))(/.*)?|next(/.*)?|react(-dom)?(/.*)?|server-only|node:.*)$',
+              regex:
+                '^(@/(app|components|lib/(inspection|queries|http))(/.*)?|next(/.*)?|react(-dom)?(/.*)?|server-only|node:.*)$',
               message: 'lib/matcher, lib/rules and lib/walk are pure: no app, framework, React or Node imports.',
             },
           ],

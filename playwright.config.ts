@@ -6,7 +6,8 @@ const port = Number(process.env.APP_PORT ?? 3100);
 const baseURL = `http://127.0.0.1:${port}`;
 const executablePath = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 const dbUrl = process.env.DATABASE_URL ?? '';
-if (dbUrl && !/@(127\.0\.0\.1|localhost)[:/]/.test(dbUrl)) throw new Error('e2e tests only run against a database on loopback');
+if (dbUrl && !/@(127\.0\.0\.1|localhost)[:/]/.test(dbUrl))
+  throw new Error('e2e tests only run against a database on loopback');
 
 export default defineConfig({
   testDir: 'tests/e2e',
@@ -15,14 +16,24 @@ export default defineConfig({
   retries: process.env.CI ? 1 : 0,
   workers: 2,
   timeout: 60_000,
-  reporter: [['list'], ['json', { outputFile: process.env.PLAYWRIGHT_JSON_OUTPUT_NAME ?? '.data/reports/playwright.json' }]],
+  reporter: [
+    ['list'],
+    ['json', { outputFile: process.env.PLAYWRIGHT_JSON_OUTPUT_NAME ?? '.data/reports/playwright.json' }],
+  ],
   use: {
     baseURL,
     trace: 'retain-on-failure',
     screenshot: 'only-on-failure',
     launchOptions: {
       executablePath,
-      args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
+      args: [
+        '--no-sandbox',
+        '--disable-gpu',
+        '--disable-background-networking',
+        '--disable-component-update',
+        '--disable-sync',
+        '--no-first-run',
+      ],
     },
   },
   projects: [{ name: 'chromium', use: { ...devices['Desktop Chrome'] } }],

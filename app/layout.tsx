@@ -7,8 +7,16 @@ import './globals.css';
 
 const body = localFont({
   src: [
-    { path: '../node_modules/@fontsource-variable/atkinson-hyperlegible-next/files/atkinson-hyperlegible-next-latin-wght-normal.woff2', style: 'normal', weight: '200 800' },
-    { path: '../node_modules/@fontsource-variable/atkinson-hyperlegible-next/files/atkinson-hyperlegible-next-latin-wght-italic.woff2', style: 'italic', weight: '200 800' },
+    {
+      path: '../node_modules/@fontsource-variable/atkinson-hyperlegible-next/files/atkinson-hyperlegible-next-latin-wght-normal.woff2',
+      style: 'normal',
+      weight: '200 800',
+    },
+    {
+      path: '../node_modules/@fontsource-variable/atkinson-hyperlegible-next/files/atkinson-hyperlegible-next-latin-wght-italic.woff2',
+      style: 'italic',
+      weight: '200 800',
+    },
   ],
   variable: '--font-body',
   display: 'swap',

@@ -16,9 +16,9 @@ export default async function HomePage() {
       <section className="space-y-4">
         <h1 className="text-4xl leading-tight font-extrabold">Say what you see. Walk the rig. Roll safe.</h1>
         <p className="text-xl">
-          Walk the pre-trip zone by zone and speak your findings with gloves on, or tap the big buttons. RigCall matches each
-          finding, judges tread, air and brake readings against the rules, and keeps the unit off the road when a defect is
-          major, until a mechanic certifies the repair.
+          Walk the pre-trip zone by zone and speak your findings with gloves on, or tap the big buttons. RigCall matches
+          each finding, judges tread, air and brake readings against the rules, and keeps the unit off the road when a
+          defect is major, until a mechanic certifies the repair.
         </p>
       </section>
       <div className="space-y-3">
@@ -34,8 +34,8 @@ export default async function HomePage() {
       </div>
       <ul className="space-y-3 text-lg">
         <li className="rounded-lg border-slab border-edge bg-panel p-4">
-          <span className="font-bold">Drivers:</span> pre-trip and post-trip walk-arounds by voice, photos of defects, the
-          last report reviewed before you drive.
+          <span className="font-bold">Drivers:</span> pre-trip and post-trip walk-arounds by voice, photos of defects,
+          the last report reviewed before you drive.
         </li>
         <li className="rounded-lg border-slab border-edge bg-panel p-4">
           <span className="font-bold">Mechanics:</span> the open-defect queue, repairs recorded and certified.
@@ -46,8 +46,8 @@ export default async function HomePage() {
         </li>
       </ul>
       <p className="text-base text-muted">
-        Local regulations and your carrier&apos;s licensed maintenance practice decide what may be driven. RigCall records the
-        inspection; it does not replace it.
+        Local regulations and your carrier&apos;s licensed maintenance practice decide what may be driven. RigCall
+        records the inspection; it does not replace it.
       </p>
     </main>
   );

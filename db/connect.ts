@@ -15,7 +15,11 @@ export type DB = Kysely<Database>;
 export function createDb(connectionString: string, max = 10, opts: { waitForDisk?: boolean } = {}): DB {
   // waitForDisk: false gives connections whose commits do not wait for the WAL to reach the disk
   // (synchronous_commit off): only for writes that the client keeps and checks again later.
-  const pool = new pg.Pool({ connectionString, max, ...(opts.waitForDisk === false ? { options: '-c synchronous_commit=off' } : {}) });
+  const pool = new pg.Pool({
+    connectionString,
+    max,
+    ...(opts.waitForDisk === false ? { options: '-c synchronous_commit=off' } : {}),
+  });
   // An idle connection dropped by the server (a restart) must not crash the process; the next
   // query opens a new one.
   pool.on('error', (err) => console.error('[rigcall] database connection lost:', err.message));

@@ -38,7 +38,9 @@ const STEPS = flag('steps', 60);
 const RATE = flag('rate', 100);
 const REPLAY_SHARE = 0.1;
 if (RATE > 0 && RATE < DRIVERS) {
-  console.error(`[bench:load] --rate ${RATE} is below one step per second per driver, the slowest autocannon paces a connection; use at least ${DRIVERS}, or 0 for no cap`);
+  console.error(
+    `[bench:load] --rate ${RATE} is below one step per second per driver, the slowest autocannon paces a connection; use at least ${DRIVERS}, or 0 for no cap`,
+  );
   process.exit(2);
 }
 const TIME_LIMIT_S = flag('time-limit', 150);
@@ -50,18 +52,22 @@ const log = (msg: string) => {
   else console.error(`[bench:load] ${msg}`);
 };
 
-const hardStop = setTimeout(() => {
-  console.error(`[bench:load] gave up after ${TIME_LIMIT_S + 60} s`);
-  stopApp();
-  process.exit(2);
-}, (TIME_LIMIT_S + 60) * 1000);
+const hardStop = setTimeout(
+  () => {
+    console.error(`[bench:load] gave up after ${TIME_LIMIT_S + 60} s`);
+    stopApp();
+    process.exit(2);
+  },
+  (TIME_LIMIT_S + 60) * 1000,
+);
 hardStop.unref();
 
 // ------------------------------------------------------------------ database
 
 function loadDatabaseUrl(): string {
   const u = new URL(databaseUrlFromEnv());
-  if (!['127.0.0.1', 'localhost', '::1'].includes(u.hostname)) throw new Error(`refusing to load a database on ${u.hostname}`);
+  if (!['127.0.0.1', 'localhost', '::1'].includes(u.hostname))
+    throw new Error(`refusing to load a database on ${u.hostname}`);
   u.pathname = '/rigcall_load';
   return u.toString();
 }
@@ -129,11 +135,24 @@ async function startFakes(): Promise<Record<string, string>> {
     helpers.push(child);
   };
   spawnHelper('scripts/object-store.mjs', ['--port', String(s3), '--dir', path.join(dir, 's3'), '--bucket', 'rigcall']);
-  spawnHelper('scripts/mail-catcher.mjs', ['--smtp', String(smtp), '--http', String(mailHttp), '--dir', path.join(dir, 'mail')]);
+  spawnHelper('scripts/mail-catcher.mjs', [
+    '--smtp',
+    String(smtp),
+    '--http',
+    String(mailHttp),
+    '--dir',
+    path.join(dir, 'mail'),
+  ]);
   await waitForPort(s3, 'the object store');
   await waitForPort(smtp, 'the mail catcher');
   process.on('exit', () => fs.rmSync(dir, { recursive: true, force: true }));
-  return { S3_ENDPOINT: `http://127.0.0.1:${s3}`, S3_BUCKET: 'rigcall', S3_FORCE_PATH_STYLE: 'true', SMTP_URL: `smtp://127.0.0.1:${smtp}`, MAIL_CATCHER_URL: `http://127.0.0.1:${mailHttp}` };
+  return {
+    S3_ENDPOINT: `http://127.0.0.1:${s3}`,
+    S3_BUCKET: 'rigcall',
+    S3_FORCE_PATH_STYLE: 'true',
+    SMTP_URL: `smtp://127.0.0.1:${smtp}`,
+    MAIL_CATCHER_URL: `http://127.0.0.1:${mailHttp}`,
+  };
 }
 process.on('exit', stopApp);
 
@@ -141,7 +160,11 @@ function runBuildIfMissing(env: NodeJS.ProcessEnv) {
   if (fs.existsSync(path.join(root, '.next', 'BUILD_ID'))) return Promise.resolve();
   log('no build found; building (next build)…');
   return new Promise<void>((resolve, reject) => {
-    const b = spawn(process.execPath, ['node_modules/next/dist/bin/next', 'build'], { cwd: root, env, stdio: asJson ? ['ignore', 'ignore', 'inherit'] : 'inherit' });
+    const b = spawn(process.execPath, ['node_modules/next/dist/bin/next', 'build'], {
+      cwd: root,
+      env,
+      stdio: asJson ? ['ignore', 'ignore', 'inherit'] : 'inherit',
+    });
     b.on('exit', (code) => (code === 0 ? resolve() : reject(new Error(`next build exited with ${code}`))));
   });
 }
@@ -150,12 +173,23 @@ async function startApp(databaseUrl: string): Promise<string> {
   const fakes = await startFakes();
   const port = await freePort();
   const base = `http://127.0.0.1:${port}`;
-  const env = { ...process.env, ...fakes, DATABASE_URL: databaseUrl, NEXTAUTH_URL: base, APP_PORT: String(port), NODE_ENV: 'production' as const };
+  const env = {
+    ...process.env,
+    ...fakes,
+    DATABASE_URL: databaseUrl,
+    NEXTAUTH_URL: base,
+    APP_PORT: String(port),
+    NODE_ENV: 'production' as const,
+  };
   await runBuildIfMissing(env);
   fs.mkdirSync(path.join(root, '.data', 'logs'), { recursive: true });
   const out = fs.openSync(path.join(root, '.data', 'logs', 'bench-load-app.log'), 'w');
   const profile = PROFILE_DIR ? ['--cpu-prof', `--cpu-prof-dir=${PROFILE_DIR}`] : [];
-  app = spawn(process.execPath, [...profile, 'node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(port)], { cwd: root, env, detached: true, stdio: ['ignore', out, out] });
+  app = spawn(
+    process.execPath,
+    [...profile, 'node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(port)],
+    { cwd: root, env, detached: true, stdio: ['ignore', out, out] },
+  );
   const until = Date.now() + 60_000;
   while (Date.now() < until) {
     if (app.exitCode !== null) throw new Error('the app exited at start (see .data/logs/bench-load-app.log)');
@@ -172,26 +206,64 @@ async function startApp(databaseUrl: string): Promise<string> {
 
 // ------------------------------------------------------------------ the walk
 
-type Driver = { id: string; name: string; cookie: string; tractorId: string; inspectionId: string; sent: { id: string; body: string }[] };
-const items = (zonesGrammar as { zones: { id: string; items: { id: string; configurations?: string[] }[] }[] }).zones.flatMap((z) => z.items.filter((i) => !i.configurations || i.configurations.includes('bobtail')).map((i) => ({ zone: z.id, item: i.id })));
+type Driver = {
+  id: string;
+  name: string;
+  cookie: string;
+  tractorId: string;
+  inspectionId: string;
+  sent: { id: string; body: string }[];
+};
+const items = (
+  zonesGrammar as { zones: { id: string; items: { id: string; configurations?: string[] }[] }[] }
+).zones.flatMap((z) =>
+  z.items
+    .filter((i) => !i.configurations || i.configurations.includes('bobtail'))
+    .map((i) => ({ zone: z.id, item: i.id })),
+);
 
 /** Step n of a walk: a zone visit when the zone changes, OKs for the items, one defect. */
 function stepBody(n: number): Record<string, unknown> {
   const at = items[n % items.length]!;
   const deviceAt = new Date().toISOString();
-  if (n === 7) return { seq: n, zone: 'in_cab', kind: 'defect', termKey: 'horn:inoperative', heard: 'horn does not work', inputMode: 'voice', score: 0.93, resolution: 'auto', deviceAt };
-  if (n === 0 || at.zone !== items[(n - 1) % items.length]!.zone) return { seq: n, zone: at.zone, kind: 'visit', inputMode: 'tap', deviceAt };
-  return { seq: n, zone: at.zone, item: at.item, kind: 'ok', heard: 'good', inputMode: n % 3 ? 'voice' : 'tap', score: 0.98, resolution: 'auto', deviceAt };
+  if (n === 7)
+    return {
+      seq: n,
+      zone: 'in_cab',
+      kind: 'defect',
+      termKey: 'horn:inoperative',
+      heard: 'horn does not work',
+      inputMode: 'voice',
+      score: 0.93,
+      resolution: 'auto',
+      deviceAt,
+    };
+  if (n === 0 || at.zone !== items[(n - 1) % items.length]!.zone)
+    return { seq: n, zone: at.zone, kind: 'visit', inputMode: 'tap', deviceAt };
+  return {
+    seq: n,
+    zone: at.zone,
+    item: at.item,
+    kind: 'ok',
+    heard: 'good',
+    inputMode: n % 3 ? 'voice' : 'tap',
+    score: 0.98,
+    resolution: 'auto',
+    deviceAt,
+  };
 }
 
 async function pool<T>(list: T[], width: number, fn: (t: T) => Promise<void>) {
   let next = 0;
-  await Promise.all(Array.from({ length: Math.min(width, list.length) }, async () => {
-    while (next < list.length) await fn(list[next++]!);
-  }));
+  await Promise.all(
+    Array.from({ length: Math.min(width, list.length) }, async () => {
+      while (next < list.length) await fn(list[next++]!);
+    }),
+  );
 }
 
-const pct = (sorted: number[], p: number) => (sorted.length ? sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)]! : 0);
+const pct = (sorted: number[], p: number) =>
+  sorted.length ? sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)]! : 0;
 
 async function main() {
   const t0 = Date.now();
@@ -210,10 +282,38 @@ async function main() {
   const drivers: Driver[] = [];
   for (let i = 0; i < DRIVERS; i++) {
     const name = `Load Driver ${i + 1}`;
-    const user = await db.insertInto('appUser').values({ fleetId: fleet.id, email: `load-${fleet.slug}-${i}@load.example`, name, passwordHash, roles: ['driver'], active: true }).returning(['id']).executeTakeFirstOrThrow();
+    const user = await db
+      .insertInto('appUser')
+      .values({
+        fleetId: fleet.id,
+        email: `load-${fleet.slug}-${i}@load.example`,
+        name,
+        passwordHash,
+        roles: ['driver'],
+        active: true,
+      })
+      .returning(['id'])
+      .executeTakeFirstOrThrow();
     const tractor = await makeUnit(db, { fleetId: fleet.id, kind: 'tractor' });
-    const token = await encode({ secret, token: { uid: user.id, name, email: `load-${i}@load.example`, fleetId: fleet.id, roles: ['driver'], sub: user.id } as never });
-    drivers.push({ id: user.id, name, cookie: `next-auth.session-token=${token}`, tractorId: tractor.id, inspectionId: randomUUID(), sent: [] });
+    const token = await encode({
+      secret,
+      token: {
+        uid: user.id,
+        name,
+        email: `load-${i}@load.example`,
+        fleetId: fleet.id,
+        roles: ['driver'],
+        sub: user.id,
+      } as never,
+    });
+    drivers.push({
+      id: user.id,
+      name,
+      cookie: `next-auth.session-token=${token}`,
+      tractorId: tractor.id,
+      inspectionId: randomUUID(),
+      sent: [],
+    });
   }
   log(`${DRIVERS} drivers ready`);
 
@@ -226,7 +326,18 @@ async function main() {
 
   // Start every walk.
   await pool(drivers, 20, async (d) => {
-    const res = await fetch(`${base}/api/inspections`, { method: 'POST', headers: headers(d), body: JSON.stringify({ id: d.inspectionId, kind: 'pre_trip', tractorId: d.tractorId, trailerId: null, odometer: 100_000, startedAt: new Date().toISOString() }) });
+    const res = await fetch(`${base}/api/inspections`, {
+      method: 'POST',
+      headers: headers(d),
+      body: JSON.stringify({
+        id: d.inspectionId,
+        kind: 'pre_trip',
+        tractorId: d.tractorId,
+        trailerId: null,
+        odometer: 100_000,
+        startedAt: new Date().toISOString(),
+      }),
+    });
     if (res.status !== 201) note('start', res.status, await res.text());
   });
 
@@ -236,17 +347,64 @@ async function main() {
   {
     const WARM_WALKS = 10;
     const WARM_STEPS = 100;
-    await pool(Array.from({ length: WARM_WALKS }, (_x, i) => i), WARM_WALKS, async (i) => {
-      const warm = await db.insertInto('appUser').values({ fleetId: fleet.id, email: `warm-${i}-${fleet.slug}@load.example`, name: `Warm Up ${i}`, passwordHash, roles: ['driver'], active: true }).returning(['id']).executeTakeFirstOrThrow();
-      const tractor = await makeUnit(db, { fleetId: fleet.id, kind: 'tractor' });
-      const token = await encode({ secret, token: { uid: warm.id, name: `Warm Up ${i}`, email: `warm-${i}@load.example`, fleetId: fleet.id, roles: ['driver'], sub: warm.id } as never });
-      const w: Driver = { id: warm.id, name: `Warm Up ${i}`, cookie: `next-auth.session-token=${token}`, tractorId: tractor.id, inspectionId: randomUUID(), sent: [] };
-      await fetch(`${base}/api/inspections`, { method: 'POST', headers: headers(w), body: JSON.stringify({ id: w.inspectionId, kind: 'pre_trip', tractorId: w.tractorId, trailerId: null, odometer: 1, startedAt: new Date().toISOString() }) });
-      for (let n = 0; n < WARM_STEPS; n++) {
-        const res = await fetch(`${base}/api/inspections/${w.inspectionId}/steps`, { method: 'POST', headers: headers(w), body: JSON.stringify({ id: randomUUID(), ...stepBody(n % STEPS), seq: n }) });
-        await res.arrayBuffer();
-      }
-    });
+    await pool(
+      Array.from({ length: WARM_WALKS }, (_x, i) => i),
+      WARM_WALKS,
+      async (i) => {
+        const warm = await db
+          .insertInto('appUser')
+          .values({
+            fleetId: fleet.id,
+            email: `warm-${i}-${fleet.slug}@load.example`,
+            name: `Warm Up ${i}`,
+            passwordHash,
+            roles: ['driver'],
+            active: true,
+          })
+          .returning(['id'])
+          .executeTakeFirstOrThrow();
+        const tractor = await makeUnit(db, { fleetId: fleet.id, kind: 'tractor' });
+        const token = await encode({
+          secret,
+          token: {
+            uid: warm.id,
+            name: `Warm Up ${i}`,
+            email: `warm-${i}@load.example`,
+            fleetId: fleet.id,
+            roles: ['driver'],
+            sub: warm.id,
+          } as never,
+        });
+        const w: Driver = {
+          id: warm.id,
+          name: `Warm Up ${i}`,
+          cookie: `next-auth.session-token=${token}`,
+          tractorId: tractor.id,
+          inspectionId: randomUUID(),
+          sent: [],
+        };
+        await fetch(`${base}/api/inspections`, {
+          method: 'POST',
+          headers: headers(w),
+          body: JSON.stringify({
+            id: w.inspectionId,
+            kind: 'pre_trip',
+            tractorId: w.tractorId,
+            trailerId: null,
+            odometer: 1,
+            startedAt: new Date().toISOString(),
+          }),
+        });
+        for (let n = 0; n < WARM_STEPS; n++) {
+          const res = await fetch(`${base}/api/inspections/${w.inspectionId}/steps`, {
+            method: 'POST',
+            headers: headers(w),
+            body: JSON.stringify({ id: randomUUID(), ...stepBody(n % STEPS), seq: n }),
+          });
+          await res.arrayBuffer();
+        }
+      },
+    );
     log(`warmed up with ${WARM_WALKS} walks of ${WARM_STEPS} steps of their own`);
   }
 
@@ -274,7 +432,13 @@ async function main() {
           const id = randomUUID();
           const body = JSON.stringify({ id, ...stepBody(n) });
           d.sent.push({ id, body });
-          return { ...req, method: 'POST' as const, path: `/api/inspections/${d.inspectionId}/steps`, headers: headers(d), body };
+          return {
+            ...req,
+            method: 'POST' as const,
+            path: `/api/inspections/${d.inspectionId}/steps`,
+            headers: headers(d),
+            body,
+          };
         },
       })) as unknown as autocannon.Request[];
       const instance = autocannon(
@@ -297,16 +461,30 @@ async function main() {
       });
     });
   const groups = Array.from({ length: GROUPS }, (_x, g) => drivers.filter((_d, i) => i % GROUPS === g));
-  const results = await Promise.all(groups.map((group, g) => new Promise<void>((r) => setTimeout(r, (g * 1000) / GROUPS)).then(() => runGroup(group))));
+  const results = await Promise.all(
+    groups.map((group, g) => new Promise<void>((r) => setTimeout(r, (g * 1000) / GROUPS)).then(() => runGroup(group))),
+  );
   const stepSeconds = (Date.now() - stepsStarted) / 1000;
-  const result = { errors: results.reduce((a, r) => a + r.errors, 0), timeouts: results.reduce((a, r) => a + r.timeouts, 0), total: results.reduce((a, r) => a + r.requests.total, 0) };
-  log(`steps phase: ${result.total} requests in ${stepSeconds.toFixed(1)} s; statuses ${JSON.stringify(Object.fromEntries(statuses))}`);
+  const result = {
+    errors: results.reduce((a, r) => a + r.errors, 0),
+    timeouts: results.reduce((a, r) => a + r.timeouts, 0),
+    total: results.reduce((a, r) => a + r.requests.total, 0),
+  };
+  log(
+    `steps phase: ${result.total} requests in ${stepSeconds.toFixed(1)} s; statuses ${JSON.stringify(Object.fromEntries(statuses))}`,
+  );
 
   // Replays: a share of every driver's steps sent again, as after a reconnect.
   let replayErrors = 0;
-  const replays = drivers.flatMap((d) => d.sent.filter((_s, i) => i % Math.round(1 / REPLAY_SHARE) === 3).map((s) => ({ d, s })));
+  const replays = drivers.flatMap((d) =>
+    d.sent.filter((_s, i) => i % Math.round(1 / REPLAY_SHARE) === 3).map((s) => ({ d, s })),
+  );
   await pool(replays, 20, async ({ d, s }) => {
-    const res = await fetch(`${base}/api/inspections/${d.inspectionId}/steps`, { method: 'POST', headers: headers(d), body: s.body });
+    const res = await fetch(`${base}/api/inspections/${d.inspectionId}/steps`, {
+      method: 'POST',
+      headers: headers(d),
+      body: s.body,
+    });
     if (res.status !== 200) {
       replayErrors++;
       note('replay', res.status, await res.text());
@@ -314,30 +492,66 @@ async function main() {
   });
 
   // One photo per driver, then sign.
-  const photo = await sharp({ create: { width: 1200, height: 900, channels: 3, background: '#5a6470' } }).jpeg({ quality: 80 }).toBuffer();
+  const photo = await sharp({ create: { width: 1200, height: 900, channels: 3, background: '#5a6470' } })
+    .jpeg({ quality: 80 })
+    .toBuffer();
   await pool(drivers, 8, async (d) => {
     const stepId = d.sent[7]?.id;
-    const res = await fetch(`${base}/api/inspections/${d.inspectionId}/photos/${randomUUID()}${stepId ? `?stepId=${stepId}` : ''}`, { method: 'PUT', headers: { cookie: d.cookie, 'content-type': 'image/jpeg', origin: base }, body: new Uint8Array(photo) });
+    const res = await fetch(
+      `${base}/api/inspections/${d.inspectionId}/photos/${randomUUID()}${stepId ? `?stepId=${stepId}` : ''}`,
+      {
+        method: 'PUT',
+        headers: { cookie: d.cookie, 'content-type': 'image/jpeg', origin: base },
+        body: new Uint8Array(photo),
+      },
+    );
     if (res.status !== 201) note('photo', res.status, await res.text());
   });
   await pool(drivers, 10, async (d) => {
-    const res = await fetch(`${base}/api/inspections/${d.inspectionId}/finish`, { method: 'POST', headers: headers(d), body: JSON.stringify({ signatureName: d.name, certify: true, finishedAt: new Date().toISOString(), stepIds: d.sent.map((s) => s.id) }) });
+    const res = await fetch(`${base}/api/inspections/${d.inspectionId}/finish`, {
+      method: 'POST',
+      headers: headers(d),
+      body: JSON.stringify({
+        signatureName: d.name,
+        certify: true,
+        finishedAt: new Date().toISOString(),
+        stepIds: d.sent.map((s) => s.id),
+      }),
+    });
     if (res.status !== 200) note('finish', res.status, await res.text());
   });
 
   // Count the rows.
   const inspectionIds = drivers.map((d) => d.inspectionId);
   const sentIds = new Set(drivers.flatMap((d) => d.sent.map((s) => s.id)));
-  const rows = await db.selectFrom('inspectionStep').select(['id', 'inspectionId', 'seq']).where('inspectionId', 'in', inspectionIds).execute();
+  const rows = await db
+    .selectFrom('inspectionStep')
+    .select(['id', 'inspectionId', 'seq'])
+    .where('inspectionId', 'in', inspectionIds)
+    .execute();
   const seen = new Map<string, number>();
   for (const r of rows) seen.set(r.id, (seen.get(r.id) ?? 0) + 1);
   const lost = [...sentIds].filter((id) => !seen.has(id)).length;
   const bySeq = new Map<string, number>();
   for (const r of rows) bySeq.set(`${r.inspectionId}:${r.seq}`, (bySeq.get(`${r.inspectionId}:${r.seq}`) ?? 0) + 1);
-  const doubled = [...seen.values()].filter((n) => n > 1).length + [...bySeq.values()].filter((n) => n > 1).length + rows.filter((r) => !sentIds.has(r.id)).length;
-  const signed = await db.selectFrom('inspection').select((eb) => eb.fn.countAll<number>().as('n')).where('id', 'in', inspectionIds).where('status', '=', 'submitted').executeTakeFirstOrThrow();
-  const photos = await db.selectFrom('attachment').select((eb) => eb.fn.countAll<number>().as('n')).where('inspectionId', 'in', inspectionIds).executeTakeFirstOrThrow();
-  const dbSize = await sql<{ size: string }>`select pg_size_pretty(pg_database_size('rigcall_load')) as size`.execute(db);
+  const doubled =
+    [...seen.values()].filter((n) => n > 1).length +
+    [...bySeq.values()].filter((n) => n > 1).length +
+    rows.filter((r) => !sentIds.has(r.id)).length;
+  const signed = await db
+    .selectFrom('inspection')
+    .select((eb) => eb.fn.countAll<number>().as('n'))
+    .where('id', 'in', inspectionIds)
+    .where('status', '=', 'submitted')
+    .executeTakeFirstOrThrow();
+  const photos = await db
+    .selectFrom('attachment')
+    .select((eb) => eb.fn.countAll<number>().as('n'))
+    .where('inspectionId', 'in', inspectionIds)
+    .executeTakeFirstOrThrow();
+  const dbSize = await sql<{ size: string }>`select pg_size_pretty(pg_database_size('rigcall_load')) as size`.execute(
+    db,
+  );
 
   const non2xx = [...statuses.entries()].filter(([s]) => s < 200 || s >= 300).reduce((a, [, n]) => a + n, 0);
   const errors = result.errors + result.timeouts + non2xx + otherErrors;
@@ -354,10 +568,18 @@ async function main() {
     doubled,
   };
 
-  log(`rate cap ${RATE > 0 ? `${RATE} requests/s` : 'none'}, drivers in ${GROUPS} pacing group(s); ${summary.steps} steps by ${DRIVERS} drivers in ${stepSeconds.toFixed(1)} s = ${summary.steps_per_s} steps/s`);
-  log(`step route latency p50 ${summary.p50_ms} ms, p95 ${summary.p95_ms} ms, p99 ${summary.p99_ms} ms, max ${sorted[sorted.length - 1] ?? 0} ms (target p99 <= 50 ms: ${summary.p99_ms <= 50 ? 'met' : 'MISSED'})`);
-  log(`errors ${errors} (step errors ${result.errors}, timeouts ${result.timeouts}, non-2xx ${non2xx}, start/replay/photo/finish ${otherErrors}); ${replays.length} steps sent again, ${replayErrors} of them not answered 200`);
-  log(`rows: ${rows.length} steps for ${sentIds.size} sent, lost ${lost}, doubled ${doubled}; ${Number(signed.n)}/${DRIVERS} reports signed, ${Number(photos.n)} photos; rigcall_load is ${dbSize.rows[0]?.size}`);
+  log(
+    `rate cap ${RATE > 0 ? `${RATE} requests/s` : 'none'}, drivers in ${GROUPS} pacing group(s); ${summary.steps} steps by ${DRIVERS} drivers in ${stepSeconds.toFixed(1)} s = ${summary.steps_per_s} steps/s`,
+  );
+  log(
+    `step route latency p50 ${summary.p50_ms} ms, p95 ${summary.p95_ms} ms, p99 ${summary.p99_ms} ms, max ${sorted[sorted.length - 1] ?? 0} ms (target p99 <= 50 ms: ${summary.p99_ms <= 50 ? 'met' : 'MISSED'})`,
+  );
+  log(
+    `errors ${errors} (step errors ${result.errors}, timeouts ${result.timeouts}, non-2xx ${non2xx}, start/replay/photo/finish ${otherErrors}); ${replays.length} steps sent again, ${replayErrors} of them not answered 200`,
+  );
+  log(
+    `rows: ${rows.length} steps for ${sentIds.size} sent, lost ${lost}, doubled ${doubled}; ${Number(signed.n)}/${DRIVERS} reports signed, ${Number(photos.n)} photos; rigcall_load is ${dbSize.rows[0]?.size}`,
+  );
   log(`total ${((Date.now() - t0) / 1000).toFixed(1)} s`);
   await db.destroy();
   stopApp();

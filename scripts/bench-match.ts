@@ -43,7 +43,14 @@ function listAllPhrases(g: Grammar): Phrase[] {
     for (const d of comp.defects) {
       for (const cp of comp.phrases) {
         for (const dp of conds.get(d.condition)?.phrases ?? []) {
-          out.push({ text: `${cp} ${dp}`, termId: `${comp.id}:${d.condition}`, comp: comp.id, compPhrase: cp, cond: d.condition, condPhrase: dp });
+          out.push({
+            text: `${cp} ${dp}`,
+            termId: `${comp.id}:${d.condition}`,
+            comp: comp.id,
+            compPhrase: cp,
+            cond: d.condition,
+            condPhrase: dp,
+          });
         }
       }
     }
@@ -73,8 +80,14 @@ function buildGrammarOf(phrases: Phrase[], g: Grammar): Grammar {
   }
   const components = g.vocabulary.components
     .filter((c) => compPhrases.has(c.id))
-    .map((c) => ({ ...c, phrases: [...(compPhrases.get(c.id) ?? [])], defects: c.defects.filter((d) => pairIds.has(`${c.id}:${d.condition}`)) }));
-  const conditions = g.vocabulary.conditions.filter((c) => condPhrases.has(c.id)).map((c) => ({ ...c, phrases: [...(condPhrases.get(c.id) ?? [])] }));
+    .map((c) => ({
+      ...c,
+      phrases: [...(compPhrases.get(c.id) ?? [])],
+      defects: c.defects.filter((d) => pairIds.has(`${c.id}:${d.condition}`)),
+    }));
+  const conditions = g.vocabulary.conditions
+    .filter((c) => condPhrases.has(c.id))
+    .map((c) => ({ ...c, phrases: [...(condPhrases.get(c.id) ?? [])] }));
   return { ...g, vocabulary: { ...g.vocabulary, components, conditions } };
 }
 
@@ -101,7 +114,8 @@ function runOurs(phrases: Phrase[], tests: LabelledUtterance[]): Row {
     const r = matcher.match(u.text, getLabelledContext(u));
     times.push(performance.now() - s);
     if (r.kind === 'defect' && r.termId === u.termId) top1 += 1;
-    if ((r.kind === 'defect' && r.termId === u.termId) || r.alternatives.slice(0, 2).some((a) => a.termId === u.termId)) top3 += 1;
+    if ((r.kind === 'defect' && r.termId === u.termId) || r.alternatives.slice(0, 2).some((a) => a.termId === u.termId))
+      top3 += 1;
   }
   // Latency over ROUNDS passes (the first, with words never seen before, included): one pass
   // gives only ~5 samples above the 99th percentile, too few on a shared machine.
@@ -112,7 +126,14 @@ function runOurs(phrases: Phrase[], tests: LabelledUtterance[]): Row {
       times.push(performance.now() - s);
     }
   }
-  return { build_ms: build, p50_ms: percentile(times, 50), p99_ms: percentile(times, 99), top1: top1 / tests.length, top3: top3 / tests.length, n: tests.length };
+  return {
+    build_ms: build,
+    p50_ms: percentile(times, 50),
+    p99_ms: percentile(times, 99),
+    top1: top1 / tests.length,
+    top3: top3 / tests.length,
+    n: tests.length,
+  };
 }
 
 function runPlainFuse(phrases: Phrase[], tests: LabelledUtterance[]): Row {
@@ -130,10 +151,18 @@ function runPlainFuse(phrases: Phrase[], tests: LabelledUtterance[]): Row {
     if (ids[0] === u.termId) top1 += 1;
     if (ids.slice(0, 3).includes(u.termId ?? '')) top3 += 1;
   }
-  return { build_ms: build, p50_ms: percentile(times, 50), p99_ms: percentile(times, 99), top1: top1 / tests.length, top3: top3 / tests.length, n: tests.length };
+  return {
+    build_ms: build,
+    p50_ms: percentile(times, 50),
+    p99_ms: percentile(times, 99),
+    top1: top1 / tests.length,
+    top3: top3 / tests.length,
+    n: tests.length,
+  };
 }
 
-const sampleEvenly = <T,>(xs: T[], n: number) => (xs.length <= n ? xs : Array.from({ length: n }, (_, i) => xs[Math.floor((i * xs.length) / n)] as T));
+const sampleEvenly = <T>(xs: T[], n: number) =>
+  xs.length <= n ? xs : Array.from({ length: n }, (_, i) => xs[Math.floor((i * xs.length) / n)] as T);
 
 const all = listAllPhrases(full);
 // one untimed build and pass first, so that both sizes are measured with the JavaScript engine warm
@@ -145,7 +174,9 @@ const json = process.argv.includes('--json');
 const f2 = (x: number) => x.toFixed(2).padStart(9);
 const pct = (x: number) => `${(x * 100).toFixed(1)}%`.padStart(7);
 let last: { phrases: number; ours: Row; base: Row } | null = null;
-console.log(`vocabulary: ${all.length} component-condition phrases in the default grammar; labelled defect utterances: ${labelled.length}`);
+console.log(
+  `vocabulary: ${all.length} component-condition phrases in the default grammar; labelled defect utterances: ${labelled.length}`,
+);
 for (const size of [1000, 10000]) {
   const phrases = all.slice(0, size);
   const terms = new Set(phrases.map((p) => p.termId));
@@ -154,9 +185,15 @@ for (const size of [1000, 10000]) {
   const base = runPlainFuse(phrases, sampleEvenly(tests, size >= 10000 ? 50 : 100));
   console.log(`\n${size} phrases (${terms.size} terms), ${tests.length} utterances whose term is in the list`);
   console.log(`  latency: ${ROUNDS} passes for RigCall (first pass included), one for plain fuse.js`);
-  console.log(`  ${'pipeline'.padEnd(22)} ${'build ms'.padStart(9)} ${'p50 ms'.padStart(9)} ${'p99 ms'.padStart(9)} ${'top-1'.padStart(7)} ${'top-3'.padStart(7)}  n`);
-  console.log(`  ${'RigCall slots'.padEnd(22)} ${f2(ours.build_ms)} ${f2(ours.p50_ms)} ${f2(ours.p99_ms)} ${pct(ours.top1)} ${pct(ours.top3)}  ${ours.n}`);
-  console.log(`  ${'plain fuse.js'.padEnd(22)} ${f2(base.build_ms)} ${f2(base.p50_ms)} ${f2(base.p99_ms)} ${pct(base.top1)} ${pct(base.top3)}  ${base.n} (sample)`);
+  console.log(
+    `  ${'pipeline'.padEnd(22)} ${'build ms'.padStart(9)} ${'p50 ms'.padStart(9)} ${'p99 ms'.padStart(9)} ${'top-1'.padStart(7)} ${'top-3'.padStart(7)}  n`,
+  );
+  console.log(
+    `  ${'RigCall slots'.padEnd(22)} ${f2(ours.build_ms)} ${f2(ours.p50_ms)} ${f2(ours.p99_ms)} ${pct(ours.top1)} ${pct(ours.top3)}  ${ours.n}`,
+  );
+  console.log(
+    `  ${'plain fuse.js'.padEnd(22)} ${f2(base.build_ms)} ${f2(base.p50_ms)} ${f2(base.p99_ms)} ${pct(base.top1)} ${pct(base.top3)}  ${base.n} (sample)`,
+  );
   last = { phrases: size, ours, base };
 }
 if (json && last) {

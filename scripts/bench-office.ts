@@ -10,7 +10,11 @@ import pg from 'pg';
 
 // The query functions live in server-only modules; run them with the server condition.
 if (!process.execArgv.some((a) => a.includes('react-server'))) {
-  const r = spawnSync(process.execPath, [...process.execArgv, '--conditions=react-server', process.argv[1]!, ...process.argv.slice(2)], { stdio: 'inherit' });
+  const r = spawnSync(
+    process.execPath,
+    [...process.execArgv, '--conditions=react-server', process.argv[1]!, ...process.argv.slice(2)],
+    { stdio: 'inherit' },
+  );
   process.exit(r.status ?? 1);
 }
 
@@ -29,7 +33,8 @@ pg.types.setTypeParser(pg.types.builtins.INT8, (v) => Number(v));
 pg.types.setTypeParser(pg.types.builtins.NUMERIC, (v) => Number(v));
 
 const baseUrl = process.env.DATABASE_URL;
-if (!baseUrl) throw new Error('DATABASE_URL is not set: run through `node scripts/stack.mjs exec --test -- npm run bench:office`');
+if (!baseUrl)
+  throw new Error('DATABASE_URL is not set: run through `node scripts/stack.mjs exec --test -- npm run bench:office`');
 const withDb = (name: string) => {
   const u = new URL(baseUrl);
   u.pathname = `/${name}`;
@@ -63,7 +68,13 @@ const db = new Kysely<Database>({
 await migrateToLatest(db, (m) => say(`[bench] ${m}`));
 
 const count = async (table: 'inspection' | 'inspection_step') =>
-  Number((await sql<{ n: number }>`SELECT count(*)::bigint AS n FROM ${sql.table(table)} WHERE fleet_id = ${FLEET_ID}`.execute(db)).rows[0]!.n);
+  Number(
+    (
+      await sql<{
+        n: number;
+      }>`SELECT count(*)::bigint AS n FROM ${sql.table(table)} WHERE fleet_id = ${FLEET_ID}`.execute(db)
+    ).rows[0]!.n,
+  );
 
 // 2. seed, once: multi-row INSERT … SELECT over generate_series, in chunks
 let inspections = await count('inspection');
@@ -74,7 +85,9 @@ if (inspections < TARGET_INSPECTIONS || steps < TARGET_INSPECTIONS * STEPS_PER) 
   await sql`DELETE FROM defect WHERE fleet_id = ${FLEET_ID}`.execute(db);
   await sql`DELETE FROM inspection_step WHERE fleet_id = ${FLEET_ID}`.execute(db);
   await sql`DELETE FROM inspection WHERE fleet_id = ${FLEET_ID}`.execute(db);
-  await sql`INSERT INTO fleet (id, name, slug, maintenance_email) VALUES (${FLEET_ID}, 'Bench Freight', 'bench-freight', 'shop@bench.example') ON CONFLICT (id) DO NOTHING`.execute(db);
+  await sql`INSERT INTO fleet (id, name, slug, maintenance_email) VALUES (${FLEET_ID}, 'Bench Freight', 'bench-freight', 'shop@bench.example') ON CONFLICT (id) DO NOTHING`.execute(
+    db,
+  );
   await sql`INSERT INTO app_user (id, fleet_id, email, name, password_hash, roles)
     SELECT md5('bench-driver-' || n)::uuid, ${FLEET_ID}, 'driver' || n || '@bench.example', 'Driver ' || lpad(n::text, 3, '0'), 'x', ARRAY['driver']
     FROM generate_series(1, 60) n ON CONFLICT DO NOTHING`.execute(db);
@@ -96,7 +109,9 @@ if (inspections < TARGET_INSPECTIONS || steps < TARGET_INSPECTIONS * STEPS_PER) 
              st, st + make_interval(secs => dur), dur, 'I performed this inspection.', 'Driver ' || lpad((1 + n % 60)::text, 3, '0'),
              st + make_interval(secs => dur + 20), md5('hash-' || n) || md5('hash2-' || n),
              CASE WHEN n % 4 = 0 THEN st + interval '6 hours' END, st
-      FROM (SELECT n, now() - make_interval(mins => n * 5) AS st, 300 + (n * 37) % 1500 AS dur FROM generate_series(${lo}::int, ${hi}::int) n) s`.execute(db);
+      FROM (SELECT n, now() - make_interval(mins => n * 5) AS st, 300 + (n * 37) % 1500 AS dur FROM generate_series(${lo}::int, ${hi}::int) n) s`.execute(
+      db,
+    );
     await sql`
       INSERT INTO inspection_step (id, fleet_id, inspection_id, seq, zone, kind, heard, input_mode, component, condition, score, resolution, severity, device_at, server_at)
       SELECT md5('bench-step-' || n || '-' || q)::uuid, ${FLEET_ID}, md5('bench-insp-' || n)::uuid, q,
@@ -110,8 +125,12 @@ if (inspections < TARGET_INSPECTIONS || steps < TARGET_INSPECTIONS * STEPS_PER) 
              CASE WHEN q % 2 = 1 THEN 'auto' END,
              CASE WHEN q = 3 AND n % 29 = 0 THEN (CASE WHEN n % 58 = 0 THEN 'major' ELSE 'minor' END) END,
              now() - make_interval(mins => n * 5) + make_interval(secs => q * 40), now() - make_interval(mins => n * 5) + make_interval(secs => q * 40 + 1)
-      FROM generate_series(${lo}::int, ${hi}::int) n CROSS JOIN generate_series(0, ${STEPS_PER - 1}::int) q`.execute(db);
-    say(`[bench]   ${hi.toLocaleString('en-US')} inspections, ${(hi * STEPS_PER).toLocaleString('en-US')} steps (${((Date.now() - t0) / 1000).toFixed(0)} s)`);
+      FROM generate_series(${lo}::int, ${hi}::int) n CROSS JOIN generate_series(0, ${STEPS_PER - 1}::int) q`.execute(
+      db,
+    );
+    say(
+      `[bench]   ${hi.toLocaleString('en-US')} inspections, ${(hi * STEPS_PER).toLocaleString('en-US')} steps (${((Date.now() - t0) / 1000).toFixed(0)} s)`,
+    );
   }
   await sql`
     INSERT INTO defect (fleet_id, inspection_id, step_id, unit_id, zone, component, condition, severity, description, status, certified_by, certified_name, certified_at, created_at)
@@ -133,24 +152,59 @@ if (inspections < TARGET_INSPECTIONS || steps < TARGET_INSPECTIONS * STEPS_PER) 
 // covering indexes answer as index-only scans.
 await pool.query('VACUUM (ANALYZE) inspection');
 await pool.query('VACUUM (ANALYZE) defect');
-const defects = Number((await sql<{ n: number }>`SELECT count(*)::bigint AS n FROM defect WHERE fleet_id = ${FLEET_ID}`.execute(db)).rows[0]!.n);
-say(`[bench] ${inspections.toLocaleString('en-US')} inspections, ${steps.toLocaleString('en-US')} steps, ${defects.toLocaleString('en-US')} defects`);
+const defects = Number(
+  (await sql<{ n: number }>`SELECT count(*)::bigint AS n FROM defect WHERE fleet_id = ${FLEET_ID}`.execute(db)).rows[0]!
+    .n,
+);
+say(
+  `[bench] ${inspections.toLocaleString('en-US')} inspections, ${steps.toLocaleString('en-US')} steps, ${defects.toLocaleString('en-US')} defects`,
+);
 
 // 3. timings
 const fleet = await findFleetMinimums(db, { fleetId: FLEET_ID });
 if (!fleet) throw new Error('bench fleet missing');
-const drivers = (await sql<{ id: string }>`SELECT id FROM app_user WHERE fleet_id = ${FLEET_ID} ORDER BY id`.execute(db)).rows.map((r) => r.id);
-const units = (await sql<{ id: string }>`SELECT id FROM unit WHERE fleet_id = ${FLEET_ID} ORDER BY id`.execute(db)).rows.map((r) => r.id);
-const ids = (await sql<{ id: string }>`SELECT id FROM inspection WHERE fleet_id = ${FLEET_ID} ORDER BY md5(id::text) LIMIT 400`.execute(db)).rows.map((r) => r.id);
+const drivers = (
+  await sql<{ id: string }>`SELECT id FROM app_user WHERE fleet_id = ${FLEET_ID} ORDER BY id`.execute(db)
+).rows.map((r) => r.id);
+const units = (
+  await sql<{ id: string }>`SELECT id FROM unit WHERE fleet_id = ${FLEET_ID} ORDER BY id`.execute(db)
+).rows.map((r) => r.id);
+const ids = (
+  await sql<{
+    id: string;
+  }>`SELECT id FROM inspection WHERE fleet_id = ${FLEET_ID} ORDER BY md5(id::text) LIMIT 400`.execute(db)
+).rows.map((r) => r.id);
 
-type Variant = { name: string; filters: Record<string, string>; sort: 'startedAt' | 'durationS' | 'driverName'; dir: 'asc' | 'desc'; page: number };
+type Variant = {
+  name: string;
+  filters: Record<string, string>;
+  sort: 'startedAt' | 'durationS' | 'driverName';
+  dir: 'asc' | 'desc';
+  page: number;
+};
 const variants: Variant[] = [
   { name: 'newest first, page 1', filters: {}, sort: 'startedAt', dir: 'desc', page: 1 },
   { name: 'newest first, page 40', filters: {}, sort: 'startedAt', dir: 'desc', page: 40 },
   { name: 'one driver', filters: { driverId: drivers[7]! }, sort: 'startedAt', dir: 'desc', page: 1 },
   { name: 'one unit (tractor or trailer)', filters: { unitId: units[120]! }, sort: 'startedAt', dir: 'desc', page: 1 },
-  { name: 'has defects, unreviewed', filters: { hasDefects: 'yes', status: 'unreviewed' }, sort: 'startedAt', dir: 'desc', page: 1 },
-  { name: 'short pre-trips, last 30 days', filters: { short: 'yes', kind: 'pre_trip', from: new Date(Date.now() - 30 * 86_400_000).toISOString().slice(0, 10) }, sort: 'startedAt', dir: 'desc', page: 1 },
+  {
+    name: 'has defects, unreviewed',
+    filters: { hasDefects: 'yes', status: 'unreviewed' },
+    sort: 'startedAt',
+    dir: 'desc',
+    page: 1,
+  },
+  {
+    name: 'short pre-trips, last 30 days',
+    filters: {
+      short: 'yes',
+      kind: 'pre_trip',
+      from: new Date(Date.now() - 30 * 86_400_000).toISOString().slice(0, 10),
+    },
+    sort: 'startedAt',
+    dir: 'desc',
+    page: 1,
+  },
   { name: 'by duration, shortest first', filters: {}, sort: 'durationS', dir: 'asc', page: 1 },
 ];
 
@@ -159,7 +213,10 @@ const listOnce = async (v: Variant) => {
   await Promise.all([listReportRows(db, { ...a, limit: 25, offset: (v.page - 1) * 25 }), countReportRows(db, a)]);
 };
 const detailOnce = async (id: string) => {
-  await Promise.all([findInspectionDetail(db, { fleetId: FLEET_ID, id }), findReportRecord(db, { fleetId: FLEET_ID, id })]);
+  await Promise.all([
+    findInspectionDetail(db, { fleetId: FLEET_ID, id }),
+    findReportRecord(db, { fleetId: FLEET_ID, id }),
+  ]);
 };
 
 const pct = (xs: number[], p: number) => {
@@ -181,15 +238,21 @@ for (const v of variants) {
   const own: number[] = [];
   for (let i = 0; i < 30; i++) own.push(await time(() => listOnce(v)));
   listTimes.push(...own);
-  say(`  ${v.name.padEnd(34)} p50 ${pct(own, 50).toFixed(1).padStart(6)} ms   p95 ${pct(own, 95).toFixed(1).padStart(6)} ms`);
+  say(
+    `  ${v.name.padEnd(34)} p50 ${pct(own, 50).toFixed(1).padStart(6)} ms   p95 ${pct(own, 95).toFixed(1).padStart(6)} ms`,
+  );
 }
 const detailTimes: number[] = [];
 for (const id of ids) detailTimes.push(await time(() => detailOnce(id)));
 const listP95 = Math.round(pct(listTimes, 95) * 10) / 10;
 const detailP95 = Math.round(pct(detailTimes, 95) * 10) / 10;
-say(`  ${'all list variants'.padEnd(34)} p50 ${pct(listTimes, 50).toFixed(1).padStart(6)} ms   p95 ${listP95.toFixed(1).padStart(6)} ms  (${listTimes.length} runs)`);
+say(
+  `  ${'all list variants'.padEnd(34)} p50 ${pct(listTimes, 50).toFixed(1).padStart(6)} ms   p95 ${listP95.toFixed(1).padStart(6)} ms  (${listTimes.length} runs)`,
+);
 say(`\n[bench] report-detail query (header + steps + defects + photos + acknowledgements), ${ids.length} reports:`);
-say(`  p50 ${pct(detailTimes, 50).toFixed(1)} ms   p95 ${detailP95.toFixed(1)} ms   max ${Math.max(...detailTimes).toFixed(1)} ms`);
+say(
+  `  p50 ${pct(detailTimes, 50).toFixed(1)} ms   p95 ${detailP95.toFixed(1)} ms   max ${Math.max(...detailTimes).toFixed(1)} ms`,
+);
 say(`  target p95 <= 50 ms: list ${listP95 <= 50 ? 'met' : 'MISSED'}, detail ${detailP95 <= 50 ? 'met' : 'MISSED'}`);
 
 // 4. plans

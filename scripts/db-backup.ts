@@ -8,8 +8,14 @@ import { fileURLToPath } from 'node:url';
 
 export function pgToolsDir(): string {
   const base = '/usr/lib/postgresql';
-  const versions = fs.existsSync(base) ? fs.readdirSync(base).filter((v) => fs.existsSync(path.join(base, v, 'bin', 'pg_dump'))).sort((a, b) => Number(b) - Number(a)) : [];
-  if (!versions[0]) throw new Error('pg_dump was not found under /usr/lib/postgresql/*/bin (install the postgresql-client package)');
+  const versions = fs.existsSync(base)
+    ? fs
+        .readdirSync(base)
+        .filter((v) => fs.existsSync(path.join(base, v, 'bin', 'pg_dump')))
+        .sort((a, b) => Number(b) - Number(a))
+    : [];
+  if (!versions[0])
+    throw new Error('pg_dump was not found under /usr/lib/postgresql/*/bin (install the postgresql-client package)');
   return path.join(base, versions[0], 'bin');
 }
 
@@ -18,8 +24,13 @@ export type PgTarget = { host: string; port: string; user: string; database: str
 export function pgTargetFrom(databaseUrl: string, database?: string): PgTarget {
   const u = new URL(databaseUrl);
   const db = database ?? decodeURIComponent(u.pathname.replace(/^\//, ''));
-  if (!/^[A-Za-z0-9_]+$/.test(db)) throw new Error(`"${db}" is not a database name this tool accepts (letters, digits, _)`);
-  const env: NodeJS.ProcessEnv = { ...process.env, PGPASSWORD: decodeURIComponent(u.password), PGCONNECT_TIMEOUT: '10' };
+  if (!/^[A-Za-z0-9_]+$/.test(db))
+    throw new Error(`"${db}" is not a database name this tool accepts (letters, digits, _)`);
+  const env: NodeJS.ProcessEnv = {
+    ...process.env,
+    PGPASSWORD: decodeURIComponent(u.password),
+    PGCONNECT_TIMEOUT: '10',
+  };
   const sslmode = u.searchParams.get('sslmode');
   if (sslmode) env.PGSSLMODE = sslmode;
   return { host: u.hostname, port: u.port || '5432', user: decodeURIComponent(u.username), database: db, env };
@@ -30,7 +41,9 @@ export const connArgs = (t: PgTarget) => ['-h', t.host, '-p', t.port, '-U', t.us
 /** Back up the database of `url` into `out`; returns the process exit code. */
 export function backupDatabase(url: string | undefined, outArg?: string): number {
   if (!url) {
-    console.error('[db:backup] DATABASE_URL is not set (run through `node scripts/stack.mjs exec -- npm run db:backup`, or see .env.example)');
+    console.error(
+      '[db:backup] DATABASE_URL is not set (run through `node scripts/stack.mjs exec -- npm run db:backup`, or see .env.example)',
+    );
     return 1;
   }
   const target = pgTargetFrom(url);
@@ -40,7 +53,21 @@ export function backupDatabase(url: string | undefined, outArg?: string): number
 
   const t0 = Date.now();
   const partial = `${out}.partial`;
-  const r = spawnSync(path.join(pgToolsDir(), 'pg_dump'), [...connArgs(target), '-d', target.database, '--format=custom', '--compress=6', '--no-owner', '--no-privileges', '-f', partial], { env: target.env, stdio: ['ignore', 'inherit', 'inherit'] });
+  const r = spawnSync(
+    path.join(pgToolsDir(), 'pg_dump'),
+    [
+      ...connArgs(target),
+      '-d',
+      target.database,
+      '--format=custom',
+      '--compress=6',
+      '--no-owner',
+      '--no-privileges',
+      '-f',
+      partial,
+    ],
+    { env: target.env, stdio: ['ignore', 'inherit', 'inherit'] },
+  );
   if (r.status !== 0) {
     fs.rmSync(partial, { force: true });
     console.error(`[db:backup] pg_dump failed (exit ${r.status ?? r.error?.message})`);
@@ -49,7 +76,9 @@ export function backupDatabase(url: string | undefined, outArg?: string): number
   // Renamed only when complete, so a file with the final name is always a whole backup.
   fs.renameSync(partial, out);
   const size = fs.statSync(out).size;
-  console.log(`[db:backup] ${target.database} → ${out} (${(size / 1024).toFixed(0)} KB in ${((Date.now() - t0) / 1000).toFixed(1)} s)`);
+  console.log(
+    `[db:backup] ${target.database} → ${out} (${(size / 1024).toFixed(0)} KB in ${((Date.now() - t0) / 1000).toFixed(1)} s)`,
+  );
   console.log(JSON.stringify({ file: out, database: target.database, bytes: size }));
   return 0;
 }

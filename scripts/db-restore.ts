@@ -43,17 +43,36 @@ async function main() {
   probeUrl.pathname = `/${target.database}`;
   const probe = new pg.Client({ connectionString: probeUrl.toString() });
   await probe.connect();
-  const tables = Number((await probe.query(`select count(*)::int as n from information_schema.tables where table_schema = 'public'`)).rows[0].n);
+  const tables = Number(
+    (await probe.query(`select count(*)::int as n from information_schema.tables where table_schema = 'public'`))
+      .rows[0].n,
+  );
   await probe.end();
-  if (tables > 0 && !replace) fail(`${target.database} already holds ${tables} tables; add --replace to drop them and restore the backup over them`);
+  if (tables > 0 && !replace)
+    fail(
+      `${target.database} already holds ${tables} tables; add --replace to drop them and restore the backup over them`,
+    );
 
   const t0 = Date.now();
   const r = spawnSync(
     path.join(pgToolsDir(), 'pg_restore'),
-    [...connArgs(target), '-d', target.database, '--no-owner', '--no-privileges', '--exit-on-error', '--single-transaction', ...(tables > 0 ? ['--clean', '--if-exists'] : []), source],
+    [
+      ...connArgs(target),
+      '-d',
+      target.database,
+      '--no-owner',
+      '--no-privileges',
+      '--exit-on-error',
+      '--single-transaction',
+      ...(tables > 0 ? ['--clean', '--if-exists'] : []),
+      source,
+    ],
     { env: target.env, stdio: ['ignore', 'inherit', 'inherit'] },
   );
-  if (r.status !== 0) fail(`pg_restore failed (exit ${r.status ?? r.error?.message}); ${target.database} is left as it was (single transaction)`);
+  if (r.status !== 0)
+    fail(
+      `pg_restore failed (exit ${r.status ?? r.error?.message}); ${target.database} is left as it was (single transaction)`,
+    );
   console.log(`[db:restore] ${source} → ${target.database} in ${((Date.now() - t0) / 1000).toFixed(1)} s`);
 }
 

@@ -23,8 +23,7 @@ const { values } = parseArgs({
 const dir = values.dir;
 fs.mkdirSync(dir, { recursive: true });
 
-const addressList = (a) =>
-  (Array.isArray(a) ? a : a ? [a] : []).flatMap((x) => x.value.map((v) => v.address ?? ''));
+const addressList = (a) => (Array.isArray(a) ? a : a ? [a] : []).flatMap((x) => x.value.map((v) => v.address ?? ''));
 
 const smtp = new SMTPServer({
   authOptional: true,
@@ -46,7 +45,11 @@ const smtp = new SMTPServer({
           subject: mail.subject ?? '',
           text: mail.text ?? '',
           html: typeof mail.html === 'string' ? mail.html : '',
-          attachments: mail.attachments.map((a) => ({ filename: a.filename, contentType: a.contentType, size: a.size })),
+          attachments: mail.attachments.map((a) => ({
+            filename: a.filename,
+            contentType: a.contentType,
+            size: a.size,
+          })),
         };
         fs.writeFileSync(path.join(dir, `${id}.json`), JSON.stringify(record));
         callback();

@@ -25,7 +25,20 @@ rl.on('line', (line) => {
   try {
     out = matcher.match(line, ctx);
   } catch {
-    out = { input: line, kind: 'unknown', command: null, component: null, condition: null, position: null, severity: null, value: null, unit: null, termId: null, score: 0, alternatives: [] };
+    out = {
+      input: line,
+      kind: 'unknown',
+      command: null,
+      component: null,
+      condition: null,
+      position: null,
+      severity: null,
+      value: null,
+      unit: null,
+      termId: null,
+      score: 0,
+      alternatives: [],
+    };
   }
   process.stdout.write(`${JSON.stringify(out)}\n`);
 });

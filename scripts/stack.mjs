@@ -113,7 +113,10 @@ function localEnv(p) {
 // ---------------------------------------------------------------- npm packages
 
 function lockHash() {
-  return crypto.createHash('sha256').update(fs.readFileSync(path.join(root, 'package-lock.json'))).digest('hex');
+  return crypto
+    .createHash('sha256')
+    .update(fs.readFileSync(path.join(root, 'package-lock.json')))
+    .digest('hex');
 }
 function ensureNodeModules() {
   const stamp = path.join(root, 'node_modules', '.rigcall-lock');
@@ -128,7 +131,8 @@ function ensureNodeModules() {
 
 let aptUpdated = false;
 function aptInstall(pkgs) {
-  if (!isRoot) fail(`missing Debian packages: ${pkgs.join(' ')}. Install them with: sudo apt-get install -y ${pkgs.join(' ')}`);
+  if (!isRoot)
+    fail(`missing Debian packages: ${pkgs.join(' ')}. Install them with: sudo apt-get install -y ${pkgs.join(' ')}`);
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
   if (!aptUpdated) {
     say('apt-get update…');
@@ -144,7 +148,9 @@ function pgBinDir() {
   if (!fs.existsSync(base)) return null;
   const versions = fs
     .readdirSync(base)
-    .filter((v) => fs.existsSync(path.join(base, v, 'bin', 'pg_ctl')) && fs.existsSync(path.join(base, v, 'bin', 'postgres')))
+    .filter(
+      (v) => fs.existsSync(path.join(base, v, 'bin', 'pg_ctl')) && fs.existsSync(path.join(base, v, 'bin', 'postgres')),
+    )
     .sort((a, b) => Number(b) - Number(a));
   return versions[0] ? path.join(base, versions[0], 'bin') : null;
 }
@@ -199,7 +205,18 @@ async function ensurePostgresRunning() {
     const pwFile = path.join(dataDir, 'pg-password');
     fs.writeFileSync(pwFile, `${PG_PASSWORD}\n`, { mode: 0o644 });
     if (isRoot) runOrDie('chown', ['-R', 'postgres:postgres', pgDir, pwFile]);
-    const r = asPg(bin, 'initdb', ['-D', pgDir, '-U', PG_USER, `--pwfile=${pwFile}`, '--auth-host=scram-sha-256', '--auth-local=scram-sha-256', '-E', 'UTF8', '--locale=C.UTF-8']);
+    const r = asPg(bin, 'initdb', [
+      '-D',
+      pgDir,
+      '-U',
+      PG_USER,
+      `--pwfile=${pwFile}`,
+      '--auth-host=scram-sha-256',
+      '--auth-local=scram-sha-256',
+      '-E',
+      'UTF8',
+      '--locale=C.UTF-8',
+    ]);
     fs.rmSync(pwFile, { force: true });
     if (r.status !== 0) fail(`initdb failed:\n${r.out}`);
     fs.appendFileSync(
@@ -223,9 +240,13 @@ async function ensurePostgresRunning() {
 }
 
 function psql(bin, db, sql) {
-  return capture(path.join(bin, 'psql'), ['-h', '127.0.0.1', '-p', String(PG_PORT), '-U', PG_USER, '-d', db, '-v', 'ON_ERROR_STOP=1', '-qAtc', sql], {
-    env: { ...process.env, PGPASSWORD: PG_PASSWORD },
-  });
+  return capture(
+    path.join(bin, 'psql'),
+    ['-h', '127.0.0.1', '-p', String(PG_PORT), '-U', PG_USER, '-d', db, '-v', 'ON_ERROR_STOP=1', '-qAtc', sql],
+    {
+      env: { ...process.env, PGPASSWORD: PG_PASSWORD },
+    },
+  );
 }
 function ensureDatabase(bin, name, { fresh = false } = {}) {
   if (fresh) {
@@ -274,7 +295,12 @@ function startDetached(name, cmd, args, env) {
   fs.mkdirSync(runDir, { recursive: true });
   fs.mkdirSync(logDir, { recursive: true });
   const log = fs.openSync(path.join(logDir, `${name}.log`), 'a');
-  const child = spawn(cmd, args, { cwd: root, env: { ...process.env, ...env }, detached: true, stdio: ['ignore', log, log] });
+  const child = spawn(cmd, args, {
+    cwd: root,
+    env: { ...process.env, ...env },
+    detached: true,
+    stdio: ['ignore', log, log],
+  });
   child.unref();
   fs.writeFileSync(pidFile(name), String(child.pid));
   return child.pid;
@@ -336,7 +362,20 @@ async function ensureFakes(p) {
 
 // ---------------------------------------------------------------- build
 
-const buildInputs = ['app', 'components', 'lib', 'db', 'grammars', 'public', 'proxy.ts', 'next.config.mjs', 'tailwind.config.ts', 'postcss.config.mjs', 'tsconfig.json', 'package-lock.json'];
+const buildInputs = [
+  'app',
+  'components',
+  'lib',
+  'db',
+  'grammars',
+  'public',
+  'proxy.ts',
+  'next.config.mjs',
+  'tailwind.config.ts',
+  'postcss.config.mjs',
+  'tsconfig.json',
+  'package-lock.json',
+];
 function sourceHash() {
   const h = crypto.createHash('sha256');
   const walk = (rel) => {
@@ -356,12 +395,18 @@ function sourceHash() {
 function ensureBuild(env) {
   const stamp = path.join(root, '.next', '.rigcall-source');
   const want = sourceHash();
-  if (fs.existsSync(path.join(root, '.next', 'BUILD_ID')) && fs.existsSync(stamp) && fs.readFileSync(stamp, 'utf8') === want) {
+  if (
+    fs.existsSync(path.join(root, '.next', 'BUILD_ID')) &&
+    fs.existsSync(stamp) &&
+    fs.readFileSync(stamp, 'utf8') === want
+  ) {
     say('build is up to date');
     return 0;
   }
   say('building the app (next build)…');
-  const status = run(process.execPath, ['node_modules/next/dist/bin/next', 'build'], { env: { ...process.env, ...env } });
+  const status = run(process.execPath, ['node_modules/next/dist/bin/next', 'build'], {
+    env: { ...process.env, ...env },
+  });
   if (status === 0) fs.writeFileSync(stamp, want);
   return status;
 }
@@ -369,7 +414,9 @@ function ensureBuild(env) {
 // ---------------------------------------------------------------- database steps
 
 function tsx(script, env, extra = []) {
-  return run(process.execPath, ['node_modules/tsx/dist/cli.mjs', script, ...extra], { env: { ...process.env, ...env } });
+  return run(process.execPath, ['node_modules/tsx/dist/cli.mjs', script, ...extra], {
+    env: { ...process.env, ...env },
+  });
 }
 
 async function prepare(p, { freshDb = false } = {}) {
@@ -439,7 +486,12 @@ async function cmdStart() {
     await stopDetached('app-demo');
     if (await portOpen(p.app)) fail(`port ${p.app} is taken by another program`);
     say(`starting the app on 127.0.0.1:${p.app}…`);
-    startDetached('app-demo', process.execPath, ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(p.app)], { ...env, NODE_ENV: 'production' });
+    startDetached(
+      'app-demo',
+      process.execPath,
+      ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(p.app)],
+      { ...env, NODE_ENV: 'production' },
+    );
     fs.writeFileSync(stampFile, buildId);
   }
   await waitForHealth(p.app);
@@ -495,14 +547,22 @@ async function cmdExec(args) {
   await cmdServices(test ? ['--test'] : []);
   const env = localEnv(test ? profiles.test : profiles.demo);
   const [head, ...rest] = cmd;
-  process.exit(run(head, rest, { env: { ...process.env, ...env, PATH: `${path.join(root, 'node_modules', '.bin')}:${process.env.PATH}` } }));
+  process.exit(
+    run(head, rest, {
+      env: { ...process.env, ...env, PATH: `${path.join(root, 'node_modules', '.bin')}:${process.env.PATH}` },
+    }),
+  );
 }
 
 /** Counts from the JSON reports of vitest and Playwright. */
 function readCounts(file, kind) {
   try {
     const j = JSON.parse(fs.readFileSync(file, 'utf8'));
-    if (kind === 'vitest') return { passed: j.numPassedTests ?? 0, failed: (j.numFailedTests ?? 0) + (j.success === false && !j.numFailedTests ? 1 : 0) };
+    if (kind === 'vitest')
+      return {
+        passed: j.numPassedTests ?? 0,
+        failed: (j.numFailedTests ?? 0) + (j.success === false && !j.numFailedTests ? 1 : 0),
+      };
     const s = j.stats ?? {};
     return { passed: (s.expected ?? 0) + (s.flaky ?? 0), failed: (s.unexpected ?? 0) + (j.errors?.length ?? 0) };
   } catch {
@@ -529,7 +589,9 @@ async function cmdTest() {
   fs.mkdirSync(reports, { recursive: true });
 
   say('generated schema types match the migrated database (kysely-codegen --verify)…');
-  const codegen = run(process.execPath, ['node_modules/kysely-codegen/dist/cli/bin.js', '--verify'], { env: { ...process.env, ...env } });
+  const codegen = run(process.execPath, ['node_modules/kysely-codegen/dist/cli/bin.js', '--verify'], {
+    env: { ...process.env, ...env },
+  });
   stages.push({ name: 'schema types', ok: codegen === 0 });
 
   say('typecheck (tsc --noEmit)…');
@@ -539,9 +601,19 @@ async function cmdTest() {
   say('unit and integration tests (vitest)…');
   const vitestReport = path.join(reports, 'vitest.json');
   fs.rmSync(vitestReport, { force: true });
-  const vt = run(process.execPath, ['node_modules/vitest/vitest.mjs', 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${vitestReport}`], {
-    env: { ...process.env, ...env },
-  });
+  const vt = run(
+    process.execPath,
+    [
+      'node_modules/vitest/vitest.mjs',
+      'run',
+      '--reporter=default',
+      '--reporter=json',
+      `--outputFile.json=${vitestReport}`,
+    ],
+    {
+      env: { ...process.env, ...env },
+    },
+  );
   const vCounts = readCounts(vitestReport, 'vitest') ?? { passed: 0, failed: 1 };
   stages.push({ name: 'vitest', ok: vt === 0, ...vCounts });
 
@@ -563,7 +635,10 @@ async function cmdTest() {
   let failed = vCounts.failed + eCounts.failed;
   for (const s of stages) if (!s.ok && !(s.failed > 0)) failed += 1; // a failed typecheck or build counts once
   console.log('');
-  for (const s of stages) console.log(`[rigcall] ${s.ok ? 'ok  ' : 'FAIL'} ${s.name}${s.passed !== undefined ? ` (${s.passed} passed, ${s.failed} failed)` : ''}`);
+  for (const s of stages)
+    console.log(
+      `[rigcall] ${s.ok ? 'ok  ' : 'FAIL'} ${s.name}${s.passed !== undefined ? ` (${s.passed} passed, ${s.failed} failed)` : ''}`,
+    );
   console.log(`[rigcall] total time ${((Date.now() - t0) / 1000).toFixed(0)} s`);
   console.log(`${passed} passed, ${failed} failed`);
   process.exit(failed === 0 && stages.every((s) => s.ok) ? 0 : 1);

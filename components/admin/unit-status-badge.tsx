@@ -3,7 +3,11 @@ import type { UnitDto } from '@/lib/schemas/units';
 /** A unit's state in words and a glyph, never by colour alone. */
 export function UnitStatusBadge({ unit }: { unit: Pick<UnitDto, 'status' | 'retiredAt'> }) {
   if (unit.retiredAt) {
-    return <span className="inline-flex items-center gap-1 rounded border-2 border-dashed border-muted px-2 text-base font-bold text-muted">Retired</span>;
+    return (
+      <span className="inline-flex items-center gap-1 rounded border-2 border-dashed border-muted px-2 text-base font-bold text-muted">
+        Retired
+      </span>
+    );
   }
   if (unit.status === 'out_of_service') {
     return (

@@ -10,7 +10,10 @@ export function AppHeader({ user, view }: { user: SessionUser; view: Role }) {
   return (
     <header className="border-b-slab border-edge bg-panel">
       <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-3 px-4 py-3">
-        <Link href={roleHome[view]} className="mr-auto flex min-h-target items-center text-2xl font-extrabold tracking-tight">
+        <Link
+          href={roleHome[view]}
+          className="mr-auto flex min-h-target items-center text-2xl font-extrabold tracking-tight"
+        >
           Rig<span className="rounded bg-vest px-1 text-on-vest">Call</span>
         </Link>
         <p className="text-lg" data-testid="signed-in-as">
@@ -21,7 +24,11 @@ export function AppHeader({ user, view }: { user: SessionUser; view: Role }) {
             {views
               .filter((r) => r !== view)
               .map((r) => (
-                <Link key={r} href={roleHome[r]} className="flex min-h-target items-center rounded-lg border-slab border-edge px-4 text-lg font-bold">
+                <Link
+                  key={r}
+                  href={roleHome[r]}
+                  className="flex min-h-target items-center rounded-lg border-slab border-edge px-4 text-lg font-bold"
+                >
                   {roleLabel[r]} view
                 </Link>
               ))}

@@ -7,7 +7,11 @@ export function OfficeNav({ items, label }: { items: OfficeNavItem[]; label: str
   return (
     <nav aria-label={label} className="-mt-2 mb-5 flex flex-wrap gap-1 border-b-2 border-edge/20 pb-2 text-base">
       {items.map((i) => (
-        <Link key={i.href} href={i.href} className="rounded-md px-3 py-1.5 font-bold hover:bg-panel hover:underline focus-visible:bg-panel">
+        <Link
+          key={i.href}
+          href={i.href}
+          className="rounded-md px-3 py-1.5 font-bold hover:bg-panel hover:underline focus-visible:bg-panel"
+        >
           {i.label}
         </Link>
       ))}

@@ -33,7 +33,13 @@ export function MajorMark({ compact = false }: { compact?: boolean }) {
   );
 }
 
-export function SeverityMark({ severity, compact }: { severity: 'minor' | 'major' | null | undefined; compact?: boolean }) {
+export function SeverityMark({
+  severity,
+  compact,
+}: {
+  severity: 'minor' | 'major' | null | undefined;
+  compact?: boolean;
+}) {
   if (severity === 'major') return <MajorMark compact={compact} />;
   if (severity === 'minor') return <MinorMark />;
   return <PassMark />;
@@ -41,12 +47,18 @@ export function SeverityMark({ severity, compact }: { severity: 'minor' | 'major
 
 export function UnitStatusBadge({ status }: { status: 'in_service' | 'out_of_service' }) {
   return status === 'out_of_service' ? (
-    <span data-testid="unit-status" className="inline-flex items-center gap-1.5 whitespace-nowrap rounded bg-major px-2 py-0.5 text-sm font-extrabold tracking-wide text-on-major">
+    <span
+      data-testid="unit-status"
+      className="inline-flex items-center gap-1.5 rounded bg-major px-2 py-0.5 text-sm font-extrabold tracking-wide whitespace-nowrap text-on-major"
+    >
       <span aria-hidden className="inline-block h-3.5 w-1.5 bg-on-major" />
       OUT OF SERVICE
     </span>
   ) : (
-    <span data-testid="unit-status" className="inline-flex items-center gap-1 whitespace-nowrap rounded border-2 border-pass px-2 py-0.5 text-sm font-bold text-pass">
+    <span
+      data-testid="unit-status"
+      className="inline-flex items-center gap-1 rounded border-2 border-pass px-2 py-0.5 text-sm font-bold whitespace-nowrap text-pass"
+    >
       <svg aria-hidden viewBox="0 0 16 16" className="h-3.5 w-3.5" fill="none" stroke="currentColor" strokeWidth="2.5">
         <path d="M2.5 8.5l3.5 3.5 7.5-8" />
       </svg>

@@ -11,7 +11,11 @@ export function OpenDraftButton({ label = 'Open a draft' }: { label?: string }) 
       <button type="button" className={buttonClass('primary')} disabled={open.isPending} onClick={() => open.mutate()}>
         {open.isPending ? 'Opening…' : label}
       </button>
-      {open.error && <span role="alert" className="text-sm font-bold text-major">{open.error.message}</span>}
+      {open.error && (
+        <span role="alert" className="text-sm font-bold text-major">
+          {open.error.message}
+        </span>
+      )}
     </span>
   );
 }

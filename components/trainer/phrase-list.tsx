@@ -4,7 +4,15 @@ import { useState } from 'react';
 import { chipClass, fieldClass, buttonClass } from './controls';
 
 /** Spoken phrases as removable chips, with a box to add one. */
-export function PhraseList({ phrases, onChange, label }: { phrases: string[]; onChange: (next: string[]) => void; label: string }) {
+export function PhraseList({
+  phrases,
+  onChange,
+  label,
+}: {
+  phrases: string[];
+  onChange: (next: string[]) => void;
+  label: string;
+}) {
   const [draft, setDraft] = useState('');
   const add = () => {
     const p = draft.trim().toLowerCase().replace(/\s+/g, ' ');
@@ -18,7 +26,13 @@ export function PhraseList({ phrases, onChange, label }: { phrases: string[]; on
         {phrases.map((p) => (
           <li key={p} className={chipClass}>
             <span>{p}</span>
-            <button type="button" className="rounded px-1 font-bold text-muted hover:text-major disabled:opacity-40" aria-label={`Remove phrase ${p}`} disabled={phrases.length <= 1} onClick={() => onChange(phrases.filter((x) => x !== p))}>
+            <button
+              type="button"
+              className="rounded px-1 font-bold text-muted hover:text-major disabled:opacity-40"
+              aria-label={`Remove phrase ${p}`}
+              disabled={phrases.length <= 1}
+              onClick={() => onChange(phrases.filter((x) => x !== p))}
+            >
               ×
             </button>
           </li>
@@ -31,7 +45,14 @@ export function PhraseList({ phrases, onChange, label }: { phrases: string[]; on
           add();
         }}
       >
-        <input className={fieldClass} value={draft} maxLength={80} onChange={(e) => setDraft(e.target.value)} placeholder="add a phrase or synonym" aria-label={`New phrase for ${label}`} />
+        <input
+          className={fieldClass}
+          value={draft}
+          maxLength={80}
+          onChange={(e) => setDraft(e.target.value)}
+          placeholder="add a phrase or synonym"
+          aria-label={`New phrase for ${label}`}
+        />
         <button type="submit" className={buttonClass()} disabled={!draft.trim()}>
           Add
         </button>

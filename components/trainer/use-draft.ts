@@ -10,5 +10,12 @@ export function useVersions({ withGrammar = false }: { withGrammar?: boolean } =
   const draftSummary = versions.find((v) => v.status === 'draft') ?? null;
   const publishedSummary = versions.find((v) => v.status === 'published') ?? null;
   const draft = useQuery({ ...versionOptions(draftSummary?.id ?? 'none'), enabled: withGrammar && !!draftSummary });
-  return { list, versions, draftSummary, publishedSummary, draft: draftSummary ? (draft.data ?? null) : null, draftLoading: withGrammar && !!draftSummary && draft.isPending };
+  return {
+    list,
+    versions,
+    draftSummary,
+    publishedSummary,
+    draft: draftSummary ? (draft.data ?? null) : null,
+    draftLoading: withGrammar && !!draftSummary && draft.isPending,
+  };
 }

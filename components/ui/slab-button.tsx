@@ -12,7 +12,12 @@ export const slabClass = (tone: Tone = 'plain') =>
   `flex min-h-target w-full items-center justify-center gap-3 rounded-lg border-slab px-5 py-3 text-xl font-bold tracking-wide ${tones[tone]} active:translate-y-px disabled:opacity-60`;
 
 /** A full-width slab with a thick outline: at least 64 px high, for a gloved thumb. */
-export function SlabButton({ tone = 'plain', children, className = '', ...rest }: ButtonHTMLAttributes<HTMLButtonElement> & { tone?: Tone; children: ReactNode }) {
+export function SlabButton({
+  tone = 'plain',
+  children,
+  className = '',
+  ...rest
+}: ButtonHTMLAttributes<HTMLButtonElement> & { tone?: Tone; children: ReactNode }) {
   return (
     <button type="button" className={`${slabClass(tone)} ${className}`} {...rest}>
       {children}

@@ -40,17 +40,45 @@ export async function seedDemoFleet(db: DB) {
   });
   const passwordHash = await hashPassword(demo.password);
   const people = [];
-  for (const p of demo.people) people.push(await makeUser(db, { fleetId: fleet.id, email: p.email, name: p.name, roles: p.roles as Role[], passwordHash }));
+  for (const p of demo.people)
+    people.push(
+      await makeUser(db, { fleetId: fleet.id, email: p.email, name: p.name, roles: p.roles as Role[], passwordHash }),
+    );
   for (const t of demoTractors) {
     const { chamber, ...rest } = t;
-    await makeUnit(db, { fleetId: fleet.id, kind: 'tractor', plateJurisdiction: 'IA', axles: JSON.stringify(tractorAxles(chamber)), ...rest });
+    await makeUnit(db, {
+      fleetId: fleet.id,
+      kind: 'tractor',
+      plateJurisdiction: 'IA',
+      axles: JSON.stringify(tractorAxles(chamber)),
+      ...rest,
+    });
   }
   for (const t of demoTrailers) {
-    await makeUnit(db, { fleetId: fleet.id, kind: 'trailer', plateJurisdiction: 'IA', axles: JSON.stringify(trailerAxles), ...t });
+    await makeUnit(db, {
+      fleetId: fleet.id,
+      kind: 'trailer',
+      plateJurisdiction: 'IA',
+      axles: JSON.stringify(trailerAxles),
+      ...t,
+    });
   }
   // A second, unrelated fleet: nobody at Northbank may ever see its records.
   const other = await makeFleet(db, { name: 'Red Mesa Carriers', slug: 'red-mesa', timezone: 'America/Denver' });
-  await makeUser(db, { fleetId: other.id, email: 'ines.duarte@redmesa.example', name: 'Ines Duarte', roles: ['driver', 'admin'], passwordHash });
-  await makeUnit(db, { fleetId: other.id, kind: 'tractor', unitNumber: 'RM-11', make: 'Ardent', model: 'A-Line 600', year: 2018 });
+  await makeUser(db, {
+    fleetId: other.id,
+    email: 'ines.duarte@redmesa.example',
+    name: 'Ines Duarte',
+    roles: ['driver', 'admin'],
+    passwordHash,
+  });
+  await makeUnit(db, {
+    fleetId: other.id,
+    kind: 'tractor',
+    unitNumber: 'RM-11',
+    make: 'Ardent',
+    model: 'A-Line 600',
+    year: 2018,
+  });
   return { fleet, people };
 }

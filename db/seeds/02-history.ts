@@ -14,7 +14,8 @@ import { serializeReport, toCanonicalSteps } from '../../lib/reports/canonical-r
 export const certificationStatement =
   'I performed this inspection and the report lists every defect I found or that was reported to me.';
 const ackStatement = 'I reviewed the last inspection report of this unit and the repair certification of its defects.';
-const repairStatement = 'I certify that the defect listed was repaired, or that its repair is unnecessary for safe operation.';
+const repairStatement =
+  'I certify that the defect listed was repaired, or that its repair is unnecessary for safe operation.';
 
 /** A small seeded generator (mulberry32), so that every seed run tells the same story. */
 function rng(seed: number) {
@@ -40,31 +41,145 @@ export function uuidFrom(name: string): string {
   return `${h.slice(0, 8)}-${h.slice(8, 12)}-4${h.slice(13, 16)}-a${h.slice(17, 20)}-${h.slice(20, 32)}`;
 }
 
-type Scenario = { heard: string; component: string; condition: string; position: string | null; zone: string; score: number; unit: 'tractor' | 'trailer' };
+type Scenario = {
+  heard: string;
+  component: string;
+  condition: string;
+  position: string | null;
+  zone: string;
+  score: number;
+  unit: 'tractor' | 'trailer';
+};
 
 // Findings drivers said in this invented history (words as a recogniser might return them).
 const scenarios: Scenario[] = [
-  { heard: 'bulge on the left steer tire', component: 'steer_tire', condition: 'bulge', position: 'left', zone: 'front', score: 0.93, unit: 'tractor' },
-  { heard: 'clearance light out top right', component: 'clearance_light', condition: 'inoperative', position: 'right', zone: 'rear', score: 0.88, unit: 'trailer' },
-  { heard: 'air leak at the glad hands', component: 'glad_hand', condition: 'audible_air_leak', position: null, zone: 'coupling', score: 0.81, unit: 'tractor' },
-  { heard: 'windshield chip passenger side', component: 'windshield', condition: 'chipped', position: 'right', zone: 'front', score: 0.9, unit: 'tractor' },
-  { heard: 'mud flap torn driver side', component: 'mud_flap', condition: 'broken', position: 'left', zone: 'driver_side_trailer', score: 0.74, unit: 'trailer' },
-  { heard: 'marker lamp cracked left side', component: 'marker_light', condition: 'cracked', position: 'left', zone: 'driver_side_trailer', score: 0.86, unit: 'trailer' },
-  { heard: 'wiper blade torn', component: 'wiper_blade', condition: 'worn', position: null, zone: 'front', score: 0.84, unit: 'tractor' },
-  { heard: 'brake chamber leaking axle two right', component: 'brake_chamber', condition: 'audible_air_leak', position: 'axle 2', zone: 'passenger_side_trailer', score: 0.79, unit: 'trailer' },
-  { heard: 'landing gear crank bent', component: 'landing_gear', condition: 'bent', position: null, zone: 'coupling', score: 0.71, unit: 'trailer' },
-  { heard: 'fire extinguisher missing', component: 'fire_extinguisher', condition: 'missing', position: null, zone: 'in_cab', score: 0.92, unit: 'tractor' },
-  { heard: 'lug nut loose right rear drive', component: 'lug_nut', condition: 'loose', position: 'right', zone: 'passenger_side_tractor', score: 0.83, unit: 'tractor' },
-  { heard: 'rear door latch wont lock', component: 'door_latch', condition: 'not_locked', position: 'rear', zone: 'rear', score: 0.66, unit: 'trailer' },
+  {
+    heard: 'bulge on the left steer tire',
+    component: 'steer_tire',
+    condition: 'bulge',
+    position: 'left',
+    zone: 'front',
+    score: 0.93,
+    unit: 'tractor',
+  },
+  {
+    heard: 'clearance light out top right',
+    component: 'clearance_light',
+    condition: 'inoperative',
+    position: 'right',
+    zone: 'rear',
+    score: 0.88,
+    unit: 'trailer',
+  },
+  {
+    heard: 'air leak at the glad hands',
+    component: 'glad_hand',
+    condition: 'audible_air_leak',
+    position: null,
+    zone: 'coupling',
+    score: 0.81,
+    unit: 'tractor',
+  },
+  {
+    heard: 'windshield chip passenger side',
+    component: 'windshield',
+    condition: 'chipped',
+    position: 'right',
+    zone: 'front',
+    score: 0.9,
+    unit: 'tractor',
+  },
+  {
+    heard: 'mud flap torn driver side',
+    component: 'mud_flap',
+    condition: 'broken',
+    position: 'left',
+    zone: 'driver_side_trailer',
+    score: 0.74,
+    unit: 'trailer',
+  },
+  {
+    heard: 'marker lamp cracked left side',
+    component: 'marker_light',
+    condition: 'cracked',
+    position: 'left',
+    zone: 'driver_side_trailer',
+    score: 0.86,
+    unit: 'trailer',
+  },
+  {
+    heard: 'wiper blade torn',
+    component: 'wiper_blade',
+    condition: 'worn',
+    position: null,
+    zone: 'front',
+    score: 0.84,
+    unit: 'tractor',
+  },
+  {
+    heard: 'brake chamber leaking axle two right',
+    component: 'brake_chamber',
+    condition: 'audible_air_leak',
+    position: 'axle 2',
+    zone: 'passenger_side_trailer',
+    score: 0.79,
+    unit: 'trailer',
+  },
+  {
+    heard: 'landing gear crank bent',
+    component: 'landing_gear',
+    condition: 'bent',
+    position: null,
+    zone: 'coupling',
+    score: 0.71,
+    unit: 'trailer',
+  },
+  {
+    heard: 'fire extinguisher missing',
+    component: 'fire_extinguisher',
+    condition: 'missing',
+    position: null,
+    zone: 'in_cab',
+    score: 0.92,
+    unit: 'tractor',
+  },
+  {
+    heard: 'lug nut loose right rear drive',
+    component: 'lug_nut',
+    condition: 'loose',
+    position: 'right',
+    zone: 'passenger_side_tractor',
+    score: 0.83,
+    unit: 'tractor',
+  },
+  {
+    heard: 'rear door latch wont lock',
+    component: 'door_latch',
+    condition: 'not_locked',
+    position: 'rear',
+    zone: 'rear',
+    score: 0.66,
+    unit: 'trailer',
+  },
 ];
 
-const unmatchedSaid = ['the reefer is making that noise again', 'check the thingy by the tank', 'dispatch says door twelve', 'mirror bracket wobbles kinda', 'is that a crack or dirt'];
+const unmatchedSaid = [
+  'the reefer is making that noise again',
+  'check the thingy by the tank',
+  'dispatch says door twelve',
+  'mirror bracket wobbles kinda',
+  'is that a crack or dirt',
+];
 
 type ZoneItem = { id: string; label: string; component: string; measure?: string; configurations: string[] };
 type Zone = { id: string; name: string; configurations: string[]; items: ZoneItem[] };
 const zones = (zonesGrammar as unknown as { zones: Zone[] }).zones;
 
-type VocabComponent = { id: string; name: string; defects: { condition: string; severity: { us?: 'minor' | 'major'; ca?: 'minor' | 'major' } }[] };
+type VocabComponent = {
+  id: string;
+  name: string;
+  defects: { condition: string; severity: { us?: 'minor' | 'major'; ca?: 'minor' | 'major' } }[];
+};
 type VocabCondition = { id: string; name: string };
 const vocab = vocabulary as unknown as { version: number; components: VocabComponent[]; conditions: VocabCondition[] };
 
@@ -85,7 +200,12 @@ function tirePosition(zoneId: string): 'steer' | 'drive' | 'trailer' {
 }
 
 /** A reading for one measured item: usually healthy, now and then over a limit. */
-function reading(r: ReturnType<typeof rng>, measure: string, zoneId: string, trailerYear: number | null): Record<string, unknown> | null {
+function reading(
+  r: ReturnType<typeof rng>,
+  measure: string,
+  zoneId: string,
+  trailerYear: number | null,
+): Record<string, unknown> | null {
   const bad = r.chance(0.012);
   switch (measure) {
     case 'tread_depth': {
@@ -95,10 +215,19 @@ function reading(r: ReturnType<typeof rng>, measure: string, zoneId: string, tra
     }
     case 'tire_pressure': {
       const target = zoneId === 'front' ? 110 : 100;
-      return { check: 'tire_pressure', target, max_cold: 120, value: bad ? target - r.int(12, 25) : target + r.int(0, 4) };
+      return {
+        check: 'tire_pressure',
+        target,
+        max_cold: 120,
+        value: bad ? target - r.int(12, 25) : target + r.int(0, 4),
+      };
     }
     case 'pushrod_stroke':
-      return { check: 'pushrod_stroke', chamber: zoneId.includes('trailer') ? '30L' : '30', value: bad ? 2.125 : r.pick([1.25, 1.375, 1.5, 1.625]) };
+      return {
+        check: 'pushrod_stroke',
+        chamber: zoneId.includes('trailer') ? '30L' : '30',
+        value: bad ? 2.125 : r.pick([1.25, 1.375, 1.5, 1.625]),
+      };
     case 'steering_lash':
       return { check: 'steering_lash', wheel_diameter: 20, power: true, value: bad ? 6 : r.pick([1, 1.5, 2, 2.5]) };
     case 'air_buildup':
@@ -112,34 +241,73 @@ function reading(r: ReturnType<typeof rng>, measure: string, zoneId: string, tra
     case 'low_air_warning':
       return { check: 'low_air_warning', value: bad ? 52 : r.int(60, 68) };
     case 'ground_clearance':
-      return trailerYear ? { check: 'rear_impact_guard', ground_clearance: bad ? 23 : r.int(18, 21), trailer_built_year: trailerYear } : null;
+      return trailerYear
+        ? { check: 'rear_impact_guard', ground_clearance: bad ? 23 : r.int(18, 21), trailer_built_year: trailerYear }
+        : null;
     default:
       return null;
   }
 }
 
-const spokenUnit: Record<string, string> = { tread_depth: '32nds', tire_pressure: 'psi', pushrod_stroke: 'in', steering_lash: 'in', air_buildup: 's', governor_cutout: 'psi', governor_cutin: 'psi', air_leak: 'psi', low_air_warning: 'psi', rear_impact_guard: 'in' };
+const spokenUnit: Record<string, string> = {
+  tread_depth: '32nds',
+  tire_pressure: 'psi',
+  pushrod_stroke: 'in',
+  steering_lash: 'in',
+  air_buildup: 's',
+  governor_cutout: 'psi',
+  governor_cutin: 'psi',
+  air_leak: 'psi',
+  low_air_warning: 'psi',
+  rear_impact_guard: 'in',
+};
 
 export async function seedHistory(db: DB, opts: { fleetSlug: string; days?: number; now?: Date }) {
   const days = opts.days ?? 60;
   const now = opts.now ?? new Date();
-  const fleet = await db.selectFrom('fleet').select(['id']).where('slug', '=', opts.fleetSlug).executeTakeFirstOrThrow();
-  const existing = await db.selectFrom('inspection').select((eb) => eb.fn.countAll<number>().as('n')).where('fleetId', '=', fleet.id).executeTakeFirstOrThrow();
+  const fleet = await db
+    .selectFrom('fleet')
+    .select(['id'])
+    .where('slug', '=', opts.fleetSlug)
+    .executeTakeFirstOrThrow();
+  const existing = await db
+    .selectFrom('inspection')
+    .select((eb) => eb.fn.countAll<number>().as('n'))
+    .where('fleetId', '=', fleet.id)
+    .executeTakeFirstOrThrow();
   if (Number(existing.n) > 0) return { skipped: true as const, inspections: Number(existing.n) };
 
-  const users = await db.selectFrom('appUser').select(['id', 'name', 'roles']).where('fleetId', '=', fleet.id).orderBy('email').execute();
+  const users = await db
+    .selectFrom('appUser')
+    .select(['id', 'name', 'roles'])
+    .where('fleetId', '=', fleet.id)
+    .orderBy('email')
+    .execute();
   const drivers = users.filter((u) => u.roles.includes('driver'));
   const mechanic = users.find((u) => u.roles.includes('mechanic'));
   const supervisor = users.find((u) => u.roles.includes('supervisor'));
-  if (!drivers.length || !mechanic || !supervisor) throw new Error('the demo fleet needs drivers, a mechanic and a supervisor before its history');
-  const units = await db.selectFrom('unit').select(['id', 'kind', 'unitNumber', 'year']).where('fleetId', '=', fleet.id).orderBy('unitNumber').execute();
+  if (!drivers.length || !mechanic || !supervisor)
+    throw new Error('the demo fleet needs drivers, a mechanic and a supervisor before its history');
+  const units = await db
+    .selectFrom('unit')
+    .select(['id', 'kind', 'unitNumber', 'year'])
+    .where('fleetId', '=', fleet.id)
+    .orderBy('unitNumber')
+    .execute();
   const tractors = units.filter((u) => u.kind === 'tractor');
   const trailers = units.filter((u) => u.kind === 'trailer');
 
   const versionId = uuidFrom(`${opts.fleetSlug}:vocabulary:default`);
   await db
     .insertInto('vocabularyVersion')
-    .values({ id: versionId, fleetId: fleet.id, label: `default v${vocab.version}`, status: 'published', grammar: JSON.stringify(vocabulary), publishedAt: new Date(now.getTime() - (days + 1) * 86_400_000) })
+    .values({
+      id: versionId,
+      fleetId: fleet.id,
+      label: `default v${vocab.version}`,
+      status: 'published',
+      grammar: JSON.stringify(vocabulary),
+      publishedAt: new Date(now.getTime() - (days + 1) * 86_400_000),
+    })
     .onConflict((oc) => oc.column('id').doNothing())
     .execute();
 
@@ -163,7 +331,10 @@ export async function seedHistory(db: DB, opts: { fleetSlug: string; days?: numb
       for (const kind of ['pre_trip', 'post_trip'] as const) {
         if (kind === 'post_trip' && (d === 0 || !r.chance(0.65))) continue;
         const inspectionId = uuidFrom(`${opts.fleetSlug}:${d}:${driver.id}:${kind}`);
-        const startedAt = new Date(dayStart + (kind === 'pre_trip' ? 11 * 3600_000 + r.int(0, 90) * 60_000 : 22 * 3600_000 + r.int(0, 60) * 60_000));
+        const startedAt = new Date(
+          dayStart +
+            (kind === 'pre_trip' ? 11 * 3600_000 + r.int(0, 90) * 60_000 : 22 * 3600_000 + r.int(0, 60) * 60_000),
+        );
         const short = r.chance(0.08);
         const minutes = kind === 'pre_trip' ? (short ? r.int(6, 12) : r.int(16, 31)) : r.int(5, 12);
         const finishedAt = new Date(startedAt.getTime() + minutes * 60_000);
@@ -174,27 +345,74 @@ export async function seedHistory(db: DB, opts: { fleetSlug: string; days?: numb
         let t = startedAt.getTime();
         const mine: Insertable<InspectionStep>[] = [];
         const myDefects: Insertable<Defect>[] = [];
-        const push = (s: Omit<Insertable<InspectionStep>, 'id' | 'fleetId' | 'inspectionId' | 'seq' | 'deviceAt' | 'serverAt'>) => {
+        const push = (
+          s: Omit<Insertable<InspectionStep>, 'id' | 'fleetId' | 'inspectionId' | 'seq' | 'deviceAt' | 'serverAt'>,
+        ) => {
           t += stepMs * (0.5 + r.next());
           const id = uuidFrom(`${inspectionId}:step:${seq}`);
-          const row: Insertable<InspectionStep> = { id, fleetId: fleet.id, inspectionId, seq: seq++, deviceAt: new Date(t), serverAt: new Date(t + r.int(80, 900)), alternatives: '[]', ...s };
+          const row: Insertable<InspectionStep> = {
+            id,
+            fleetId: fleet.id,
+            inspectionId,
+            seq: seq++,
+            deviceAt: new Date(t),
+            serverAt: new Date(t + r.int(80, 900)),
+            alternatives: '[]',
+            ...s,
+          };
           mine.push(row);
           return row;
         };
-        const addDefect = (step: Insertable<InspectionStep>, unitId: string, severity: 'minor' | 'major', description: string) => {
-          myDefects.push({ id: uuidFrom(`${step.id}:defect`), fleetId: fleet.id, inspectionId, stepId: step.id!, unitId, zone: step.zone, component: step.component ?? 'unknown', condition: step.condition ?? `${String(step.measurementKind ?? 'reading').replace(/_/g, ' ')} fails the limit`, position: step.position ?? null, severity, description, createdAt: step.deviceAt });
+        const addDefect = (
+          step: Insertable<InspectionStep>,
+          unitId: string,
+          severity: 'minor' | 'major',
+          description: string,
+        ) => {
+          myDefects.push({
+            id: uuidFrom(`${step.id}:defect`),
+            fleetId: fleet.id,
+            inspectionId,
+            stepId: step.id!,
+            unitId,
+            zone: step.zone,
+            component: step.component ?? 'unknown',
+            condition:
+              step.condition ?? `${String(step.measurementKind ?? 'reading').replace(/_/g, ' ')} fails the limit`,
+            position: step.position ?? null,
+            severity,
+            description,
+            createdAt: step.deviceAt,
+          });
         };
-        const finding = kind === 'pre_trip' && r.chance(0.2) ? r.pick(scenarios.filter((s) => s.unit === 'tractor' || trailer)) : null;
+        const finding =
+          kind === 'pre_trip' && r.chance(0.2)
+            ? r.pick(scenarios.filter((s) => s.unit === 'tractor' || trailer))
+            : null;
         const skipZone = short && r.chance(0.6) ? r.pick(walk).id : null;
 
         for (const zone of walk) {
           if (zone.id === skipZone) continue;
           push({ zone: zone.id, kind: 'visit', inputMode: 'tap' });
           if (kind === 'post_trip' && zone.id === 'air_brake_tests') continue;
-          for (const item of zone.items.filter((i) => i.configurations.includes(config) && i.measure && kind === 'pre_trip')) {
-            const modes = item.measure === 'air_leak' ? (zone.items.filter((i) => i.measure === 'air_leak').indexOf(item) === 0 ? ['applied'] : ['released']) : [null];
+          for (const item of zone.items.filter(
+            (i) => i.configurations.includes(config) && i.measure && kind === 'pre_trip',
+          )) {
+            const modes =
+              item.measure === 'air_leak'
+                ? zone.items.filter((i) => i.measure === 'air_leak').indexOf(item) === 0
+                  ? ['applied']
+                  : ['released']
+                : [null];
             for (const mode of modes) {
-              const input = mode ? { check: 'air_leak', mode, combination: !!trailer, value: r.chance(0.02) ? 6 : mode === 'applied' ? r.pick([0, 1, 2, 3]) : r.pick([0, 1, 1, 2]) } : reading(r, item.measure!, zone.id, trailer?.year ?? null);
+              const input = mode
+                ? {
+                    check: 'air_leak',
+                    mode,
+                    combination: !!trailer,
+                    value: r.chance(0.02) ? 6 : mode === 'applied' ? r.pick([0, 1, 2, 3]) : r.pick([0, 1, 1, 2]),
+                  }
+                : reading(r, item.measure!, zone.id, trailer?.year ?? null);
               if (!input) continue;
               const verdict = evaluateMeasurement(input) as EvaluationResult;
               const value = Number(input.value ?? input.seconds ?? input.ground_clearance);
@@ -217,7 +435,15 @@ export async function seedHistory(db: DB, opts: { fleetSlug: string; days?: numb
                 resolution: voice ? 'auto' : null,
               });
               if (verdict.verdict === 'fail' && verdict.severity) {
-                addDefect(step, zone.id.includes('trailer') && trailer ? trailer.id : tractor.id, verdict.severity, `${item.label}: ${value} ${spokenUnit[String(input.check)] ?? ''} (limit ${verdict.limit ?? 'n/a'} ${verdict.unit})`.replaceAll(' 32nds', '/32 in'));
+                addDefect(
+                  step,
+                  zone.id.includes('trailer') && trailer ? trailer.id : tractor.id,
+                  verdict.severity,
+                  `${item.label}: ${value} ${spokenUnit[String(input.check)] ?? ''} (limit ${verdict.limit ?? 'n/a'} ${verdict.unit})`.replaceAll(
+                    ' 32nds',
+                    '/32 in',
+                  ),
+                );
               }
             }
           }
@@ -229,7 +455,9 @@ export async function seedHistory(db: DB, opts: { fleetSlug: string; days?: numb
               kind: 'defect',
               inputMode: 'voice',
               heard: finding.heard,
-              alternatives: JSON.stringify(unsure ? [`${finding.heard}s`, finding.heard.replace(/ on the| at the/, '')] : []),
+              alternatives: JSON.stringify(
+                unsure ? [`${finding.heard}s`, finding.heard.replace(/ on the| at the/, '')] : [],
+              ),
               termKey: `${finding.component}:${finding.condition}`,
               component: term.component,
               condition: term.condition,
@@ -238,20 +466,48 @@ export async function seedHistory(db: DB, opts: { fleetSlug: string; days?: numb
               resolution: unsure ? 'confirmed' : 'auto',
               severity: term.severity,
             });
-            addDefect(step, finding.unit === 'trailer' && trailer ? trailer.id : tractor.id, term.severity, `${term.component}, ${term.condition}${finding.position ? `, ${finding.position}` : ''}`);
+            addDefect(
+              step,
+              finding.unit === 'trailer' && trailer ? trailer.id : tractor.id,
+              term.severity,
+              `${term.component}, ${term.condition}${finding.position ? `, ${finding.position}` : ''}`,
+            );
           }
           if (r.chance(0.015)) {
             const said = r.pick(unmatchedSaid);
-            utterances.push({ fleetId: fleet.id, zone: zone.id, text: said, normalized: said.toLowerCase(), outcome: 'unmatched', createdAt: new Date(t) });
+            utterances.push({
+              fleetId: fleet.id,
+              zone: zone.id,
+              text: said,
+              normalized: said.toLowerCase(),
+              outcome: 'unmatched',
+              createdAt: new Date(t),
+            });
           }
-          push({ zone: zone.id, kind: 'zone_ok', inputMode: r.chance(0.75) ? 'voice' : 'tap', heard: r.pick(['all good', 'looks good', 'good here', 'all good next']), score: 1, resolution: 'auto' });
+          push({
+            zone: zone.id,
+            kind: 'zone_ok',
+            inputMode: r.chance(0.75) ? 'voice' : 'tap',
+            heard: r.pick(['all good', 'looks good', 'good here', 'all good next']),
+            score: 1,
+            resolution: 'auto',
+          });
         }
 
         // The driver of this unit first acknowledged the last report that had defects.
         for (const unitId of [tractor.id, trailer?.id].filter((x): x is string => !!x)) {
           const prev = lastReport.get(unitId);
           if (prev && prev.defectIds.length) {
-            acks.push({ fleetId: fleet.id, unitId, reviewedInspectionId: prev.inspectionId, inspectionId, driverId: driver.id, signatureName: driver.name, statement: ackStatement, acknowledgedAt: new Date(startedAt.getTime() - 60_000) });
+            acks.push({
+              fleetId: fleet.id,
+              unitId,
+              reviewedInspectionId: prev.inspectionId,
+              inspectionId,
+              driverId: driver.id,
+              signatureName: driver.name,
+              statement: ackStatement,
+              acknowledgedAt: new Date(startedAt.getTime() - 60_000),
+            });
             lastReport.delete(unitId);
           }
         }
@@ -265,7 +521,12 @@ export async function seedHistory(db: DB, opts: { fleetSlug: string; days?: numb
           tractorId: tractor.id,
           trailerId: trailer?.id ?? null,
           odometer: 412_000 + di * 37_000 + (days - d) * 480 + (kind === 'post_trip' ? 430 : 0),
-          location: r.pick(['Millbrook Terminal, yard B', 'Millbrook Terminal, fuel island', 'Cedar Flats drop yard', 'Hollis Junction customer lot']),
+          location: r.pick([
+            'Millbrook Terminal, yard B',
+            'Millbrook Terminal, fuel island',
+            'Cedar Flats drop yard',
+            'Hollis Junction customer lot',
+          ]),
           billOfLading: trailer && r.chance(0.7) ? `NB-${r.int(100000, 999999)}` : null,
           sealNumber: trailer && r.chance(0.6) ? String(r.int(1000000, 9999999)) : null,
           ruleProfile: 'us-federal',
@@ -280,9 +541,25 @@ export async function seedHistory(db: DB, opts: { fleetSlug: string; days?: numb
           ...header,
           steps: toCanonicalSteps(
             mine.map((s) => ({
-              id: s.id!, seq: s.seq, zone: s.zone, item: s.item ?? null, kind: s.kind, heard: s.heard ?? null, termKey: s.termKey ?? null, component: s.component ?? null,
-              condition: s.condition ?? null, position: s.position ?? null, score: s.score ?? null, resolution: s.resolution ?? null, undoesStepId: s.undoesStepId ?? null,
-              measurementKind: s.measurementKind ?? null, value: (s.value as number | null | undefined) ?? null, unit: s.unit ?? null, verdict: s.verdict ?? null, severity: s.severity ?? null, deviceAt: s.deviceAt as Date,
+              id: s.id!,
+              seq: s.seq,
+              zone: s.zone,
+              item: s.item ?? null,
+              kind: s.kind,
+              heard: s.heard ?? null,
+              termKey: s.termKey ?? null,
+              component: s.component ?? null,
+              condition: s.condition ?? null,
+              position: s.position ?? null,
+              score: s.score ?? null,
+              resolution: s.resolution ?? null,
+              undoesStepId: s.undoesStepId ?? null,
+              measurementKind: s.measurementKind ?? null,
+              value: (s.value as number | null | undefined) ?? null,
+              unit: s.unit ?? null,
+              verdict: s.verdict ?? null,
+              severity: s.severity ?? null,
+              deviceAt: s.deviceAt as Date,
             })),
           ),
         });
@@ -307,8 +584,12 @@ export async function seedHistory(db: DB, opts: { fleetSlug: string; days?: numb
             const unnecessary = defect.severity === 'minor' && r.chance(0.15);
             Object.assign(defect, {
               status: unnecessary ? 'no_repair_needed' : 'repaired',
-              repairWork: unnecessary ? 'Inspected; within limits, no repair needed.' : `Replaced or adjusted: ${defect.component}.`,
-              repairParts: unnecessary ? null : r.pick(['stock part from shop shelf', 'OEM replacement', 'none (adjustment only)']),
+              repairWork: unnecessary
+                ? 'Inspected; within limits, no repair needed.'
+                : `Replaced or adjusted: ${defect.component}.`,
+              repairParts: unnecessary
+                ? null
+                : r.pick(['stock part from shop shelf', 'OEM replacement', 'none (adjustment only)']),
               certifiedBy: mechanic.id,
               certifiedName: mechanic.name,
               certificationText: repairStatement,
@@ -329,16 +610,46 @@ export async function seedHistory(db: DB, opts: { fleetSlug: string; days?: numb
     const chunk = async <T>(rows: T[], size: number, insert: (part: T[]) => Promise<unknown>) => {
       for (let i = 0; i < rows.length; i += size) await insert(rows.slice(i, i + size));
     };
-    await chunk(inspections, 200, (part) => trx.insertInto('inspection').values(part).onConflict((oc) => oc.column('id').doNothing()).execute());
-    await chunk(steps, 1000, (part) => trx.insertInto('inspectionStep').values(part).onConflict((oc) => oc.column('id').doNothing()).execute());
-    await chunk(defects, 500, (part) => trx.insertInto('defect').values(part).onConflict((oc) => oc.column('id').doNothing()).execute());
+    await chunk(inspections, 200, (part) =>
+      trx
+        .insertInto('inspection')
+        .values(part)
+        .onConflict((oc) => oc.column('id').doNothing())
+        .execute(),
+    );
+    await chunk(steps, 1000, (part) =>
+      trx
+        .insertInto('inspectionStep')
+        .values(part)
+        .onConflict((oc) => oc.column('id').doNothing())
+        .execute(),
+    );
+    await chunk(defects, 500, (part) =>
+      trx
+        .insertInto('defect')
+        .values(part)
+        .onConflict((oc) => oc.column('id').doNothing())
+        .execute(),
+    );
     await chunk(acks, 500, (part) => trx.insertInto('acknowledgement').values(part).execute());
     if (utterances.length) await trx.insertInto('fieldUtterance').values(utterances).execute();
     // A unit is out of service while any major defect on it is open.
-    const openMajor = new Set(defects.filter((x) => x.severity === 'major' && (x.status ?? 'open') === 'open').map((x) => x.unitId));
+    const openMajor = new Set(
+      defects.filter((x) => x.severity === 'major' && (x.status ?? 'open') === 'open').map((x) => x.unitId),
+    );
     for (const unit of units) {
-      await trx.updateTable('unit').set({ status: openMajor.has(unit.id) ? 'out_of_service' : 'in_service' }).where('id', '=', unit.id).execute();
+      await trx
+        .updateTable('unit')
+        .set({ status: openMajor.has(unit.id) ? 'out_of_service' : 'in_service' })
+        .where('id', '=', unit.id)
+        .execute();
     }
   });
-  return { skipped: false as const, inspections: inspections.length, steps: steps.length, defects: defects.length, acknowledgements: acks.length };
+  return {
+    skipped: false as const,
+    inspections: inspections.length,
+    steps: steps.length,
+    defects: defects.length,
+    acknowledgements: acks.length,
+  };
 }

@@ -22,7 +22,14 @@ type Options<P, B, Q> = {
   rawBody?: { maxBytes: number };
 };
 
-type Handler<P, B, Q, U> = (ctx: { req: Request; user: U; params: P; body: B; query: Q; bytes: Uint8Array | null }) => Promise<Response>;
+type Handler<P, B, Q, U> = (ctx: {
+  req: Request;
+  user: U;
+  params: P;
+  body: B;
+  query: Q;
+  bytes: Uint8Array | null;
+}) => Promise<Response>;
 
 const errorResponse = (e: AppError) => Response.json(e.toBody(), { status: e.status });
 
@@ -80,15 +87,23 @@ function unknownFields(schema: ZodType, value: unknown): string[] {
 function parseBodyOrThrow<T>(schema: ZodType<T>, value: unknown): T {
   const extra = unknownFields(schema, value);
   if (extra.length) {
-    const shown = extra.slice(0, 5).map((k) => `“${k.slice(0, 40)}”`).join(', ');
-    throw new AppError('invalid_body', `Request: ${extra.length === 1 ? 'this field is' : 'these fields are'} not part of this request: ${shown}.`, Object.fromEntries(extra.slice(0, 20).map((k) => [k.slice(0, 40), ['is not a field of this request']])));
+    const shown = extra
+      .slice(0, 5)
+      .map((k) => `“${k.slice(0, 40)}”`)
+      .join(', ');
+    throw new AppError(
+      'invalid_body',
+      `Request: ${extra.length === 1 ? 'this field is' : 'these fields are'} not part of this request: ${shown}.`,
+      Object.fromEntries(extra.slice(0, 20).map((k) => [k.slice(0, 40), ['is not a field of this request']])),
+    );
   }
   return parseOrThrow(schema, value, 'Request');
 }
 
 async function readBytes(req: Request, maxBytes: number): Promise<Uint8Array> {
   const declared = Number(req.headers.get('content-length') ?? 0);
-  const limit = maxBytes >= 1024 * 1024 ? `${Math.round(maxBytes / (1024 * 1024))} MB` : `${Math.round(maxBytes / 1024)} KB`;
+  const limit =
+    maxBytes >= 1024 * 1024 ? `${Math.round(maxBytes / (1024 * 1024))} MB` : `${Math.round(maxBytes / 1024)} KB`;
   if (declared > maxBytes) throw new AppError('payload_too_large', `The file is larger than ${limit}.`);
   if (!req.body) throw new AppError('invalid_body', 'The upload is empty.');
   const reader = req.body.getReader();
@@ -100,7 +115,10 @@ async function readBytes(req: Request, maxBytes: number): Promise<Uint8Array> {
       chunk = await reader.read();
     } catch {
       // The connection dropped mid-upload: nothing was stored, and the device sends it again.
-      throw new AppError('invalid_body', 'The upload was cut off before it finished. Nothing was saved; send the photo again.');
+      throw new AppError(
+        'invalid_body',
+        'The upload was cut off before it finished. Nothing was saved; send the photo again.',
+      );
     }
     const { done, value } = chunk;
     if (done) break;
@@ -127,7 +145,8 @@ async function readBody(req: Request, maxBytes: number): Promise<unknown> {
     throw new AppError('unsupported_media_type', 'Send the request body as JSON (Content-Type: application/json).');
   }
   const text = await req.text();
-  if (Buffer.byteLength(text) > maxBytes) throw new AppError('payload_too_large', `The request body is larger than ${Math.round(maxBytes / 1024)} KB.`);
+  if (Buffer.byteLength(text) > maxBytes)
+    throw new AppError('payload_too_large', `The request body is larger than ${Math.round(maxBytes / 1024)} KB.`);
   if (!text.trim()) throw new AppError('invalid_json', 'The request body is empty; JSON was expected.');
   try {
     return JSON.parse(text) as unknown;
@@ -146,13 +165,22 @@ const unsafeMethods = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
 export function checkSameOrigin(req: Request): AppError | null {
   if (!unsafeMethods.has(req.method.toUpperCase())) return null;
   const site = req.headers.get('sec-fetch-site');
-  if (site && site !== 'same-origin' && site !== 'none') return new AppError('forbidden', 'This request came from another site and was refused. Use RigCall from its own pages.');
+  if (site && site !== 'same-origin' && site !== 'none')
+    return new AppError(
+      'forbidden',
+      'This request came from another site and was refused. Use RigCall from its own pages.',
+    );
   const origin = req.headers.get('origin');
   if (!origin) return null;
-  if (origin === 'null') return new AppError('forbidden', 'This request came from another site and was refused. Use RigCall from its own pages.');
+  if (origin === 'null')
+    return new AppError(
+      'forbidden',
+      'This request came from another site and was refused. Use RigCall from its own pages.',
+    );
   const allowed = new Set<string>([new URL(req.url).origin]);
   const host = req.headers.get('x-forwarded-host') ?? req.headers.get('host');
-  if (host) allowed.add(`${req.headers.get('x-forwarded-proto') ?? new URL(req.url).protocol.replace(':', '')}://${host}`);
+  if (host)
+    allowed.add(`${req.headers.get('x-forwarded-proto') ?? new URL(req.url).protocol.replace(':', '')}://${host}`);
   if (process.env.NEXTAUTH_URL) {
     try {
       allowed.add(new URL(process.env.NEXTAUTH_URL).origin);
@@ -160,7 +188,9 @@ export function checkSameOrigin(req: Request): AppError | null {
       /* checked by getEnv */
     }
   }
-  return allowed.has(origin) ? null : new AppError('forbidden', 'This request came from another site and was refused. Use RigCall from its own pages.');
+  return allowed.has(origin)
+    ? null
+    : new AppError('forbidden', 'This request came from another site and was refused. Use RigCall from its own pages.');
 }
 
 /**
@@ -193,7 +223,10 @@ export function defineRoute<P, B, Q>(opts: Options<P, B, Q>, handler: Handler<P,
         ? parseOrThrow(opts.query, Object.fromEntries(new URL(req.url).searchParams), 'Query')
         : (undefined as Q);
       const bytes = opts.rawBody ? await readBytes(req, opts.rawBody.maxBytes) : null;
-      const body = opts.body && !opts.rawBody ? parseBodyOrThrow(opts.body, await readBody(req, opts.maxBodyBytes ?? 256 * 1024)) : (undefined as B);
+      const body =
+        opts.body && !opts.rawBody
+          ? parseBodyOrThrow(opts.body, await readBody(req, opts.maxBodyBytes ?? 256 * 1024))
+          : (undefined as B);
       return await handler({ req, user: user as never, params, body, query, bytes });
     } catch (err) {
       if (err instanceof AppError) return errorResponse(err);
@@ -202,13 +235,27 @@ export function defineRoute<P, B, Q>(opts: Options<P, B, Q>, handler: Handler<P,
     }
   };
   // What the route takes, for tests that walk every route (bad-input fuzzing).
-  Object.defineProperty(route, 'routeSpec', { value: { roles: opts.roles, body: !!opts.body && !opts.rawBody, rawBody: !!opts.rawBody, params: !!opts.params, query: !!opts.query } satisfies RouteSpec });
+  Object.defineProperty(route, 'routeSpec', {
+    value: {
+      roles: opts.roles,
+      body: !!opts.body && !opts.rawBody,
+      rawBody: !!opts.rawBody,
+      params: !!opts.params,
+      query: !!opts.query,
+    } satisfies RouteSpec,
+  });
   return route;
 }
 
-export type RouteSpec = { roles: readonly Role[] | 'public'; body: boolean; rawBody: boolean; params: boolean; query: boolean };
+export type RouteSpec = {
+  roles: readonly Role[] | 'public';
+  body: boolean;
+  rawBody: boolean;
+  params: boolean;
+  query: boolean;
+};
 
 /** The spec a route handler was defined with, or null for a handler not made by defineRoute. */
 export function readRouteSpec(fn: unknown): RouteSpec | null {
-  return ((fn as { routeSpec?: RouteSpec } | null)?.routeSpec ?? null);
+  return (fn as { routeSpec?: RouteSpec } | null)?.routeSpec ?? null;
 }

@@ -4,7 +4,13 @@ import type { NextAuthOptions } from 'next-auth';
 import CredentialsProvider from 'next-auth/providers/credentials';
 import { z } from 'zod';
 import { findUserForSignIn, recordSignIn } from '@/lib/db/users';
-import { clearSignInFailures, findSignInLockout, readClientAddress, recordSignInFailure, SignInLockedError } from './rate-limit';
+import {
+  clearSignInFailures,
+  findSignInLockout,
+  readClientAddress,
+  recordSignInFailure,
+  SignInLockedError,
+} from './rate-limit';
 import { isRole, type Role } from './roles';
 
 declare module 'next-auth' {
@@ -57,7 +63,13 @@ export const authOptions: NextAuthOptions = {
         }
         await clearSignInFailures(keys);
         await recordSignIn(user.id);
-        return { id: user.id, name: user.name, email: user.email, fleetId: user.fleetId, roles: user.roles.filter(isRole) };
+        return {
+          id: user.id,
+          name: user.name,
+          email: user.email,
+          fleetId: user.fleetId,
+          roles: user.roles.filter(isRole),
+        };
       },
     }),
   ],

@@ -16,7 +16,13 @@ export async function requireUser(): Promise<SessionUser> {
   if (!session) redirect('/sign-in');
   const current = await findActiveUser(session.user.id);
   if (!current) redirect('/sign-in');
-  return { ...session.user, name: current.name, email: current.email, fleetId: current.fleetId, roles: current.roles.filter(isRole) };
+  return {
+    ...session.user,
+    name: current.name,
+    email: current.email,
+    fleetId: current.fleetId,
+    roles: current.roles.filter(isRole),
+  };
 }
 
 /** For pages: the signed-in user holding one of these roles; others go to a plain refusal page. */

@@ -15,17 +15,24 @@ export const signInLimits = {
 
 export type ThrottleKeys = { account: string; address: string | null };
 
-const keysOf = (k: ThrottleKeys) => [`account:${k.account.trim().toLowerCase()}`, ...(k.address ? [`address:${k.address}`] : [])];
+const keysOf = (k: ThrottleKeys) => [
+  `account:${k.account.trim().toLowerCase()}`,
+  ...(k.address ? [`address:${k.address}`] : []),
+];
 const limitOf = (key: string) => (key.startsWith('account:') ? signInLimits.account.max : signInLimits.address.max);
 
 /** The client address of a sign-in request: the nearest proxy's entry of X-Forwarded-For. */
 export function readClientAddress(headers: Record<string, unknown> | Headers | undefined): string | null {
   if (!headers) return null;
-  const get = (name: string) => (headers instanceof Headers ? headers.get(name) : (headers[name] as string | string[] | undefined));
+  const get = (name: string) =>
+    headers instanceof Headers ? headers.get(name) : (headers[name] as string | string[] | undefined);
   const raw = get('x-forwarded-for') ?? get('x-real-ip');
   const value = Array.isArray(raw) ? raw.join(',') : raw;
   if (!value) return null;
-  const parts = value.split(',').map((s) => s.trim()).filter(Boolean);
+  const parts = value
+    .split(',')
+    .map((s) => s.trim())
+    .filter(Boolean);
   const last = parts[parts.length - 1];
   return last ? last.slice(0, 64) : null;
 }
@@ -35,11 +42,18 @@ export async function findSignInLockout(k: ThrottleKeys, db: DB = getDb()): Prom
   const keys = keysOf(k);
   const rows = await db
     .selectFrom('signInThrottle')
-    .select(['key', 'failures', sql<number>`extract(epoch from (window_started_at + make_interval(secs => ${signInLimits.windowSeconds}) - now()))`.as('remaining')])
+    .select([
+      'key',
+      'failures',
+      sql<number>`extract(epoch from (window_started_at + make_interval(secs => ${signInLimits.windowSeconds}) - now()))`.as(
+        'remaining',
+      ),
+    ])
     .where('key', 'in', keys)
     .execute();
   let wait = 0;
-  for (const r of rows) if (r.failures >= limitOf(r.key) && Number(r.remaining) > 0) wait = Math.max(wait, Math.ceil(Number(r.remaining)));
+  for (const r of rows)
+    if (r.failures >= limitOf(r.key) && Number(r.remaining) > 0) wait = Math.max(wait, Math.ceil(Number(r.remaining)));
   return wait;
 }
 
@@ -55,7 +69,9 @@ export async function recordSignInFailure(k: ThrottleKeys, db: DB = getDb()): Pr
         updated_at = now()`.execute(db);
   }
   // Old windows are of no use; drop a few on the way.
-  await sql`DELETE FROM sign_in_throttle WHERE key IN (SELECT key FROM sign_in_throttle WHERE updated_at < now() - make_interval(secs => ${window * 4}) LIMIT 100)`.execute(db);
+  await sql`DELETE FROM sign_in_throttle WHERE key IN (SELECT key FROM sign_in_throttle WHERE updated_at < now() - make_interval(secs => ${window * 4}) LIMIT 100)`.execute(
+    db,
+  );
 }
 
 /** A good sign-in clears the account's count (not the address's: one good password does not vouch for a depot). */

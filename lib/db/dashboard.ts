@@ -41,7 +41,19 @@ export type AttentionReason = 'major_defect' | 'short' | 'zones_skipped' | 'low_
  * low-confidence finding accepted without the driver confirming it, or a pre-trip whose day has
  * no post-trip by the same driver on the same tractor.
  */
-export async function listAttentionRows(db: DB, a: { fleetId: string; days: number; zonesWithTrailer: number; zonesBobtail: number; lowConfidence: number; timezone: string; minPretripMinutes: number; minPosttripMinutes: number }) {
+export async function listAttentionRows(
+  db: DB,
+  a: {
+    fleetId: string;
+    days: number;
+    zonesWithTrailer: number;
+    zonesBobtail: number;
+    lowConfidence: number;
+    timezone: string;
+    minPretripMinutes: number;
+    minPosttripMinutes: number;
+  },
+) {
   const rows = await sql<{
     id: string;
     kind: string;
@@ -107,7 +119,10 @@ export async function listAttentionRows(db: DB, a: { fleetId: string; days: numb
 }
 
 /** Defects by week and component over the last `weeks` weeks (component → system mapped by the caller). */
-export async function listDefectsByWeek(db: DB, { fleetId, weeks, timezone }: { fleetId: string; weeks: number; timezone: string }) {
+export async function listDefectsByWeek(
+  db: DB,
+  { fleetId, weeks, timezone }: { fleetId: string; weeks: number; timezone: string },
+) {
   const r = await sql<{ week: string; component: string; n: number }>`
     SELECT to_char(date_trunc('week', df.created_at AT TIME ZONE ${timezone}), 'YYYY-MM-DD') AS week, df.component, count(*)::int AS n
     FROM defect df
@@ -117,7 +132,10 @@ export async function listDefectsByWeek(db: DB, { fleetId, weeks, timezone }: { 
 }
 
 /** Major defects open at the end of each day of the last `days` days. */
-export async function listOpenMajorByDay(db: DB, { fleetId, days, timezone }: { fleetId: string; days: number; timezone: string }) {
+export async function listOpenMajorByDay(
+  db: DB,
+  { fleetId, days, timezone }: { fleetId: string; days: number; timezone: string },
+) {
   const r = await sql<{ day: string; open: number }>`
     SELECT to_char(g.day, 'YYYY-MM-DD') AS day,
       (SELECT count(*) FROM defect df

@@ -24,14 +24,28 @@ const queueColumns = [
 ] as const;
 
 /** The fleet's defects for the mechanic's queue: unit, then major before minor, oldest first. */
-export async function listDefectRows(db: DB, { fleetId, status, severity, unitId }: { fleetId: string; status: 'open' | 'closed' | 'all'; severity?: 'minor' | 'major'; unitId?: string }): Promise<DefectQueueRow[]> {
+export async function listDefectRows(
+  db: DB,
+  {
+    fleetId,
+    status,
+    severity,
+    unitId,
+  }: { fleetId: string; status: 'open' | 'closed' | 'all'; severity?: 'minor' | 'major'; unitId?: string },
+): Promise<DefectQueueRow[]> {
   let q = db
     .selectFrom('defect as df')
     .innerJoin('unit as u', 'u.id', 'df.unitId')
     .innerJoin('inspection as i', 'i.id', 'df.inspectionId')
     .innerJoin('appUser as d', 'd.id', 'i.driverId')
     .select(queueColumns)
-    .select((eb) => eb.selectFrom('attachment as a').select((e) => e.fn.countAll<number>().as('n')).where((e) => e.or([e('a.defectId', '=', e.ref('df.id')), e('a.stepId', '=', e.ref('df.stepId'))])).as('photoCount'))
+    .select((eb) =>
+      eb
+        .selectFrom('attachment as a')
+        .select((e) => e.fn.countAll<number>().as('n'))
+        .where((e) => e.or([e('a.defectId', '=', e.ref('df.id')), e('a.stepId', '=', e.ref('df.stepId'))]))
+        .as('photoCount'),
+    )
     .where('df.fleetId', '=', fleetId);
   if (status === 'open') q = q.where('df.status', '=', 'open');
   if (status === 'closed') q = q.where('df.status', '<>', 'open');
@@ -92,7 +106,10 @@ export async function findDefectDetail(db: DB, { fleetId, id }: { fleetId: strin
     .executeTakeFirst();
 }
 
-export async function listDefectPhotos(db: DB, { fleetId, defectId, stepId }: { fleetId: string; defectId: string; stepId: string }) {
+export async function listDefectPhotos(
+  db: DB,
+  { fleetId, defectId, stepId }: { fleetId: string; defectId: string; stepId: string },
+) {
   return db
     .selectFrom('attachment')
     .select(['id', 'objectKey', 'contentType', 'createdAt'])
@@ -104,12 +121,24 @@ export async function listDefectPhotos(db: DB, { fleetId, defectId, stepId }: { 
 
 /** Lock a defect row for certification. */
 export async function lockDefect(db: DB, { fleetId, id }: { fleetId: string; id: string }) {
-  return db.selectFrom('defect').select(['id', 'unitId', 'status', 'severity', 'description', 'inspectionId']).where('fleetId', '=', fleetId).where('id', '=', id).forUpdate().executeTakeFirst();
+  return db
+    .selectFrom('defect')
+    .select(['id', 'unitId', 'status', 'severity', 'description', 'inspectionId'])
+    .where('fleetId', '=', fleetId)
+    .where('id', '=', id)
+    .forUpdate()
+    .executeTakeFirst();
 }
 
 /** All defects of one unit as the service-status rule needs them (the unit row locked first). */
 export async function listUnitDefectsForStatus(db: DB, { fleetId, unitId }: { fleetId: string; unitId: string }) {
-  const unit = await db.selectFrom('unit').select(['id', 'unitNumber', 'status']).where('fleetId', '=', fleetId).where('id', '=', unitId).forUpdate().executeTakeFirstOrThrow();
+  const unit = await db
+    .selectFrom('unit')
+    .select(['id', 'unitNumber', 'status'])
+    .where('fleetId', '=', fleetId)
+    .where('id', '=', unitId)
+    .forUpdate()
+    .executeTakeFirstOrThrow();
   const defects = await db
     .selectFrom('defect')
     .select(['id', 'unitId', 'severity', 'status', 'description', 'certifiedAt', 'certifiedName'])

@@ -49,7 +49,9 @@ function toFleetSettings(row: SettingsRow): FleetSettings {
   return {
     ...row,
     tirePressureTargets: targets.success ? targets.data : fallbackTargets,
-    ruleProfile: (ruleProfiles as readonly string[]).includes(row.ruleProfile) ? (row.ruleProfile as RuleProfile) : 'us-federal',
+    ruleProfile: (ruleProfiles as readonly string[]).includes(row.ruleProfile)
+      ? (row.ruleProfile as RuleProfile)
+      : 'us-federal',
     updatedAt: row.updatedAt.toISOString(),
   };
 }
@@ -61,7 +63,10 @@ export async function findFleetSettings(db: DB, { fleetId }: { fleetId: string }
 
 export type FleetSettingsChange = Partial<Omit<FleetSettings, 'id' | 'name' | 'updatedAt'>>;
 
-export async function updateFleetSettingsRow(db: DB, { fleetId, set }: { fleetId: string; set: FleetSettingsChange }): Promise<FleetSettings | undefined> {
+export async function updateFleetSettingsRow(
+  db: DB,
+  { fleetId, set }: { fleetId: string; set: FleetSettingsChange },
+): Promise<FleetSettings | undefined> {
   const { tirePressureTargets, ...rest } = set;
   const row = await db
     .updateTable('fleet')

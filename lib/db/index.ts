@@ -18,6 +18,7 @@ export function getDb(): DB {
  * all and is refused while one is missing; see lib/services/record-step.ts.
  */
 export function getStepDb(): DB {
-  if (!globalForDb.rigcallStepDb) globalForDb.rigcallStepDb = createDb(getEnv().DATABASE_URL, 10, { waitForDisk: false });
+  if (!globalForDb.rigcallStepDb)
+    globalForDb.rigcallStepDb = createDb(getEnv().DATABASE_URL, 10, { waitForDisk: false });
   return globalForDb.rigcallStepDb;
 }

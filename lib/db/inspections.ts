@@ -34,14 +34,49 @@ export async function findInspectionDetail(db: DB, { fleetId, id }: { fleetId: s
       jsonArrayFrom(
         eb
           .selectFrom('inspectionStep as s')
-          .select(['s.id', 's.seq', 's.zone', 's.item', 's.kind', 's.heard', 's.alternatives', 's.inputMode', 's.termKey', 's.component', 's.condition', 's.position', 's.score', 's.resolution', 's.measurementKind', 's.value', 's.unit', 's.verdict', 's.severity', 's.limitText', 's.source', 's.deviceAt'])
+          .select([
+            's.id',
+            's.seq',
+            's.zone',
+            's.item',
+            's.kind',
+            's.heard',
+            's.alternatives',
+            's.inputMode',
+            's.termKey',
+            's.component',
+            's.condition',
+            's.position',
+            's.score',
+            's.resolution',
+            's.measurementKind',
+            's.value',
+            's.unit',
+            's.verdict',
+            's.severity',
+            's.limitText',
+            's.source',
+            's.deviceAt',
+          ])
           .whereRef('s.inspectionId', '=', 'i.id')
           .orderBy('s.seq'),
       ).as('steps'),
       jsonArrayFrom(
         eb
           .selectFrom('defect as df')
-          .select(['df.id', 'df.stepId', 'df.unitId', 'df.component', 'df.condition', 'df.position', 'df.severity', 'df.description', 'df.status', 'df.certifiedName', 'df.certifiedAt'])
+          .select([
+            'df.id',
+            'df.stepId',
+            'df.unitId',
+            'df.component',
+            'df.condition',
+            'df.position',
+            'df.severity',
+            'df.description',
+            'df.status',
+            'df.certifiedName',
+            'df.certifiedAt',
+          ])
           .whereRef('df.inspectionId', '=', 'i.id')
           .orderBy('df.createdAt'),
       ).as('defects'),
@@ -55,7 +90,27 @@ export async function findInspectionDetail(db: DB, { fleetId, id }: { fleetId: s
 export async function findInspectionForUpdate(db: DB, { fleetId, id }: { fleetId: string; id: string }) {
   return db
     .selectFrom('inspection')
-    .select(['id', 'fleetId', 'kind', 'status', 'driverId', 'tractorId', 'trailerId', 'odometer', 'location', 'billOfLading', 'sealNumber', 'ruleProfile', 'vocabularyVersionId', 'startedAt', 'finishedAt', 'signatureName', 'signedAt', 'certificationText', 'contentHash'])
+    .select([
+      'id',
+      'fleetId',
+      'kind',
+      'status',
+      'driverId',
+      'tractorId',
+      'trailerId',
+      'odometer',
+      'location',
+      'billOfLading',
+      'sealNumber',
+      'ruleProfile',
+      'vocabularyVersionId',
+      'startedAt',
+      'finishedAt',
+      'signatureName',
+      'signedAt',
+      'certificationText',
+      'contentHash',
+    ])
     .where('fleetId', '=', fleetId)
     .where('id', '=', id)
     .forUpdate()
@@ -90,11 +145,22 @@ export const stepColumns = [
 ] as const;
 
 export async function findStep(db: DB, { inspectionId, id }: { inspectionId: string; id: string }) {
-  return db.selectFrom('inspectionStep').select(stepColumns).where('inspectionId', '=', inspectionId).where('id', '=', id).executeTakeFirst();
+  return db
+    .selectFrom('inspectionStep')
+    .select(stepColumns)
+    .where('inspectionId', '=', inspectionId)
+    .where('id', '=', id)
+    .executeTakeFirst();
 }
 
 export async function listInspectionSteps(db: DB, { inspectionId }: { inspectionId: string }) {
-  return db.selectFrom('inspectionStep').select(stepColumns).where('inspectionId', '=', inspectionId).orderBy('seq').orderBy('id').execute();
+  return db
+    .selectFrom('inspectionStep')
+    .select(stepColumns)
+    .where('inspectionId', '=', inspectionId)
+    .orderBy('seq')
+    .orderBy('id')
+    .execute();
 }
 
 /** The newest published vocabulary of the fleet: new inspections record that they use it. */
@@ -110,13 +176,30 @@ export async function findPublishedVocabulary(db: DB, { fleetId }: { fleetId: st
 }
 
 /** The driver's own inspections, newest first: drafts to resume and the last few reports. */
-export async function listDriverInspections(db: DB, { fleetId, driverId, limit }: { fleetId: string; driverId: string; limit: number }) {
+export async function listDriverInspections(
+  db: DB,
+  { fleetId, driverId, limit }: { fleetId: string; driverId: string; limit: number },
+) {
   return db
     .selectFrom('inspection as i')
     .innerJoin('unit as t', 't.id', 'i.tractorId')
     .leftJoin('unit as tr', 'tr.id', 'i.trailerId')
-    .select(['i.id', 'i.kind', 'i.status', 'i.startedAt', 'i.finishedAt', 't.unitNumber as tractorNumber', 'tr.unitNumber as trailerNumber'])
-    .select((eb) => eb.selectFrom('defect as d').select((x) => x.fn.countAll<number>().as('n')).whereRef('d.inspectionId', '=', 'i.id').as('defectCount'))
+    .select([
+      'i.id',
+      'i.kind',
+      'i.status',
+      'i.startedAt',
+      'i.finishedAt',
+      't.unitNumber as tractorNumber',
+      'tr.unitNumber as trailerNumber',
+    ])
+    .select((eb) =>
+      eb
+        .selectFrom('defect as d')
+        .select((x) => x.fn.countAll<number>().as('n'))
+        .whereRef('d.inspectionId', '=', 'i.id')
+        .as('defectCount'),
+    )
     .where('i.fleetId', '=', fleetId)
     .where('i.driverId', '=', driverId)
     .orderBy('i.startedAt', 'desc')
@@ -139,7 +222,20 @@ export async function findLastUnitReport(db: DB, { fleetId, unitId }: { fleetId:
       jsonArrayFrom(
         eb
           .selectFrom('defect as df')
-          .select(['df.id', 'df.unitId', 'df.component', 'df.condition', 'df.position', 'df.severity', 'df.description', 'df.status', 'df.repairWork', 'df.certifiedName', 'df.certificationText', 'df.certifiedAt'])
+          .select([
+            'df.id',
+            'df.unitId',
+            'df.component',
+            'df.condition',
+            'df.position',
+            'df.severity',
+            'df.description',
+            'df.status',
+            'df.repairWork',
+            'df.certifiedName',
+            'df.certificationText',
+            'df.certifiedAt',
+          ])
           .whereRef('df.inspectionId', '=', 'i.id')
           .where('df.unitId', '=', unitId)
           .orderBy('df.createdAt'),
@@ -153,7 +249,15 @@ export async function findLastUnitReport(db: DB, { fleetId, unitId }: { fleetId:
     .executeTakeFirst();
 }
 
-export async function hasAcknowledged(db: DB, { fleetId, reviewedInspectionId, unitId, driverId }: { fleetId: string; reviewedInspectionId: string; unitId: string; driverId: string }) {
+export async function hasAcknowledged(
+  db: DB,
+  {
+    fleetId,
+    reviewedInspectionId,
+    unitId,
+    driverId,
+  }: { fleetId: string; reviewedInspectionId: string; unitId: string; driverId: string },
+) {
   const row = await db
     .selectFrom('acknowledgement')
     .select('id')

@@ -122,7 +122,10 @@ export async function listReportRows(db: DB, a: ListReportsArgs): Promise<Report
   return rows.map(toReportRow);
 }
 
-export async function countReportRows(db: DB, a: Pick<ListReportsArgs, 'fleetId' | 'filters' | 'minimums'>): Promise<number> {
+export async function countReportRows(
+  db: DB,
+  a: Pick<ListReportsArgs, 'fleetId' | 'filters' | 'minimums'>,
+): Promise<number> {
   const r = await filteredReports(db, a.fleetId, a.filters, a.minimums)
     .select((eb) => eb.fn.countAll<number>().as('n'))
     .executeTakeFirstOrThrow();
@@ -130,7 +133,11 @@ export async function countReportRows(db: DB, a: Pick<ListReportsArgs, 'fleetId'
 }
 
 /** Every filtered report in order, streamed in batches (for the CSV export). */
-export async function* iterateReportRows(db: DB, a: Omit<ListReportsArgs, 'limit' | 'offset'>, batch = 1000): AsyncGenerator<ReportRow[]> {
+export async function* iterateReportRows(
+  db: DB,
+  a: Omit<ListReportsArgs, 'limit' | 'offset'>,
+  batch = 1000,
+): AsyncGenerator<ReportRow[]> {
   for (let offset = 0; ; offset += batch) {
     const rows = await ordered(db, a).limit(batch).offset(offset).execute();
     if (rows.length) yield rows.map(toReportRow);
@@ -146,16 +153,33 @@ export function compileReportPageQuery(db: DB, a: ListReportsArgs) {
 export async function findFleetMinimums(db: DB, { fleetId }: { fleetId: string }) {
   return db
     .selectFrom('fleet')
-    .select(['id', 'name', 'timezone', 'minPretripMinutes', 'minPosttripMinutes', 'maintenanceEmail', 'supervisorEmail', 'ruleProfile'])
+    .select([
+      'id',
+      'name',
+      'timezone',
+      'minPretripMinutes',
+      'minPosttripMinutes',
+      'maintenanceEmail',
+      'supervisorEmail',
+      'ruleProfile',
+    ])
     .where('id', '=', fleetId)
     .executeTakeFirst();
 }
 
 export async function findReportForReview(db: DB, { fleetId, id }: { fleetId: string; id: string }) {
-  return db.selectFrom('inspection').select(['id', 'status', 'reviewedAt']).where('fleetId', '=', fleetId).where('id', '=', id).executeTakeFirst();
+  return db
+    .selectFrom('inspection')
+    .select(['id', 'status', 'reviewedAt'])
+    .where('fleetId', '=', fleetId)
+    .where('id', '=', id)
+    .executeTakeFirst();
 }
 
-export async function updateReportReview(db: DB, a: { fleetId: string; id: string; reviewedBy: string; note: string | null; at: Date }) {
+export async function updateReportReview(
+  db: DB,
+  a: { fleetId: string; id: string; reviewedBy: string; note: string | null; at: Date },
+) {
   return db
     .updateTable('inspection')
     .set({ reviewedAt: a.at, reviewedBy: a.reviewedBy, reviewNote: a.note })
@@ -168,10 +192,29 @@ export async function updateReportReview(db: DB, a: { fleetId: string; id: strin
 /** Drivers and units of a fleet, for the table's filter pickers. */
 export async function listReportFilterOptions(db: DB, { fleetId }: { fleetId: string }) {
   const [drivers, units] = await Promise.all([
-    db.selectFrom('appUser').select(['id', 'name']).where('fleetId', '=', fleetId).where(sql<boolean>`'driver' = ANY(roles)`).orderBy('name').execute(),
-    db.selectFrom('unit').select(['id', 'unitNumber', 'kind']).where('fleetId', '=', fleetId).orderBy('kind').orderBy('unitNumber').execute(),
+    db
+      .selectFrom('appUser')
+      .select(['id', 'name'])
+      .where('fleetId', '=', fleetId)
+      .where(sql<boolean>`'driver' = ANY(roles)`)
+      .orderBy('name')
+      .execute(),
+    db
+      .selectFrom('unit')
+      .select(['id', 'unitNumber', 'kind'])
+      .where('fleetId', '=', fleetId)
+      .orderBy('kind')
+      .orderBy('unitNumber')
+      .execute(),
   ]);
-  return { drivers, units: units.map((u) => ({ id: u.id, unitNumber: u.unitNumber, kind: u.kind === 'trailer' ? ('trailer' as const) : ('tractor' as const) })) };
+  return {
+    drivers,
+    units: units.map((u) => ({
+      id: u.id,
+      unitNumber: u.unitNumber,
+      kind: u.kind === 'trailer' ? ('trailer' as const) : ('tractor' as const),
+    })),
+  };
 }
 
 /** What a report's detail, PDF and hash check need beyond the inspection detail itself. */
@@ -222,7 +265,27 @@ export async function findReportRecord(db: DB, { fleetId, id }: { fleetId: strin
   const [steps, defects, attachments, acknowledgements] = await Promise.all([
     db
       .selectFrom('inspectionStep')
-      .select(['id', 'seq', 'zone', 'item', 'kind', 'heard', 'termKey', 'component', 'condition', 'position', 'score', 'resolution', 'undoesStepId', 'measurementKind', 'value', 'unit', 'verdict', 'severity', 'deviceAt'])
+      .select([
+        'id',
+        'seq',
+        'zone',
+        'item',
+        'kind',
+        'heard',
+        'termKey',
+        'component',
+        'condition',
+        'position',
+        'score',
+        'resolution',
+        'undoesStepId',
+        'measurementKind',
+        'value',
+        'unit',
+        'verdict',
+        'severity',
+        'deviceAt',
+      ])
       .where('fleetId', '=', fleetId)
       .where('inspectionId', '=', id)
       .orderBy('seq')
@@ -230,7 +293,25 @@ export async function findReportRecord(db: DB, { fleetId, id }: { fleetId: strin
     db
       .selectFrom('defect as df')
       .innerJoin('unit as u', 'u.id', 'df.unitId')
-      .select(['df.id', 'df.stepId', 'df.unitId', 'u.unitNumber', 'df.zone', 'df.component', 'df.condition', 'df.position', 'df.severity', 'df.description', 'df.status', 'df.repairWork', 'df.repairParts', 'df.repairNotes', 'df.certifiedName', 'df.certificationText', 'df.certifiedAt'])
+      .select([
+        'df.id',
+        'df.stepId',
+        'df.unitId',
+        'u.unitNumber',
+        'df.zone',
+        'df.component',
+        'df.condition',
+        'df.position',
+        'df.severity',
+        'df.description',
+        'df.status',
+        'df.repairWork',
+        'df.repairParts',
+        'df.repairNotes',
+        'df.certifiedName',
+        'df.certificationText',
+        'df.certifiedAt',
+      ])
       .where('df.fleetId', '=', fleetId)
       .where('df.inspectionId', '=', id)
       .orderBy('df.createdAt')

@@ -66,8 +66,16 @@ export async function listFleetUnits(
 }
 
 /** One unit of this fleet, retired or not; undefined when absent or in another fleet. */
-export async function findFleetUnit(db: DB, { fleetId, id }: { fleetId: string; id: string }): Promise<UnitDto | undefined> {
-  const row = await db.selectFrom('unit').select(unitColumns).where('fleetId', '=', fleetId).where('id', '=', id).executeTakeFirst();
+export async function findFleetUnit(
+  db: DB,
+  { fleetId, id }: { fleetId: string; id: string },
+): Promise<UnitDto | undefined> {
+  const row = await db
+    .selectFrom('unit')
+    .select(unitColumns)
+    .where('fleetId', '=', fleetId)
+    .where('id', '=', id)
+    .executeTakeFirst();
   return row ? toUnitDto(row) : undefined;
 }
 
@@ -85,13 +93,24 @@ export async function findUnitByNumber(db: DB, { fleetId, unitNumber }: { fleetI
  * Units a driver may pick for a new inspection: this fleet's, not retired, of the kind asked.
  * Out-of-service units are listed (a post-trip or a re-inspection may need them); callers decide.
  */
-export async function listUsableUnits(db: DB, { fleetId, kind }: { fleetId: string; kind?: UnitKind }): Promise<UnitDto[]> {
+export async function listUsableUnits(
+  db: DB,
+  { fleetId, kind }: { fleetId: string; kind?: UnitKind },
+): Promise<UnitDto[]> {
   return listFleetUnits(db, { fleetId, kind, retired: 'exclude' });
 }
 
 /** One unit a new inspection may use; undefined when absent, another fleet's, retired or of another kind. */
-export async function findUsableUnit(db: DB, { fleetId, id, kind }: { fleetId: string; id: string; kind?: UnitKind }): Promise<UnitDto | undefined> {
-  let q = db.selectFrom('unit').select(unitColumns).where('fleetId', '=', fleetId).where('id', '=', id).where('retiredAt', 'is', null);
+export async function findUsableUnit(
+  db: DB,
+  { fleetId, id, kind }: { fleetId: string; id: string; kind?: UnitKind },
+): Promise<UnitDto | undefined> {
+  let q = db
+    .selectFrom('unit')
+    .select(unitColumns)
+    .where('fleetId', '=', fleetId)
+    .where('id', '=', id)
+    .where('retiredAt', 'is', null);
   if (kind) q = q.where('kind', '=', kind);
   const row = await q.executeTakeFirst();
   return row ? toUnitDto(row) : undefined;
@@ -134,7 +153,11 @@ export async function updateFleetUnitRow(
 
 /** Counts for the admin overview. */
 export async function countFleetUnits(db: DB, { fleetId }: { fleetId: string }) {
-  const rows = await db.selectFrom('unit').select(['kind', 'status', 'retiredAt']).where('fleetId', '=', fleetId).execute();
+  const rows = await db
+    .selectFrom('unit')
+    .select(['kind', 'status', 'retiredAt'])
+    .where('fleetId', '=', fleetId)
+    .execute();
   const counts = { tractors: 0, trailers: 0, outOfService: 0, retired: 0 };
   for (const r of rows) {
     if (r.retiredAt) {

@@ -27,7 +27,16 @@ export async function findActiveUser(userId: string) {
 
 // ---- admin: people of one fleet (every query scoped by fleet)
 
-const adminUserColumns = ['id', 'name', 'email', 'roles', 'active', 'mustChangePassword', 'lastSignInAt', 'createdAt'] as const;
+const adminUserColumns = [
+  'id',
+  'name',
+  'email',
+  'roles',
+  'active',
+  'mustChangePassword',
+  'lastSignInAt',
+  'createdAt',
+] as const;
 
 type AdminUserRow = {
   id: string;
@@ -63,8 +72,16 @@ export async function listFleetUsers(db: DB, { fleetId }: { fleetId: string }): 
 }
 
 /** One user of this fleet; undefined when absent or in another fleet. */
-export async function findFleetUser(db: DB, { fleetId, id }: { fleetId: string; id: string }): Promise<AdminUser | undefined> {
-  const row = await db.selectFrom('appUser').select(adminUserColumns).where('fleetId', '=', fleetId).where('id', '=', id).executeTakeFirst();
+export async function findFleetUser(
+  db: DB,
+  { fleetId, id }: { fleetId: string; id: string },
+): Promise<AdminUser | undefined> {
+  const row = await db
+    .selectFrom('appUser')
+    .select(adminUserColumns)
+    .where('fleetId', '=', fleetId)
+    .where('id', '=', id)
+    .executeTakeFirst();
   return row ? toAdminUser(row) : undefined;
 }
 
@@ -78,7 +95,11 @@ export async function insertFleetUser(
   db: DB,
   u: { fleetId: string; name: string; email: string; roles: Role[]; passwordHash: string; mustChangePassword: boolean },
 ): Promise<AdminUser> {
-  const row = await db.insertInto('appUser').values({ ...u, email: u.email.toLowerCase() }).returning(adminUserColumns).executeTakeFirstOrThrow();
+  const row = await db
+    .insertInto('appUser')
+    .values({ ...u, email: u.email.toLowerCase() })
+    .returning(adminUserColumns)
+    .executeTakeFirstOrThrow();
   return toAdminUser(row);
 }
 
@@ -86,7 +107,13 @@ export async function updateFleetUserRow(
   db: DB,
   { fleetId, id, set }: { fleetId: string; id: string; set: { name?: string; roles?: Role[]; active?: boolean } },
 ): Promise<AdminUser | undefined> {
-  const row = await db.updateTable('appUser').set(set).where('fleetId', '=', fleetId).where('id', '=', id).returning(adminUserColumns).executeTakeFirst();
+  const row = await db
+    .updateTable('appUser')
+    .set(set)
+    .where('fleetId', '=', fleetId)
+    .where('id', '=', id)
+    .returning(adminUserColumns)
+    .executeTakeFirst();
   return row ? toAdminUser(row) : undefined;
 }
 

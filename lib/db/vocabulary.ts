@@ -34,13 +34,34 @@ export function getDefaultGrammar(): Grammar {
 /** A stored grammar as a full document: a bare vocabulary (older rows) gets the other parts from the default files. */
 export function toFullGrammar(raw: unknown): Grammar {
   const defaults = { vocabulary, commands, positions, numbers, zones };
-  const doc = raw && typeof raw === 'object' && 'vocabulary' in raw ? { ...defaults, ...(raw as object) } : { ...defaults, vocabulary: raw };
+  const doc =
+    raw && typeof raw === 'object' && 'vocabulary' in raw
+      ? { ...defaults, ...(raw as object) }
+      : { ...defaults, vocabulary: raw };
   return grammarSchema.parse(doc);
 }
 
-const summaryColumns = ['v.id', 'v.label', 'v.status', 'v.basedOnId', 'v.publishedAt', 'v.createdAt', 'v.updatedAt', 'u.name as publishedBy'] as const;
+const summaryColumns = [
+  'v.id',
+  'v.label',
+  'v.status',
+  'v.basedOnId',
+  'v.publishedAt',
+  'v.createdAt',
+  'v.updatedAt',
+  'u.name as publishedBy',
+] as const;
 
-type SummaryRow = { id: string; label: string; status: string; basedOnId: string | null; publishedAt: Date | null; createdAt: Date; updatedAt: Date; publishedBy: string | null };
+type SummaryRow = {
+  id: string;
+  label: string;
+  status: string;
+  basedOnId: string | null;
+  publishedAt: Date | null;
+  createdAt: Date;
+  updatedAt: Date;
+  publishedBy: string | null;
+};
 
 const toSummary = (r: SummaryRow, inspections = 0): VersionSummary => ({
   id: r.id,
@@ -60,7 +81,13 @@ export async function listVocabularyVersions(db: DB, { fleetId }: { fleetId: str
     .selectFrom('vocabularyVersion as v')
     .leftJoin('appUser as u', 'u.id', 'v.publishedBy')
     .select(summaryColumns)
-    .select((eb) => eb.selectFrom('inspection as i').select((x) => x.fn.countAll<string>().as('n')).whereRef('i.vocabularyVersionId', '=', 'v.id').as('inspections'))
+    .select((eb) =>
+      eb
+        .selectFrom('inspection as i')
+        .select((x) => x.fn.countAll<string>().as('n'))
+        .whereRef('i.vocabularyVersionId', '=', 'v.id')
+        .as('inspections'),
+    )
     .where('v.fleetId', '=', fleetId)
     .orderBy(sql`v.status = 'draft'`, 'desc')
     .orderBy(sql`coalesce(v.published_at, v.created_at)`, 'desc')
@@ -86,23 +113,44 @@ export async function findVocabularyVersion(db: DB, { fleetId, id }: { fleetId: 
 
 /** The fleet's open draft, if any. */
 export async function findDraftVersionId(db: DB, { fleetId }: { fleetId: string }) {
-  const row = await db.selectFrom('vocabularyVersion').select('id').where('fleetId', '=', fleetId).where('status', '=', 'draft').orderBy('createdAt', 'desc').limit(1).executeTakeFirst();
+  const row = await db
+    .selectFrom('vocabularyVersion')
+    .select('id')
+    .where('fleetId', '=', fleetId)
+    .where('status', '=', 'draft')
+    .orderBy('createdAt', 'desc')
+    .limit(1)
+    .executeTakeFirst();
   return row?.id;
 }
 
 /** The fleet's newest published version, if any. */
 export async function findNewestPublishedId(db: DB, { fleetId }: { fleetId: string }) {
-  const row = await db.selectFrom('vocabularyVersion').select('id').where('fleetId', '=', fleetId).where('status', '=', 'published').orderBy('publishedAt', 'desc').limit(1).executeTakeFirst();
+  const row = await db
+    .selectFrom('vocabularyVersion')
+    .select('id')
+    .where('fleetId', '=', fleetId)
+    .where('status', '=', 'published')
+    .orderBy('publishedAt', 'desc')
+    .limit(1)
+    .executeTakeFirst();
   return row?.id;
 }
 
 export async function countVocabularyVersions(db: DB, { fleetId }: { fleetId: string }) {
-  const row = await db.selectFrom('vocabularyVersion').select((eb) => eb.fn.countAll<string>().as('n')).where('fleetId', '=', fleetId).executeTakeFirstOrThrow();
+  const row = await db
+    .selectFrom('vocabularyVersion')
+    .select((eb) => eb.fn.countAll<string>().as('n'))
+    .where('fleetId', '=', fleetId)
+    .executeTakeFirstOrThrow();
   return Number(row.n);
 }
 
 /** Replace a draft's grammar; undefined when the row is not a draft of this fleet. */
-export async function updateDraftGrammar(db: DB, { fleetId, id, grammar, label }: { fleetId: string; id: string; grammar: Grammar; label?: string }) {
+export async function updateDraftGrammar(
+  db: DB,
+  { fleetId, id, grammar, label }: { fleetId: string; id: string; grammar: Grammar; label?: string },
+) {
   return db
     .updateTable('vocabularyVersion')
     .set({ grammar: sql`${JSON.stringify(grammar)}::jsonb`, ...(label ? { label } : {}) })
@@ -114,14 +162,25 @@ export async function updateDraftGrammar(db: DB, { fleetId, id, grammar, label }
 }
 
 export async function findTestSet(db: DB, { fleetId }: { fleetId: string }) {
-  return db.selectFrom('vocabularyTestSet').select(['id', 'name', 'jsonl', 'lineCount', 'updatedAt']).where('fleetId', '=', fleetId).executeTakeFirst();
+  return db
+    .selectFrom('vocabularyTestSet')
+    .select(['id', 'name', 'jsonl', 'lineCount', 'updatedAt'])
+    .where('fleetId', '=', fleetId)
+    .executeTakeFirst();
 }
 
-export async function upsertTestSet(db: DB, v: { fleetId: string; name: string; jsonl: string; lineCount: number; updatedBy: string }) {
+export async function upsertTestSet(
+  db: DB,
+  v: { fleetId: string; name: string; jsonl: string; lineCount: number; updatedBy: string },
+) {
   return db
     .insertInto('vocabularyTestSet')
     .values(v)
-    .onConflict((oc) => oc.column('fleetId').doUpdateSet({ name: v.name, jsonl: v.jsonl, lineCount: v.lineCount, updatedBy: v.updatedBy }))
+    .onConflict((oc) =>
+      oc
+        .column('fleetId')
+        .doUpdateSet({ name: v.name, jsonl: v.jsonl, lineCount: v.lineCount, updatedBy: v.updatedBy }),
+    )
     .returning(['id', 'name', 'lineCount', 'updatedAt'])
     .executeTakeFirstOrThrow();
 }
@@ -140,6 +199,12 @@ export async function listOpenFieldUtterances(db: DB, { fleetId, limit }: { flee
 
 export async function resolveFieldUtterances(db: DB, { fleetId, ids }: { fleetId: string; ids: string[] }) {
   if (ids.length === 0) return 0;
-  const r = await db.updateTable('fieldUtterance').set({ resolvedAt: new Date() }).where('fleetId', '=', fleetId).where('id', 'in', ids).where('resolvedAt', 'is', null).executeTakeFirst();
+  const r = await db
+    .updateTable('fieldUtterance')
+    .set({ resolvedAt: new Date() })
+    .where('fleetId', '=', fleetId)
+    .where('id', 'in', ids)
+    .where('resolvedAt', 'is', null)
+    .executeTakeFirst();
   return Number(r.numUpdatedRows);
 }

@@ -26,7 +26,11 @@ export async function fetchJson<T>(url: string, init: RequestInit & { json?: unk
   try {
     res = await fetch(url, {
       ...rest,
-      headers: { accept: 'application/json', ...(json !== undefined ? { 'content-type': 'application/json' } : {}), ...headers },
+      headers: {
+        accept: 'application/json',
+        ...(json !== undefined ? { 'content-type': 'application/json' } : {}),
+        ...headers,
+      },
       body: json !== undefined ? JSON.stringify(json) : rest.body,
     });
   } catch {
@@ -41,7 +45,12 @@ export async function fetchJson<T>(url: string, init: RequestInit & { json?: unk
   }
   if (!res.ok) {
     const err = (body as ErrorBody | null)?.error;
-    throw new ApiError(res.status, err?.code ?? 'internal', err?.message ?? `The server answered ${res.status}.`, err?.fields);
+    throw new ApiError(
+      res.status,
+      err?.code ?? 'internal',
+      err?.message ?? `The server answered ${res.status}.`,
+      err?.fields,
+    );
   }
   return body as T;
 }

@@ -43,7 +43,12 @@ export function buildCheckInput(item: Item, reading: ReadingInput, ctx: CheckCon
       return { check: 'pushrod_stroke', chamber, value };
     }
     case 'steering_lash':
-      return { check: 'steering_lash', wheel_diameter: reading.wheelDiameter ?? DEFAULT_STEERING_WHEEL_IN, power: reading.power ?? true, value };
+      return {
+        check: 'steering_lash',
+        wheel_diameter: reading.wheelDiameter ?? DEFAULT_STEERING_WHEEL_IN,
+        power: reading.power ?? true,
+        value,
+      };
     case 'air_buildup':
       return { check: 'air_buildup', from: 85, to: 100, seconds: value };
     case 'governor_cutout':
@@ -51,11 +56,18 @@ export function buildCheckInput(item: Item, reading: ReadingInput, ctx: CheckCon
     case 'governor_cutin':
       return { check: 'governor_cutin', value };
     case 'air_leak':
-      return { check: 'air_leak', mode: item.id.includes('applied') ? 'applied' : 'released', combination: ctx.hasTrailer, value };
+      return {
+        check: 'air_leak',
+        mode: item.id.includes('applied') ? 'applied' : 'released',
+        combination: ctx.hasTrailer,
+        value,
+      };
     case 'low_air_warning':
       return { check: 'low_air_warning', value };
     case 'ground_clearance':
-      return ctx.trailerYear ? { check: 'rear_impact_guard', ground_clearance: value, trailer_built_year: ctx.trailerYear } : null;
+      return ctx.trailerYear
+        ? { check: 'rear_impact_guard', ground_clearance: value, trailer_built_year: ctx.trailerYear }
+        : null;
     default:
       return null;
   }
@@ -65,7 +77,12 @@ export function buildCheckInput(item: Item, reading: ReadingInput, ctx: CheckCon
 export function isTrailerItem(itemId: string | null, zone: string, componentId: string | null): boolean {
   if (itemId && onTrailer(itemId)) return true;
   if (/trailer/.test(zone) || zone === 'rear') return true;
-  return !!componentId && /^(trailer_|landing_gear|kingpin|upper_coupler|crank_handle|sand_shoe|tandem_pins|slider_pins|rear_impact_guard|conspicuity_tape)/.test(componentId);
+  return (
+    !!componentId &&
+    /^(trailer_|landing_gear|kingpin|upper_coupler|crank_handle|sand_shoe|tandem_pins|slider_pins|rear_impact_guard|conspicuity_tape)/.test(
+      componentId,
+    )
+  );
 }
 
 export const measureUnit: Record<MeasureKind, string> = {

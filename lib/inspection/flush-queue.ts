@@ -25,16 +25,26 @@ export type QueueStore = {
   remove: (key: string) => Promise<void>;
 };
 
-export type SendResult = { ok: true } | { ok: false; retry: boolean; status: number; message: string; fields?: Record<string, string[]> };
+export type SendResult =
+  { ok: true } | { ok: false; retry: boolean; status: number; message: string; fields?: Record<string, string[]> };
 
-export type FlushOutcome = { sent: number; failed: number; waiting: number; offline: boolean; lastError: string | null };
+export type FlushOutcome = {
+  sent: number;
+  failed: number;
+  waiting: number;
+  offline: boolean;
+  lastError: string | null;
+};
 
 /**
  * Send pending requests in order. A request the server accepted (2xx) leaves the queue. One it
  * refused for good (4xx) is kept as failed with the server's message, and the rest go on. When
  * the network or the server is away (no answer, 5xx, 429) flushing stops and everything stays.
  */
-export async function flushQueue(store: QueueStore, send: (item: QueuedRequest) => Promise<SendResult>): Promise<FlushOutcome> {
+export async function flushQueue(
+  store: QueueStore,
+  send: (item: QueuedRequest) => Promise<SendResult>,
+): Promise<FlushOutcome> {
   const items = (await store.list()).sort((a, b) => a.key.localeCompare(b.key));
   let sent = 0;
   let failed = 0;
@@ -54,7 +64,13 @@ export async function flushQueue(store: QueueStore, send: (item: QueuedRequest) 
       const waiting = items.slice(i).filter((x) => x.state === 'pending').length;
       return { sent, failed, waiting, offline: result.status === 0, lastError: result.message };
     }
-    await store.put({ ...item, state: 'failed', attempts: item.attempts + 1, error: result.message, ...(result.fields ? { errorFields: result.fields } : {}) });
+    await store.put({
+      ...item,
+      state: 'failed',
+      attempts: item.attempts + 1,
+      error: result.message,
+      ...(result.fields ? { errorFields: result.fields } : {}),
+    });
     failed++;
   }
   return { sent, failed, waiting: 0, offline: false, lastError: null };
@@ -66,7 +82,9 @@ export async function sendQueued(item: QueuedRequest): Promise<SendResult> {
   try {
     res = await fetch(item.url, {
       method: item.method,
-      headers: item.blob ? { 'content-type': item.blob.type || 'application/octet-stream' } : { 'content-type': 'application/json' },
+      headers: item.blob
+        ? { 'content-type': item.blob.type || 'application/octet-stream' }
+        : { 'content-type': 'application/json' },
       body: item.blob ?? JSON.stringify(item.json),
     });
   } catch {
@@ -83,5 +101,12 @@ export async function sendQueued(item: QueuedRequest): Promise<SendResult> {
     /* not JSON */
   }
   const retry = res.status >= 500 || res.status === 429 || res.status === 401;
-  return { ok: false, retry, status: res.status, message: retry && res.status >= 500 ? 'RigCall’s server is not answering. Saved on this phone; it will be sent.' : message, ...(fields ? { fields } : {}) };
+  return {
+    ok: false,
+    retry,
+    status: res.status,
+    message:
+      retry && res.status >= 500 ? 'RigCall’s server is not answering. Saved on this phone; it will be sent.' : message,
+    ...(fields ? { fields } : {}),
+  };
 }

@@ -4,11 +4,34 @@ import { maxResendRounds, planResend } from './resend-missing';
 import type { WalkStep } from './store';
 
 const step = (id: string, seq: number): WalkStep => ({
-  id, seq, zone: 'front', item: null, kind: 'visit', heard: null, alternatives: [], inputMode: 'tap', termKey: null, position: null, score: null, resolution: null, undoesStepId: null, reading: null, deviceAt: '2026-12-02T05:00:00.000Z',
+  id,
+  seq,
+  zone: 'front',
+  item: null,
+  kind: 'visit',
+  heard: null,
+  alternatives: [],
+  inputMode: 'tap',
+  termKey: null,
+  position: null,
+  score: null,
+  resolution: null,
+  undoesStepId: null,
+  reading: null,
+  deviceAt: '2026-12-02T05:00:00.000Z',
 });
 const finishUrl = '/api/inspections/i1/finish';
 const refusedFinish = (missing: string[], stepIds: string[], round?: number): QueuedRequest => ({
-  key: '9', label: 'signature', url: finishUrl, method: 'POST', json: { signatureName: 'A Driver', certify: true, finishedAt: '2026-12-02T05:30:00.000Z', stepIds }, state: 'failed', error: 'missing', errorFields: { stepIds: missing }, attempts: 1, ...(round ? { resendRound: round } : {}),
+  key: '9',
+  label: 'signature',
+  url: finishUrl,
+  method: 'POST',
+  json: { signatureName: 'A Driver', certify: true, finishedAt: '2026-12-02T05:30:00.000Z', stepIds },
+  state: 'failed',
+  error: 'missing',
+  errorFields: { stepIds: missing },
+  attempts: 1,
+  ...(round ? { resendRound: round } : {}),
 });
 const steps = [step('a', 0), step('b', 1), step('c', 2)];
 
@@ -21,7 +44,16 @@ describe('planResend', () => {
   });
 
   it('stops naming a step the server refused for good, and does not send it again', () => {
-    const refusedStep: QueuedRequest = { key: '5', label: 'ok', url: '/api/inspections/i1/steps', method: 'POST', json: { id: 'b' }, state: 'failed', error: 'not in the vocabulary', attempts: 1 };
+    const refusedStep: QueuedRequest = {
+      key: '5',
+      label: 'ok',
+      url: '/api/inspections/i1/steps',
+      method: 'POST',
+      json: { id: 'b' },
+      state: 'failed',
+      error: 'not in the vocabulary',
+      attempts: 1,
+    };
     const plan = planResend({ outbox: [refusedStep, refusedFinish(['b'], ['a', 'b', 'c'])], steps, finishUrl });
     expect(plan?.steps).toEqual([]);
     expect(plan?.finishJson.stepIds).toEqual(['a', 'c']);

@@ -19,8 +19,18 @@ export type ResendPlan = {
 
 type FinishJson = Record<string, unknown> & { stepIds?: string[] };
 
-export function planResend({ outbox, steps, finishUrl }: { outbox: QueuedRequest[]; steps: WalkStep[]; finishUrl: string }): ResendPlan | null {
-  const refusedFinish = outbox.find((r) => r.url === finishUrl && r.state === 'failed' && (r.errorFields?.stepIds?.length ?? 0) > 0);
+export function planResend({
+  outbox,
+  steps,
+  finishUrl,
+}: {
+  outbox: QueuedRequest[];
+  steps: WalkStep[];
+  finishUrl: string;
+}): ResendPlan | null {
+  const refusedFinish = outbox.find(
+    (r) => r.url === finishUrl && r.state === 'failed' && (r.errorFields?.stepIds?.length ?? 0) > 0,
+  );
   if (!refusedFinish) return null;
   const round = (refusedFinish.resendRound ?? 0) + 1;
   if (round > maxResendRounds) return null;
@@ -29,7 +39,10 @@ export function planResend({ outbox, steps, finishUrl }: { outbox: QueuedRequest
   // A step the server refused for good (a 4xx kept in the outbox) cannot be sent again: the
   // signature stops naming it, and the driver sees that refusal instead.
   const refusedSteps = new Set(
-    outbox.filter((r) => r.state === 'failed' && r.url.endsWith('/steps')).map((r) => (r.json as { id?: string } | undefined)?.id).filter((id): id is string => !!id),
+    outbox
+      .filter((r) => r.state === 'failed' && r.url.endsWith('/steps'))
+      .map((r) => (r.json as { id?: string } | undefined)?.id)
+      .filter((id): id is string => !!id),
   );
   const onPhone = new Set(steps.map((s) => s.id));
   const missing = new Set(refusedFinish.errorFields!.stepIds!);
@@ -37,5 +50,10 @@ export function planResend({ outbox, steps, finishUrl }: { outbox: QueuedRequest
   // Named steps the phone no longer holds, or that were refused, are dropped from the list.
   const stepIds = json.stepIds.filter((id) => onPhone.has(id) && !refusedSteps.has(id));
   if (resend.length === 0 && stepIds.length === json.stepIds.length) return null;
-  return { dropKey: refusedFinish.key, steps: resend.sort((a, b) => a.seq - b.seq), finishJson: { ...json, stepIds }, round };
+  return {
+    dropKey: refusedFinish.key,
+    steps: resend.sort((a, b) => a.seq - b.seq),
+    finishJson: { ...json, stepIds },
+    round,
+  };
 }

@@ -2,8 +2,28 @@
 // one entered at the start.
 
 const digitWords: Record<string, string> = {
-  zero: '0', oh: '0', o: '0', nought: '0', one: '1', won: '1', two: '2', to: '2', too: '2', three: '3', tree: '3', four: '4', for: '4', fore: '4',
-  five: '5', six: '6', sicks: '6', seven: '7', eight: '8', ate: '8', nine: '9', niner: '9',
+  zero: '0',
+  oh: '0',
+  o: '0',
+  nought: '0',
+  one: '1',
+  won: '1',
+  two: '2',
+  to: '2',
+  too: '2',
+  three: '3',
+  tree: '3',
+  four: '4',
+  for: '4',
+  fore: '4',
+  five: '5',
+  six: '6',
+  sicks: '6',
+  seven: '7',
+  eight: '8',
+  ate: '8',
+  nine: '9',
+  niner: '9',
 };
 const multipliers: Record<string, number> = { double: 2, triple: 3 };
 
@@ -11,7 +31,10 @@ const multipliers: Record<string, number> = { double: 2, triple: 3 };
 export function readSpokenSeal(text: string): string {
   const out: string[] = [];
   let repeat = 1;
-  for (const raw of text.toLowerCase().split(/[\s,.-]+/).filter(Boolean)) {
+  for (const raw of text
+    .toLowerCase()
+    .split(/[\s,.-]+/)
+    .filter(Boolean)) {
     if (multipliers[raw]) {
       repeat = multipliers[raw];
       continue;

@@ -65,7 +65,8 @@ export function createListener(opts: {
     r.interimResults = true;
     r.maxAlternatives = 5;
     try {
-      const PhraseCtor = (window as unknown as { SpeechRecognitionPhrase?: new (p: string, boost: number) => unknown }).SpeechRecognitionPhrase;
+      const PhraseCtor = (window as unknown as { SpeechRecognitionPhrase?: new (p: string, boost: number) => unknown })
+        .SpeechRecognitionPhrase;
       if (PhraseCtor && 'phrases' in r) r.phrases = phrases.slice(0, 200).map((p) => new PhraseCtor(p, 3));
     } catch {
       /* phrase biasing is optional */

@@ -37,7 +37,15 @@ export type PendingMatch = {
   heard: string;
   alternatives: string[];
   inputMode: 'voice' | 'typed';
-  top: { termKey: string; component: string; condition: string; position: string | null; severity: 'minor' | 'major' | null; score: number; itemId: string | null };
+  top: {
+    termKey: string;
+    component: string;
+    condition: string;
+    position: string | null;
+    severity: 'minor' | 'major' | null;
+    score: number;
+    itemId: string | null;
+  };
   others: MatchAlternative[];
   /** After a "no": the alternatives are shown as buttons. */
   declined: boolean;
@@ -87,11 +95,31 @@ const idbStorage: StateStorage = {
   },
 };
 
-export function createWalkStore(init: { inspectionId: string; zones: WalkZone[]; newId?: () => string; now?: () => Date; persistOnDevice?: boolean }) {
+export function createWalkStore(init: {
+  inspectionId: string;
+  zones: WalkZone[];
+  newId?: () => string;
+  now?: () => Date;
+  persistOnDevice?: boolean;
+}) {
   const newId = init.newId ?? (() => crypto.randomUUID());
   const now = init.now ?? (() => new Date());
-  const initial: WalkState = { inspectionId: init.inspectionId, zones: init.zones, zoneIndex: 0, steps: [], nextSeq: 0, pending: null, photos: [], phase: 'walking', readback: null, signedName: null };
-  const body = (setState: (fn: (s: WalkState & WalkActions) => Partial<WalkState>) => void, getState: () => WalkState & WalkActions): WalkState & WalkActions => ({
+  const initial: WalkState = {
+    inspectionId: init.inspectionId,
+    zones: init.zones,
+    zoneIndex: 0,
+    steps: [],
+    nextSeq: 0,
+    pending: null,
+    photos: [],
+    phase: 'walking',
+    readback: null,
+    signedName: null,
+  };
+  const body = (
+    setState: (fn: (s: WalkState & WalkActions) => Partial<WalkState>) => void,
+    getState: () => WalkState & WalkActions,
+  ): WalkState & WalkActions => ({
     ...initial,
     record: (s) => {
       const step: WalkStep = { ...s, id: newId(), seq: getState().nextSeq, deviceAt: now().toISOString() };
@@ -104,7 +132,8 @@ export function createWalkStore(init: { inspectionId: string; zones: WalkZone[];
         const merged = [...st.steps, ...server.filter((x) => !known.has(x.id))].sort((a, b) => a.seq - b.seq);
         return { steps: merged, nextSeq: Math.max(st.nextSeq, ...merged.map((x) => x.seq + 1)) };
       }),
-    moveToZone: (index) => setState((st) => ({ zoneIndex: Math.max(0, Math.min(st.zones.length - 1, index)), pending: null })),
+    moveToZone: (index) =>
+      setState((st) => ({ zoneIndex: Math.max(0, Math.min(st.zones.length - 1, index)), pending: null })),
     holdForConfirmation: (p) => setState(() => ({ pending: p })),
     declinePending: () => setState((st) => ({ pending: st.pending ? { ...st.pending, declined: true } : null })),
     addPhoto: (p) => setState((st) => ({ photos: [...st.photos, p] })),
@@ -112,13 +141,24 @@ export function createWalkStore(init: { inspectionId: string; zones: WalkZone[];
     setReadback: (text) => setState(() => ({ readback: text })),
   });
   const memory = new Map<string, string>();
-  const memoryStorage: StateStorage = { getItem: (k) => memory.get(k) ?? null, setItem: (k, v) => void memory.set(k, v), removeItem: (k) => void memory.delete(k) };
+  const memoryStorage: StateStorage = {
+    getItem: (k) => memory.get(k) ?? null,
+    setItem: (k, v) => void memory.set(k, v),
+    removeItem: (k) => void memory.delete(k),
+  };
   return createStore<WalkState & WalkActions>()(
     persist((set, get) => body(set, get), {
       name: `walk-${init.inspectionId}`,
       storage: createJSONStorage(() => (init.persistOnDevice === false ? memoryStorage : idbStorage)),
       // Zones come from the page (the grammar may have been updated); the walk's record persists.
-      partialize: (s) => ({ zoneIndex: s.zoneIndex, steps: s.steps, nextSeq: s.nextSeq, photos: s.photos, phase: s.phase, signedName: s.signedName }),
+      partialize: (s) => ({
+        zoneIndex: s.zoneIndex,
+        steps: s.steps,
+        nextSeq: s.nextSeq,
+        photos: s.photos,
+        phase: s.phase,
+        signedName: s.signedName,
+      }),
     }),
   );
 }

@@ -3,11 +3,25 @@ import { useCallback, useEffect, useRef, useState } from 'react';
 import { deviceQueue } from './device-queue';
 import { flushQueue, sendQueued, type QueuedRequest } from './flush-queue';
 
-export type QueueStatus = { pending: number; failed: QueuedRequest[]; offline: boolean; serverAway: boolean; lastError: string | null; lastSentAt: number | null };
+export type QueueStatus = {
+  pending: number;
+  failed: QueuedRequest[];
+  offline: boolean;
+  serverAway: boolean;
+  lastError: string | null;
+  lastSentAt: number | null;
+};
 
 /** Keeps sending the device's outbox: at once, when the network comes back, and every few seconds. */
 export function useFlushQueue(): QueueStatus & { flushNow: () => void } {
-  const [status, setStatus] = useState<QueueStatus>({ pending: 0, failed: [], offline: false, serverAway: false, lastError: null, lastSentAt: null });
+  const [status, setStatus] = useState<QueueStatus>({
+    pending: 0,
+    failed: [],
+    offline: false,
+    serverAway: false,
+    lastError: null,
+    lastSentAt: null,
+  });
   const running = useRef(false);
   const again = useRef(false);
 

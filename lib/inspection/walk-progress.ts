@@ -32,7 +32,10 @@ export function findUndoableStep<S extends ProgressStep>(steps: readonly S[]): S
 type WalkZoneShape = { id: string; items: { id: string; component: string }[] };
 
 /** Item id → its answer, from the effective steps. A "zone OK" answers the zone's open items. */
-export function mapItemAnswers(zones: readonly WalkZoneShape[], steps: readonly ProgressStep[]): Map<string, ItemAnswer> {
+export function mapItemAnswers(
+  zones: readonly WalkZoneShape[],
+  steps: readonly ProgressStep[],
+): Map<string, ItemAnswer> {
   const answers = new Map<string, ItemAnswer>();
   for (const s of listEffectiveSteps(steps)) {
     if (s.kind === 'ok' && s.item) answers.set(s.item, 'ok');
@@ -55,5 +58,7 @@ export function listVisitedZones(steps: readonly ProgressStep[]): Set<string> {
 
 /** The steps that become defects on the report: findings, and readings that failed with a severity. */
 export function listDefectSteps<S extends ProgressStep>(steps: readonly S[]): S[] {
-  return listEffectiveSteps(steps).filter((s) => s.kind === 'defect' || (s.kind === 'measurement' && s.verdict === 'fail' && !!s.severity));
+  return listEffectiveSteps(steps).filter(
+    (s) => s.kind === 'defect' || (s.kind === 'measurement' && s.verdict === 'fail' && !!s.severity),
+  );
 }

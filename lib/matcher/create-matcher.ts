@@ -14,7 +14,15 @@ export const ACCEPT_THRESHOLD = 0.55;
 
 type Resolved = { word: string; sim: number };
 type PhraseRef = { owner: number; words: string[]; idf: number[]; weightSum: number };
-type Coverage = { owner: number; cov: number; mass: number; phrase: number; tokens: Set<number>; words: string[]; exact: boolean };
+type Coverage = {
+  owner: number;
+  cov: number;
+  mass: number;
+  phrase: number;
+  tokens: Set<number>;
+  words: string[];
+  exact: boolean;
+};
 type PositionHit = { id: string; group: string; start: number; end: number };
 
 const GROUP_ORDER = ['side', 'end', 'axle_group', 'axle', 'dual', 'height'];
@@ -130,7 +138,11 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
   const commandKeys = [...commandByKey.keys()];
   const okWords = new Set(['good', 'fine', 'ok', 'okay', 'clear']);
   const negators = new Set(['no', 'not', 'never', 'nothing', 'without']);
-  const zoneWords = new Set(grammar.zones.zones.flatMap((z) => z.phrases.flatMap((p) => normalize(p))).concat(['side', 'tractor', 'trailer', 'truck', 'unit', 'zone']));
+  const zoneWords = new Set(
+    grammar.zones.zones
+      .flatMap((z) => z.phrases.flatMap((p) => normalize(p)))
+      .concat(['side', 'tractor', 'trailer', 'truck', 'unit', 'zone']),
+  );
 
   // ---- positions ----
   const positionPhrases = positions.positions
@@ -166,7 +178,10 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
   const lexiconByLetter = new Map<string, Fuse<string>>();
   for (const letter of new Set(lexiconList.map((w) => w[0] ?? ''))) {
     const words = lexiconList.filter((w) => w[0] === letter);
-    lexiconByLetter.set(letter, new Fuse(words, { includeScore: true, threshold: 0.34, ignoreLocation: true, minMatchCharLength: 2 }));
+    lexiconByLetter.set(
+      letter,
+      new Fuse(words, { includeScore: true, threshold: 0.34, ignoreLocation: true, minMatchCharLength: 2 }),
+    );
   }
   const byPhonetic = new Map<string, string[]>();
   for (const w of lexiconList) {
@@ -183,7 +198,13 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     let out: Resolved[] = [];
     if (knownWords.has(t)) out = [{ word: t, sim: 1 }];
     else if (/^[a-z]+$/.test(t)) {
-      const stems = [t.endsWith('ies') ? `${t.slice(0, -3)}y` : '', t.endsWith('es') ? t.slice(0, -2) : '', t.endsWith('s') ? t.slice(0, -1) : '', t.endsWith('ed') ? t.slice(0, -1) : '', t.endsWith('ing') ? t.slice(0, -3) : ''];
+      const stems = [
+        t.endsWith('ies') ? `${t.slice(0, -3)}y` : '',
+        t.endsWith('es') ? t.slice(0, -2) : '',
+        t.endsWith('s') ? t.slice(0, -1) : '',
+        t.endsWith('ed') ? t.slice(0, -1) : '',
+        t.endsWith('ing') ? t.slice(0, -3) : '',
+      ];
       const stem = stems.find((s) => s.length >= 2 && contentWords.has(s));
       if (stem) out = [{ word: stem, sim: 0.97 }];
       if (out.length === 0 && t.length >= 6) {
@@ -191,7 +212,10 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
           const a = t.slice(0, k);
           const b = t.slice(k);
           if (contentWords.has(a) && contentWords.has(b)) {
-            out = [{ word: a, sim: 0.95 }, { word: b, sim: 0.95 }];
+            out = [
+              { word: a, sim: 0.95 },
+              { word: b, sim: 0.95 },
+            ];
             break;
           }
         }
@@ -268,10 +292,11 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
         }
         // every fully said phrase of the same owner explains its tokens ("drive tire … dual")
         if (a.cov >= 0.99) {
-          for (const idx of a.full) for (const w of table.refs[idx]?.words ?? []) {
-            const b = best.get(w);
-            if (b) tokens.add(b.token);
-          }
+          for (const idx of a.full)
+            for (const w of table.refs[idx]?.words ?? []) {
+              const b = best.get(w);
+              if (b) tokens.add(b.token);
+            }
         }
       }
       return { owner: a.owner, cov: a.cov, mass: a.mass, phrase: a.phrase, tokens, words, exact: a.exact };
@@ -283,7 +308,9 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     const taken = new Set<number>();
     for (let i = 0; i < tokens.length; i += 1) {
       if (axleWords.has(tokens[i] ?? '')) {
-        const q = quantities.find((x) => x.start === i + 1 && x.unit === null && Number.isInteger(x.value) && x.value >= 1 && x.value <= 6);
+        const q = quantities.find(
+          (x) => x.start === i + 1 && x.unit === null && Number.isInteger(x.value) && x.value >= 1 && x.value <= 6,
+        );
         if (q) {
           hits.push({ id: `axle ${q.value}`, group: 'axle', start: i, end: q.end });
           for (let k = i; k < q.end; k += 1) taken.add(k);
@@ -369,7 +396,8 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
       if (id && (moving.length <= 1 || moving.every((c) => c === id))) return { id, score: 1 };
     }
     if (tokens.length > 4 || stripped.length < 3) return null;
-    if (stripFillers(tokens).some((w) => (contentWords.has(stemWord(w)) || numberWords.has(w)) && !commandByKey.has(w))) return null;
+    if (stripFillers(tokens).some((w) => (contentWords.has(stemWord(w)) || numberWords.has(w)) && !commandByKey.has(w)))
+      return null;
     let best: { id: CommandId; score: number } | null = null;
     for (const k of commandKeys) {
       if (k.length < 4) continue;
@@ -403,7 +431,14 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     const cmd = matchCommand(tokens);
     if (!cmd && tokens.every((t) => fillers.has(t))) return result;
     if (cmd) {
-      return { ...result, kind: cmd.id === 'ok' ? 'ok' : 'command', command: cmd.id, termId: `command:${cmd.id}`, score: round3(cmd.score), needsConfirmation: cmd.score < 1 };
+      return {
+        ...result,
+        kind: cmd.id === 'ok' ? 'ok' : 'command',
+        command: cmd.id,
+        termId: `command:${cmd.id}`,
+        score: round3(cmd.score),
+        needsConfirmation: cmd.score < 1,
+      };
     }
 
     const resolved = tokens.map((t) => resolveToken(stemWord(t)));
@@ -423,12 +458,27 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     const allQuantities = readQuantities(tokens, { timeContext: (explicitKind ?? ctx.measure) === 'air_buildup' });
     const posHits = findPositions(tokens, allQuantities);
     // "axle 3" is a position, not a reading
-    const quantities = allQuantities.filter((q) => !posHits.some((h) => h.group === 'axle' && q.start >= h.start && q.end <= h.end));
+    const quantities = allQuantities.filter(
+      (q) => !posHits.some((h) => h.group === 'axle' && q.start >= h.start && q.end <= h.end),
+    );
     // "all good on the front", "passenger side looks good": the OK family around position and zone words
     const withoutPlaces = tokens.filter((t, i) => !zoneWords.has(t) && !posHits.some((h) => i >= h.start && i < h.end));
-    if (withoutPlaces.length > 0 && withoutPlaces.length < tokens.length && matchCommand(withoutPlaces)?.id === 'ok' && matchCommand(withoutPlaces)?.score === 1) {
+    if (
+      withoutPlaces.length > 0 &&
+      withoutPlaces.length < tokens.length &&
+      matchCommand(withoutPlaces)?.id === 'ok' &&
+      matchCommand(withoutPlaces)?.score === 1
+    ) {
       const pos = formatPositions(posHits, new Set());
-      return { ...result, kind: 'ok', command: 'ok', termId: 'command:ok', score: 0.95, position: pos.join(' ') || null, positions: pos };
+      return {
+        ...result,
+        kind: 'ok',
+        command: 'ok',
+        termId: 'command:ok',
+        score: 0.95,
+        position: pos.join(' ') || null,
+        positions: pos,
+      };
     }
     const compCov = scoreTable(compTable, resolved);
     // a condition said after "no", "not" or "never" is denied, not reported ("no leaks", "not flat")
@@ -466,11 +516,13 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
         return null;
       };
       const ctxMeasure = ctx.measure ?? null;
-      const compatible = (k: MeasureKind | null, u: Unit | null) => k !== null && (u === null || numbers.measureUnits[k] === u || (u === 's' && k === 'air_leak'));
+      const compatible = (k: MeasureKind | null, u: Unit | null) =>
+        k !== null && (u === null || numbers.measureUnits[k] === u || (u === 's' && k === 'air_leak'));
       let kind: MeasureKind | null = explicitKind;
       if (!kind && ctxMeasure && compatible(ctxMeasure, withUnit?.unit ?? null)) kind = ctxMeasure;
       if (!kind) kind = unitKind(withUnit?.unit ?? null);
-      if (!kind && ctxMeasure && withUnit?.unit === 'psi' && numbers.measureUnits[ctxMeasure] === 'psi') kind = ctxMeasure;
+      if (!kind && ctxMeasure && withUnit?.unit === 'psi' && numbers.measureUnits[ctxMeasure] === 'psi')
+        kind = ctxMeasure;
       if (kind) {
         const want = numbers.measureUnits[kind];
         const q = quantities.find((x) => x.unit === want) ?? [...quantities].reverse().find((x) => x.unit === null);
@@ -482,7 +534,9 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
           for (const h of measureHits) for (let k = h.start; k < h.end; k += 1) explained.add(k);
           const comp = componentFields(bestComp, 0.6);
           if (comp) for (const k of comp.tokens) explained.add(k);
-          const unexplained = contentIdx.filter((i) => !explained.has(i) && !unitPhraseWords.has(tokens[i] ?? '')).length;
+          const unexplained = contentIdx.filter(
+            (i) => !explained.has(i) && !unitPhraseWords.has(tokens[i] ?? ''),
+          ).length;
           const fromWords = explicitKind !== null || q.unit !== null;
           const kindFromWords = explicitKind !== null || (ctxMeasure !== null && kind === ctxMeasure);
           const allowed = kindFromWords ? (fromWords ? 3 : 1) : 0;
@@ -524,7 +578,13 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     const contentCount = Math.max(1, contentIdx.length);
     const occurrences = new Map<string, number>();
     for (const rs of resolved) for (const r of rs) occurrences.set(r.word, (occurrences.get(r.word) ?? 0) + 1);
-    const scorePair = (ci: number, compScore: number, compTokens: Set<number>, d: Coverage, compWords: string[] = []) => {
+    const scorePair = (
+      ci: number,
+      compScore: number,
+      compTokens: Set<number>,
+      d: Coverage,
+      compWords: string[] = [],
+    ) => {
       const comp = components[ci];
       const cond = conditions[d.owner];
       if (!comp || !cond || !pairs.has(`${comp.id}:${cond.id}`)) return;
@@ -547,12 +607,16 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     for (const d of topConds) {
       for (const c of topComps) scorePair(c.owner, c.cov, c.tokens, d, c.words);
       // a bare condition ("flat") on the item in front of the driver
-      if (ctxComp !== undefined && !topComps.some((c) => c.owner === ctxComp && c.cov >= 0.99)) scorePair(ctxComp, 0.75, new Set(), d);
+      if (ctxComp !== undefined && !topComps.some((c) => c.owner === ctxComp && c.cov >= 0.99))
+        scorePair(ctxComp, 0.75, new Set(), d);
       // a bare condition that only one component of the current zone can have ("builds slow" in the air-brake tests)
       else if (ctxComp === undefined && ctx.zone && d.cov >= 0.9) {
-        const inZone = (componentsByCondition.get(d.owner) ?? []).filter((ci) => components[ci]?.zones.includes(ctx.zone as never));
+        const inZone = (componentsByCondition.get(d.owner) ?? []).filter((ci) =>
+          components[ci]?.zones.includes(ctx.zone as never),
+        );
         const only = inZone[0];
-        if (inZone.length === 1 && only !== undefined && !topComps.some((c) => c.owner === only)) scorePair(only, 0.7, new Set(), d);
+        if (inZone.length === 1 && only !== undefined && !topComps.some((c) => c.owner === only))
+          scorePair(only, 0.7, new Set(), d);
       }
     }
     // "no fire extinguisher": "no" before a component that can be missing
@@ -562,7 +626,13 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
         const first = Math.min(...c.tokens);
         if (c.cov >= 0.9 && c.exact && tokens[first - 1] === 'no') {
           const tokensNo = new Set([first - 1]);
-          scorePair(c.owner, c.cov, c.tokens, { owner: missingIdx, cov: 0.9, mass: 1, phrase: -1, tokens: tokensNo, words: ['no'], exact: true }, c.words);
+          scorePair(
+            c.owner,
+            c.cov,
+            c.tokens,
+            { owner: missingIdx, cov: 0.9, mass: 1, phrase: -1, tokens: tokensNo, words: ['no'], exact: true },
+            c.words,
+          );
         }
       }
     }
@@ -580,13 +650,26 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
       const comp = componentFields(bestComp, 0.9);
       if (comp && (tokens.some((t) => okWords.has(t)) || denied) && (condCov[0]?.cov ?? 0) < 0.6) {
         const pos = formatPositions(posHits, comp.tokens);
-        return { ...result, kind: 'ok', command: 'ok', component: comp.comp.name, componentId: comp.comp.id, system: comp.comp.system, position: pos.join(' ') || null, positions: pos, termId: `${comp.comp.id}:ok`, score: round3(0.9 * (bestComp?.cov ?? 0)), needsConfirmation: true };
+        return {
+          ...result,
+          kind: 'ok',
+          command: 'ok',
+          component: comp.comp.name,
+          componentId: comp.comp.id,
+          system: comp.comp.system,
+          position: pos.join(' ') || null,
+          positions: pos,
+          termId: `${comp.comp.id}:ok`,
+          score: round3(0.9 * (bestComp?.cov ?? 0)),
+          needsConfirmation: true,
+        };
       }
       if (cands.length === 0 && ctx.zone && topConds[0]) {
         // a bare condition: offer the zone's components that can have it, for "did you mean …?"
         const d = topConds[0];
         for (const ci of componentsByCondition.get(d.owner) ?? []) {
-          if (components[ci]?.zones.includes(ctx.zone as never)) cands.push({ comp: ci, cond: d.owner, score: 0.3 * d.cov, tokens: new Set() });
+          if (components[ci]?.zones.includes(ctx.zone as never))
+            cands.push({ comp: ci, cond: d.owner, score: 0.3 * d.cov, tokens: new Set() });
         }
       }
       return { ...result, alternatives: alternativesOf(cands) };

@@ -33,7 +33,10 @@ export function isTopOneCorrect(u: LabelledUtterance, r: MatchResult): boolean {
   if (r.kind !== u.kind) return false;
   if (u.kind === 'defect') return r.termId === u.termId;
   if (u.kind === 'command' || u.kind === 'ok') return r.command === (u.command ?? 'ok');
-  if (u.kind === 'measurement') return r.measure === u.measure && r.unit === u.unit && r.value !== null && Math.abs(r.value - (u.value ?? NaN)) < 1e-6;
+  if (u.kind === 'measurement')
+    return (
+      r.measure === u.measure && r.unit === u.unit && r.value !== null && Math.abs(r.value - (u.value ?? NaN)) < 1e-6
+    );
   return true;
 }
 

@@ -3,7 +3,8 @@ import { describe, expect, it } from 'vitest';
 import { CONFIRM_THRESHOLD, getDefaultMatcher } from './index';
 import { getLabelledContext, isTopOneCorrect, parseLabelledJsonl } from './fixture-scoring';
 
-const fixture = (name: string) => parseLabelledJsonl(readFileSync(new URL(`../../tests/fixtures/matcher/${name}`, import.meta.url), 'utf8'));
+const fixture = (name: string) =>
+  parseLabelledJsonl(readFileSync(new URL(`../../tests/fixtures/matcher/${name}`, import.meta.url), 'utf8'));
 const matcher = getDefaultMatcher();
 
 describe('labelled utterances', () => {
@@ -17,10 +18,15 @@ describe('labelled utterances', () => {
     const misses: string[] = [];
     for (const u of set) {
       const r = matcher.match(u.text, getLabelledContext(u));
-      if (!isTopOneCorrect(u, r)) misses.push(`  "${u.text}" [${u.zone}] want ${u.termId ?? u.command ?? u.measure ?? u.kind} got ${r.kind} ${r.termId ?? ''} ${r.value ?? ''} (${r.score})`);
+      if (!isTopOneCorrect(u, r))
+        misses.push(
+          `  "${u.text}" [${u.zone}] want ${u.termId ?? u.command ?? u.measure ?? u.kind} got ${r.kind} ${r.termId ?? ''} ${r.value ?? ''} (${r.score})`,
+        );
     }
     const accuracy = 1 - misses.length / set.length;
-    console.log(`top-1 accuracy ${(accuracy * 100).toFixed(1)} % (${set.length - misses.length}/${set.length})${misses.length ? `; misses:\n${misses.join('\n')}` : ''}`);
+    console.log(
+      `top-1 accuracy ${(accuracy * 100).toFixed(1)} % (${set.length - misses.length}/${set.length})${misses.length ? `; misses:\n${misses.join('\n')}` : ''}`,
+    );
     expect(accuracy).toBeGreaterThanOrEqual(0.95);
   });
 
@@ -35,12 +41,17 @@ describe('labelled utterances', () => {
     const withPos = set.filter((u) => u.position !== undefined);
     const misses = withPos.filter((u) => matcher.match(u.text, getLabelledContext(u)).position !== u.position);
     const acc = 1 - misses.length / withPos.length;
-    console.log(`positions: ${withPos.length - misses.length}/${withPos.length}${misses.length ? ` (missed: ${misses.map((u) => u.text).join(' | ')})` : ''}`);
+    console.log(
+      `positions: ${withPos.length - misses.length}/${withPos.length}${misses.length ? ` (missed: ${misses.map((u) => u.text).join(' | ')})` : ''}`,
+    );
     expect(acc).toBeGreaterThanOrEqual(0.9);
   });
 
   it('takes the best reading over several recogniser alternatives', () => {
-    const r = matcher.matchAlternatives(['glad and seal cracked up', 'glad hand seal cracked', 'glad ham sealed cracked'], { zone: 'coupling' });
+    const r = matcher.matchAlternatives(
+      ['glad and seal cracked up', 'glad hand seal cracked', 'glad ham sealed cracked'],
+      { zone: 'coupling' },
+    );
     expect(r.termId).toBe('glad_hand:cracked');
     const cmd = matcher.matchAlternatives(['necks', 'next'], {});
     expect(cmd.command).toBe('next');
@@ -52,7 +63,9 @@ describe('first held-out set (93.6 % on its first run; its misses have since inf
     const set = fixture('holdout.jsonl');
     const misses = set.filter((u) => !isTopOneCorrect(u, matcher.match(u.text, getLabelledContext(u))));
     const accuracy = 1 - misses.length / set.length;
-    console.log(`held-out top-1 accuracy ${(accuracy * 100).toFixed(1)} % (${set.length - misses.length}/${set.length})${misses.length ? `; misses: ${misses.map((u) => `"${u.text}" want ${u.termId ?? u.command ?? u.measure}`).join(' | ')}` : ''}`);
+    console.log(
+      `held-out top-1 accuracy ${(accuracy * 100).toFixed(1)} % (${set.length - misses.length}/${set.length})${misses.length ? `; misses: ${misses.map((u) => `"${u.text}" want ${u.termId ?? u.command ?? u.measure}`).join(' | ')}` : ''}`,
+    );
     expect(accuracy).toBeGreaterThanOrEqual(0.85);
   });
 });
@@ -62,7 +75,18 @@ describe('second held-out set (written after all tuning; see the note in its com
     const set = fixture('holdout-2.jsonl');
     const misses = set.filter((u) => !isTopOneCorrect(u, matcher.match(u.text, getLabelledContext(u))));
     const accuracy = 1 - misses.length / set.length;
-    console.log(`held-out-2 top-1 accuracy ${(accuracy * 100).toFixed(1)} % (${set.length - misses.length}/${set.length})${misses.length ? `; misses: ${misses.map((u) => { const r = matcher.match(u.text, getLabelledContext(u)); return `"${u.text}" want ${u.termId ?? u.command ?? u.measure} got ${r.termId}`; }).join(' | ')}` : ''}`);
+    console.log(
+      `held-out-2 top-1 accuracy ${(accuracy * 100).toFixed(1)} % (${set.length - misses.length}/${set.length})${
+        misses.length
+          ? `; misses: ${misses
+              .map((u) => {
+                const r = matcher.match(u.text, getLabelledContext(u));
+                return `"${u.text}" want ${u.termId ?? u.command ?? u.measure} got ${r.termId}`;
+              })
+              .join(' | ')}`
+          : ''
+      }`,
+    );
     expect(accuracy).toBeGreaterThanOrEqual(0.85);
   });
 });
@@ -76,13 +100,26 @@ describe('chatter', () => {
       .map((u) => ({ u, r: matcher.match(u.text, getLabelledContext(u)) }))
       .filter(({ r }) => (r.kind === 'defect' || r.kind === 'measurement') && r.score >= CONFIRM_THRESHOLD);
     const unknown = chatter.filter((u) => matcher.match(u.text, getLabelledContext(u)).kind === 'unknown').length;
-    console.log(`chatter: ${accepted.length}/${chatter.length} accepted at ${CONFIRM_THRESHOLD}; ${unknown}/${chatter.length} unknown${accepted.length ? `: ${accepted.map(({ u, r }) => `"${u.text}" → ${r.termId} ${r.score}`).join(' | ')}` : ''}`);
+    console.log(
+      `chatter: ${accepted.length}/${chatter.length} accepted at ${CONFIRM_THRESHOLD}; ${unknown}/${chatter.length} unknown${accepted.length ? `: ${accepted.map(({ u, r }) => `"${u.text}" → ${r.termId} ${r.score}`).join(' | ')}` : ''}`,
+    );
     expect(accepted.length / chatter.length).toBeLessThanOrEqual(0.05);
   });
 });
 
 describe('bad input', () => {
-  const junk = ['', '   ', 'x'.repeat(5000), 'brake '.repeat(900), '\u0000\u0001\u0002\uffff\ud800', '😀🚛🔧', '🚛 🚛 🚛 🚛', '%%%$$$###', '\t\n\r', 'ñáé ü'];
+  const junk = [
+    '',
+    '   ',
+    'x'.repeat(5000),
+    'brake '.repeat(900),
+    '\u0000\u0001\u0002\uffff\ud800',
+    '😀🚛🔧',
+    '🚛 🚛 🚛 🚛',
+    '%%%$$$###',
+    '\t\n\r',
+    'ñáé ü',
+  ];
   it.each(junk.map((j, i) => [i, j] as const))('input %i gives unknown and does not throw', (_i, text) => {
     const r = matcher.match(text, { zone: 'front' });
     expect(r.kind).toBe('unknown');

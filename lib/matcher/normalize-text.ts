@@ -51,7 +51,7 @@ export function createNormalizer(tables: NormalizeTables): Normalizer {
       else words.push(w.replace(/'s$/, '').replace(/'/g, ''));
     }
     const out: string[] = [];
-    for (let i = 0; i < words.length; ) {
+    for (let i = 0; i < words.length;) {
       const w = words[i] ?? '';
       if (w === '') {
         i += 1;

@@ -11,12 +11,34 @@ const normalize = createNormalizer(commandsSchema.parse(commands));
 const read = createQuantityReader(numbersSchema.parse(numbers));
 const readOne = (text: string, timeContext = false) => read(normalize(text), { timeContext });
 
-const ONES = ['zero', 'one', 'two', 'three', 'four', 'five', 'six', 'seven', 'eight', 'nine', 'ten', 'eleven', 'twelve', 'thirteen', 'fourteen', 'fifteen', 'sixteen', 'seventeen', 'eighteen', 'nineteen'];
+const ONES = [
+  'zero',
+  'one',
+  'two',
+  'three',
+  'four',
+  'five',
+  'six',
+  'seven',
+  'eight',
+  'nine',
+  'ten',
+  'eleven',
+  'twelve',
+  'thirteen',
+  'fourteen',
+  'fifteen',
+  'sixteen',
+  'seventeen',
+  'eighteen',
+  'nineteen',
+];
 const TENS = ['', '', 'twenty', 'thirty', 'forty', 'fifty', 'sixty', 'seventy', 'eighty', 'ninety'];
 
 /** Plain English cardinal for 0..9999 ("three thousand forty two", optional "and" after hundred). */
 function spellCardinal(n: number, useAnd: boolean): string {
-  const below100 = (x: number) => (x < 20 ? (ONES[x] ?? '') : `${TENS[Math.floor(x / 10)] ?? ''}${x % 10 ? ` ${ONES[x % 10] ?? ''}` : ''}`);
+  const below100 = (x: number) =>
+    x < 20 ? (ONES[x] ?? '') : `${TENS[Math.floor(x / 10)] ?? ''}${x % 10 ? ` ${ONES[x % 10] ?? ''}` : ''}`;
   if (n < 100) return below100(n);
   const parts: string[] = [];
   const th = Math.floor(n / 1000);
@@ -48,7 +70,19 @@ describe('spoken numbers against a reference library', () => {
     // 60 idioms: tread in 32nds, "one twenty five", halves and quarters, minutes and seconds
     const idioms: [string, number][] = [];
     for (let n = 2; n <= 11; n += 1) idioms.push([`${ONES[n]} thirty seconds`, n]);
-    for (const [a, b] of [[1, 12], [1, 10], [1, 15], [1, 20], [1, 25], [1, 30], [1, 35], [1, 40], [1, 45], [1, 50]] as const) idioms.push([`${ONES[a]} ${spellCardinal(b, false)}`, a * 100 + b]);
+    for (const [a, b] of [
+      [1, 12],
+      [1, 10],
+      [1, 15],
+      [1, 20],
+      [1, 25],
+      [1, 30],
+      [1, 35],
+      [1, 40],
+      [1, 45],
+      [1, 50],
+    ] as const)
+      idioms.push([`${ONES[a]} ${spellCardinal(b, false)}`, a * 100 + b]);
     for (let n = 1; n <= 10; n += 1) idioms.push([`${ONES[n]} and a half`, n + 0.5]);
     for (let n = 1; n <= 10; n += 1) idioms.push([`${ONES[n]} and three quarters`, n + 0.75]);
     for (let n = 1; n <= 5; n += 1) idioms.push([`${ONES[n]} and a quarter`, n + 0.25]);
@@ -106,9 +140,32 @@ describe('readQuantities', () => {
 
   it('never throws on arbitrary token lists', () => {
     fc.assert(
-      fc.property(fc.array(fc.constantFrom('one', 'and', 'a', 'half', 'hundred', 'thirty', 'seconds', 'minute', 'oh', '3/0', '0/0', 'point', 'psi', 'for', 'inch', 'x'), { maxLength: 12 }), (tokens) => {
-        for (const q of read(tokens)) expect(Number.isFinite(q.value)).toBe(true);
-      }),
+      fc.property(
+        fc.array(
+          fc.constantFrom(
+            'one',
+            'and',
+            'a',
+            'half',
+            'hundred',
+            'thirty',
+            'seconds',
+            'minute',
+            'oh',
+            '3/0',
+            '0/0',
+            'point',
+            'psi',
+            'for',
+            'inch',
+            'x',
+          ),
+          { maxLength: 12 },
+        ),
+        (tokens) => {
+          for (const q of read(tokens)) expect(Number.isFinite(q.value)).toBe(true);
+        },
+      ),
       { numRuns: 300 },
     );
   });

@@ -61,7 +61,11 @@ export function createQuantityReader(words: NumberWords): QuantityReader {
   };
 
   /** A whole cardinal below ten thousand, with "a hundred", "hundred and five", "twelve hundred". */
-  const readCardinal = (t: readonly string[], i: number, allowAmbiguous: boolean): { value: number; end: number } | null => {
+  const readCardinal = (
+    t: readonly string[],
+    i: number,
+    allowAmbiguous: boolean,
+  ): { value: number; end: number } | null => {
     let j = i;
     let total = 0;
     let current = 0;
@@ -177,19 +181,30 @@ export function createQuantityReader(words: NumberWords): QuantityReader {
   return (tokens, opts = {}) => {
     const out: Quantity[] = [];
     const timeContext = opts.timeContext === true || tokens.includes('minute') || tokens.includes('minutes');
-    for (let i = 0; i < tokens.length; ) {
+    for (let i = 0; i < tokens.length;) {
       const w = tokens[i] ?? '';
       const clock = CLOCK.exec(w);
       if (clock) {
-        out.push({ value: Number(clock[1]) * 60 + Number(clock[2]), unit: 's', start: i, end: i + 1, fractionOnly: false });
+        out.push({
+          value: Number(clock[1]) * 60 + Number(clock[2]),
+          unit: 's',
+          start: i,
+          end: i + 1,
+          fractionOnly: false,
+        });
         i += 1;
         continue;
       }
       // "a minute", "an inch and a half"
       let expr: Expr | null = null;
-      if ((w === 'a' || w === 'an') && matchUnit(tokens, i + 1)?.unit !== undefined && !fractions.has(tokens[i + 1] ?? '')) {
+      if (
+        (w === 'a' || w === 'an') &&
+        matchUnit(tokens, i + 1)?.unit !== undefined &&
+        !fractions.has(tokens[i + 1] ?? '')
+      ) {
         const u = matchUnit(tokens, i + 1);
-        if (u && (u.unit === 'min' || u.unit === 'in' || u.unit === 's')) expr = { value: 1, end: i + 1, fractionOnly: false };
+        if (u && (u.unit === 'min' || u.unit === 'in' || u.unit === 's'))
+          expr = { value: 1, end: i + 1, fractionOnly: false };
       }
       expr ??= readExpr(tokens, i, timeContext);
       if (!expr) {

@@ -54,7 +54,8 @@ export const fleetSettingsQuery = () =>
 export function useInviteUserMutation() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: InviteUserBody) => fetchJson<{ user: AdminUser }>('/api/admin/users', { method: 'POST', json: body }),
+    mutationFn: (body: InviteUserBody) =>
+      fetchJson<{ user: AdminUser }>('/api/admin/users', { method: 'POST', json: body }),
     onSuccess: () => qc.invalidateQueries({ queryKey: adminUserKeys.all }),
   });
 }
@@ -62,7 +63,8 @@ export function useInviteUserMutation() {
 export function useUpdateUserMutation() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: ({ id, ...body }: UpdateUserBody & { id: string }) => fetchJson<{ user: AdminUser }>(`/api/admin/users/${id}`, { method: 'PATCH', json: body }),
+    mutationFn: ({ id, ...body }: UpdateUserBody & { id: string }) =>
+      fetchJson<{ user: AdminUser }>(`/api/admin/users/${id}`, { method: 'PATCH', json: body }),
     onSuccess: () => qc.invalidateQueries({ queryKey: adminUserKeys.all }),
   });
 }
@@ -70,7 +72,8 @@ export function useUpdateUserMutation() {
 export function useCreateUnitMutation() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: CreateUnitBody) => fetchJson<{ unit: UnitDto }>('/api/admin/units', { method: 'POST', json: body }),
+    mutationFn: (body: CreateUnitBody) =>
+      fetchJson<{ unit: UnitDto }>('/api/admin/units', { method: 'POST', json: body }),
     onSuccess: () => qc.invalidateQueries({ queryKey: adminUnitKeys.all }),
   });
 }
@@ -78,7 +81,8 @@ export function useCreateUnitMutation() {
 export function useUpdateUnitMutation(id: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: UpdateUnitBody) => fetchJson<{ unit: UnitDto }>(`/api/admin/units/${id}`, { method: 'PATCH', json: body }),
+    mutationFn: (body: UpdateUnitBody) =>
+      fetchJson<{ unit: UnitDto }>(`/api/admin/units/${id}`, { method: 'PATCH', json: body }),
     onSuccess: ({ unit }) => {
       qc.setQueryData(adminUnitKeys.detail(id), unit);
       return qc.invalidateQueries({ queryKey: adminUnitKeys.all });
@@ -89,7 +93,8 @@ export function useUpdateUnitMutation(id: string) {
 export function useRetireUnitMutation(id: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: RetireUnitBody) => fetchJson<{ unit: UnitDto }>(`/api/admin/units/${id}/retire`, { method: 'POST', json: body }),
+    mutationFn: (body: RetireUnitBody) =>
+      fetchJson<{ unit: UnitDto }>(`/api/admin/units/${id}/retire`, { method: 'POST', json: body }),
     onSuccess: ({ unit }) => {
       qc.setQueryData(adminUnitKeys.detail(id), unit);
       return qc.invalidateQueries({ queryKey: adminUnitKeys.all });
@@ -100,7 +105,8 @@ export function useRetireUnitMutation(id: string) {
 export function useUpdateFleetSettingsMutation() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: UpdateFleetSettingsBody) => fetchJson<{ fleet: FleetSettings }>('/api/admin/fleet', { method: 'PATCH', json: body }),
+    mutationFn: (body: UpdateFleetSettingsBody) =>
+      fetchJson<{ fleet: FleetSettings }>('/api/admin/fleet', { method: 'PATCH', json: body }),
     onSuccess: ({ fleet }) => qc.setQueryData(fleetSettingsKeys.detail(), fleet),
   });
 }

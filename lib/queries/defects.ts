@@ -10,7 +10,8 @@ export const defectKeys = {
   detail: (id: string) => [...defectKeys.details(), id] as const,
 };
 
-export const defectDetailOptions = (id: string) => queryOptions({ queryKey: defectKeys.detail(id), queryFn: () => fetchJson<DefectDetail>(`/api/defects/${id}`) });
+export const defectDetailOptions = (id: string) =>
+  queryOptions({ queryKey: defectKeys.detail(id), queryFn: () => fetchJson<DefectDetail>(`/api/defects/${id}`) });
 
 export type CertifyRepairResult = {
   id: string;
@@ -26,9 +27,13 @@ export type CertifyRepairResult = {
 export function useCertifyRepairMutation(id: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: CertifyRepairBody) => fetchJson<CertifyRepairResult>(`/api/defects/${id}/certification`, { method: 'POST', json: body }),
+    mutationFn: (body: CertifyRepairBody) =>
+      fetchJson<CertifyRepairResult>(`/api/defects/${id}/certification`, { method: 'POST', json: body }),
     onSuccess: async () => {
-      await Promise.all([qc.invalidateQueries({ queryKey: defectKeys.all }), qc.invalidateQueries({ queryKey: reportKeys.all })]);
+      await Promise.all([
+        qc.invalidateQueries({ queryKey: defectKeys.all }),
+        qc.invalidateQueries({ queryKey: reportKeys.all }),
+      ]);
     },
   });
 }

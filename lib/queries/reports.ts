@@ -20,7 +20,20 @@ export function toReportSearch(params: ReportListParams): string {
   return sp.toString();
 }
 
-const listKeys = ['from', 'to', 'driverId', 'unitId', 'kind', 'hasDefects', 'short', 'status', 'page', 'pageSize', 'sort', 'dir'] as const;
+const listKeys = [
+  'from',
+  'to',
+  'driverId',
+  'unitId',
+  'kind',
+  'hasDefects',
+  'short',
+  'status',
+  'page',
+  'pageSize',
+  'sort',
+  'dir',
+] as const;
 
 /** The reports table's state is the URL's query string: shareable, and the back button works. */
 export function paramsFromSearch(sp: URLSearchParams): ReportListParams {
@@ -45,15 +58,25 @@ export const reportDetailOptions = (id: string) =>
 export function useReviewReportMutation(id: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: ReviewReportBody) => fetchJson<{ id: string; reviewedAt: string; reviewNote: string | null }>(`/api/reports/${id}/review`, { method: 'POST', json: body }),
+    mutationFn: (body: ReviewReportBody) =>
+      fetchJson<{ id: string; reviewedAt: string; reviewNote: string | null }>(`/api/reports/${id}/review`, {
+        method: 'POST',
+        json: body,
+      }),
     onSuccess: async () => {
-      await Promise.all([qc.invalidateQueries({ queryKey: reportKeys.detail(id) }), qc.invalidateQueries({ queryKey: reportKeys.lists() })]);
+      await Promise.all([
+        qc.invalidateQueries({ queryKey: reportKeys.detail(id) }),
+        qc.invalidateQueries({ queryKey: reportKeys.lists() }),
+      ]);
     },
   });
 }
 
 export function useNotifyShopMutation(id: string) {
   return useMutation({
-    mutationFn: () => fetchJson<{ sent: { unitNumber: string; kind: string; sent: boolean }[] }>(`/api/reports/${id}/notify`, { method: 'POST' }),
+    mutationFn: () =>
+      fetchJson<{ sent: { unitNumber: string; kind: string; sent: boolean }[] }>(`/api/reports/${id}/notify`, {
+        method: 'POST',
+      }),
   });
 }

@@ -49,7 +49,13 @@ const iso = (v: Date | string) => (v instanceof Date ? v : new Date(v)).toISOStr
 
 /** Steps in report order, with only the fields that make the record. */
 export function toCanonicalSteps(
-  steps: ReadonlyArray<Omit<CanonicalStep, 'deviceAt' | 'value' | 'score'> & { deviceAt: Date | string; value: number | string | null; score: number | string | null }>,
+  steps: ReadonlyArray<
+    Omit<CanonicalStep, 'deviceAt' | 'value' | 'score'> & {
+      deviceAt: Date | string;
+      value: number | string | null;
+      score: number | string | null;
+    }
+  >,
 ): CanonicalStep[] {
   return [...steps]
     .sort((a, b) => a.seq - b.seq || a.id.localeCompare(b.id))
@@ -91,12 +97,22 @@ function sortKeys(value: unknown): unknown {
 /** The one text that is hashed: keys sorted, times in ISO form, steps in order. */
 export function serializeReport(report: HeaderSource & { steps: CanonicalStep[] }): string {
   return JSON.stringify(
-    sortKeys({ ...report, startedAt: iso(report.startedAt), finishedAt: iso(report.finishedAt), signedAt: iso(report.signedAt), format: 'rigcall-report/1' }),
+    sortKeys({
+      ...report,
+      startedAt: iso(report.startedAt),
+      finishedAt: iso(report.finishedAt),
+      signedAt: iso(report.signedAt),
+      format: 'rigcall-report/1',
+    }),
   );
 }
 
 type Moment = Date | string;
-type HeaderSource = Omit<CanonicalReport, 'steps' | 'startedAt' | 'finishedAt' | 'signedAt'> & { startedAt: Moment; finishedAt: Moment; signedAt: Moment };
+type HeaderSource = Omit<CanonicalReport, 'steps' | 'startedAt' | 'finishedAt' | 'signedAt'> & {
+  startedAt: Moment;
+  finishedAt: Moment;
+  signedAt: Moment;
+};
 
 /** The header fields that make the record, from any row or object that carries them. */
 export function pickReportHeader(h: HeaderSource): HeaderSource {

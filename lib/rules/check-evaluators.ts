@@ -12,13 +12,7 @@ import {
 } from './judge-limit';
 import type { JudgeContext } from './judge-limit';
 import { normalizeChamberKey, pushrodStrokeTable } from './pushrod-stroke-table';
-import {
-  isFieldError,
-  readBoolean,
-  readChoice,
-  readNumber,
-  readOptionalNumber,
-} from './read-fields';
+import { isFieldError, readBoolean, readChoice, readNumber, readOptionalNumber } from './read-fields';
 import type { FieldError, Fields } from './read-fields';
 import { findSteeringLashRow } from './steering-lash-table';
 import type {
@@ -112,11 +106,18 @@ const evaluateTirePressure: CheckEvaluator = (fields, context) => {
   const flatBase = maxCold ?? target;
   const flatEffective = scaleEffectiveLimit(findEffectiveLimit(flatRule, context.fleet), flatBase);
   const flatContext = createContext(context, 'tire_pressure', 'psi', `Tire pressure${heatNote}`, formatPsi);
-  const flat = judgeLimit(scaleRule(flatRule, flatBase, 'pressure_psi'), value, context.fleet, flatContext, flatEffective);
+  const flat = judgeLimit(
+    scaleRule(flatRule, flatBase, 'pressure_psi'),
+    value,
+    context.fleet,
+    flatContext,
+    flatEffective,
+  );
   if (flat.verdict === 'fail') {
-    flat.message += maxCold === undefined
-      ? ' The tire counts as flat (at or below half of its target; give max_cold for the sidewall rule).'
-      : ' The tire counts as flat (at or below half of the maximum cold pressure on the sidewall).';
+    flat.message +=
+      maxCold === undefined
+        ? ' The tire counts as flat (at or below half of its target; give max_cold for the sidewall rule).'
+        : ' The tire counts as flat (at or below half of the maximum cold pressure on the sidewall).';
     return flat;
   }
 
@@ -214,7 +215,8 @@ const evaluateGovernorCutout: CheckEvaluator = (fields, context) => {
   let result = upper;
   if (upper.verdict === 'pass' && lower) {
     const nearerLower =
-      lower.verdict === 'fail' || (lower.limit !== null && upper.limit !== null && value - lower.limit < upper.limit - value);
+      lower.verdict === 'fail' ||
+      (lower.limit !== null && upper.limit !== null && value - lower.limit < upper.limit - value);
     if (nearerLower) result = lower;
   }
   result.range = range;
@@ -255,7 +257,8 @@ const evaluateAirLeak: CheckEvaluator = (fields, context) => {
         : 'single';
   const rule = findRule(context.profile, `air_leak.${mode}.${vehicles}`);
   if (isFieldError(rule)) return rule;
-  const who = vehicles === 'single' ? 'single vehicle' : vehicles === 'combination' ? 'combination' : 'three or more vehicles';
+  const who =
+    vehicles === 'single' ? 'single vehicle' : vehicles === 'combination' ? 'combination' : 'three or more vehicles';
   return judgeLimit(
     rule,
     value,
@@ -392,10 +395,17 @@ const evaluateRearImpactGuard: CheckEvaluator = (fields, context) => {
     rule,
     clearance,
     context.fleet,
-    createContext(context, 'rear_impact_guard', 'in', `Rear impact guard ground clearance (trailer built ${year})`, formatInches),
+    createContext(
+      context,
+      'rear_impact_guard',
+      'in',
+      `Rear impact guard ground clearance (trailer built ${year})`,
+      formatInches,
+    ),
   );
   if (newRule && year === 1998 && typeof builtDate !== 'string') {
-    result.message += ' A trailer built before 26 Jan 1998 falls under the older 30 in rule: give trailer_built_date to tell.';
+    result.message +=
+      ' A trailer built before 26 Jan 1998 falls under the older 30 in rule: give trailer_built_date to tell.';
   }
   return result;
 };

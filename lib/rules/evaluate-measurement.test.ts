@@ -41,14 +41,32 @@ describe('profiles', () => {
     expect(findProfile('US')?.id).toBe('us-federal');
     expect(findProfile('ca')?.id).toBe('ca-nsc13');
     expect(findProfile('ca-nsc13')?.id).toBe('ca-nsc13');
-    expect(evaluateMeasurement({ check: 'low_air_warning', value: 57 })).toMatchObject({ profile: 'us-federal', verdict: 'fail' });
-    expect(evaluateMeasurement({ check: 'low_air_warning', value: 57 }, { profile: 'ca' })).toMatchObject({ profile: 'ca-nsc13', verdict: 'pass' });
-    expect(evaluateMeasurement({ check: 'low_air_warning', value: 57, profile: 'us' }, { profile: 'ca' })).toMatchObject({ profile: 'us-federal' });
+    expect(evaluateMeasurement({ check: 'low_air_warning', value: 57 })).toMatchObject({
+      profile: 'us-federal',
+      verdict: 'fail',
+    });
+    expect(evaluateMeasurement({ check: 'low_air_warning', value: 57 }, { profile: 'ca' })).toMatchObject({
+      profile: 'ca-nsc13',
+      verdict: 'pass',
+    });
+    expect(
+      evaluateMeasurement({ check: 'low_air_warning', value: 57, profile: 'us' }, { profile: 'ca' }),
+    ).toMatchObject({ profile: 'us-federal' });
   });
   it('every check of the contract is known', () => {
-    expect([...CHECK_NAMES].sort()).toEqual(
-      ['air_buildup', 'air_leak', 'governor_cutin', 'governor_cutout', 'low_air_warning', 'pushrod_stroke', 'rear_impact_guard', 'steering_lash', 'tire_pressure', 'tread_depth', 'windshield_damage'],
-    );
+    expect([...CHECK_NAMES].sort()).toEqual([
+      'air_buildup',
+      'air_leak',
+      'governor_cutin',
+      'governor_cutout',
+      'low_air_warning',
+      'pushrod_stroke',
+      'rear_impact_guard',
+      'steering_lash',
+      'tire_pressure',
+      'tread_depth',
+      'windshield_damage',
+    ]);
   });
   it('every rule names a source and a status', () => {
     for (const rule of Object.values(usFederalProfile.rules)) {
@@ -60,8 +78,12 @@ describe('profiles', () => {
     const corrected = customizeProfile(usFederalProfile, {
       'pushrod_stroke.30': { limit: 2.125, source: { citation: '49 CFR 393.47(e) (checked)', status: 'verified' } },
     });
-    expect(evaluateMeasurement({ check: 'pushrod_stroke', chamber: '30', value: 2.125 }, { profile: corrected })).toMatchObject({ verdict: 'pass', source: '49 CFR 393.47(e) (checked)' });
-    expect(evaluateMeasurement({ check: 'pushrod_stroke', chamber: '30', value: 2.125 })).toMatchObject({ verdict: 'fail' });
+    expect(
+      evaluateMeasurement({ check: 'pushrod_stroke', chamber: '30', value: 2.125 }, { profile: corrected }),
+    ).toMatchObject({ verdict: 'pass', source: '49 CFR 393.47(e) (checked)' });
+    expect(evaluateMeasurement({ check: 'pushrod_stroke', chamber: '30', value: 2.125 })).toMatchObject({
+      verdict: 'fail',
+    });
     expect(() => customizeProfile(usFederalProfile, { 'no.such.rule': { limit: 1 } })).toThrow();
   });
   it('the verdict line carries the contract fields', () => {
@@ -69,7 +91,16 @@ describe('profiles', () => {
     expect(Object.keys(outcome)).toEqual(expect.arrayContaining(['check', 'verdict', 'severity', 'limit', 'source']));
   });
   it('a fleet object on the line is used when the caller gives none', () => {
-    expect(evaluateMeasurement({ check: 'tread_depth', position: 'drive', value: 3, fleet: { limits: { 'tread_depth.drive': 4 } } })).toMatchObject({ verdict: 'fail', limit: 4 });
-    expect(evaluateMeasurement({ check: 'tread_depth', position: 'drive', value: 3, fleet: 'strict' })).toHaveProperty('error');
+    expect(
+      evaluateMeasurement({
+        check: 'tread_depth',
+        position: 'drive',
+        value: 3,
+        fleet: { limits: { 'tread_depth.drive': 4 } },
+      }),
+    ).toMatchObject({ verdict: 'fail', limit: 4 });
+    expect(evaluateMeasurement({ check: 'tread_depth', position: 'drive', value: 3, fleet: 'strict' })).toHaveProperty(
+      'error',
+    );
   });
 });

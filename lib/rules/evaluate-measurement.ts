@@ -36,7 +36,10 @@ export function evaluateMeasurement(input: unknown, options: EvaluateOptions = {
     if (fields.profile !== undefined) {
       if (typeof fields.profile !== 'string') return { error: '"profile" must be a profile name such as "us" or "ca"' };
       profile = findProfile(fields.profile);
-      if (!profile) return { error: `unknown profile ${JSON.stringify(fields.profile.slice(0, 40))}: use "us-federal" (us) or "ca-nsc13" (ca)` };
+      if (!profile)
+        return {
+          error: `unknown profile ${JSON.stringify(fields.profile.slice(0, 40))}: use "us-federal" (us) or "ca-nsc13" (ca)`,
+        };
     } else if (typeof options.profile === 'object') {
       profile = options.profile;
     } else {

@@ -4,15 +4,29 @@ import type { VocabularyPair } from './index';
 
 const pairs: VocabularyPair[] = [
   // NSC 13 Schedule 1 Part 21: tire touching another tire = major (MTO truck handbook).
-  { componentId: 'dual-tires', conditionId: 'touching', severity: { us: 'major', ca: 'major' }, source: 'NSC 13 Schedule 1 Part 21; 49 CFR 393.75' },
+  {
+    componentId: 'dual-tires',
+    conditionId: 'touching',
+    severity: { us: 'major', ca: 'major' },
+    source: 'NSC 13 Schedule 1 Part 21; 49 CFR 393.75',
+  },
   // NSC 13 Schedule 1 Part 1: audible air leak = minor.
-  { componentId: 'air-line', conditionId: 'audible-leak', severity: { ca: 'minor' }, source: 'NSC 13 Schedule 1 Part 1' },
+  {
+    componentId: 'air-line',
+    conditionId: 'audible-leak',
+    severity: { ca: 'minor' },
+    source: 'NSC 13 Schedule 1 Part 1',
+  },
   { componentId: 'mud-flap', conditionId: 'missing' },
 ];
 
 describe('finding severity', () => {
   it('returns the mapped severity for the profile', () => {
-    expect(getFindingSeverity(pairs[0]!, 'us')).toEqual({ severity: 'major', unclassified: false, source: 'NSC 13 Schedule 1 Part 21; 49 CFR 393.75' });
+    expect(getFindingSeverity(pairs[0]!, 'us')).toEqual({
+      severity: 'major',
+      unclassified: false,
+      source: 'NSC 13 Schedule 1 Part 21; 49 CFR 393.75',
+    });
     expect(getFindingSeverity(pairs[1]!, 'ca-nsc13')).toMatchObject({ severity: 'minor', unclassified: false });
     expect(getFindingSeverity(pairs[1]!, caNsc13Profile)).toMatchObject({ severity: 'minor' });
   });

@@ -25,12 +25,7 @@ export function formatSource(source: Source): string {
 }
 
 /** Whether `value` meets a limit of the given direction. */
-export function meetsLimit(
-  value: number,
-  limit: number,
-  direction: LimitDirection,
-  inclusive: boolean,
-): boolean {
+export function meetsLimit(value: number, limit: number, direction: LimitDirection, inclusive: boolean): boolean {
   if (direction === 'min') return inclusive ? value >= limit - EPSILON : value > limit + EPSILON;
   return inclusive ? value <= limit + EPSILON : value < limit - EPSILON;
 }
@@ -91,13 +86,7 @@ export function judgeLimit(
   const shown = context.formatValue(value);
   const limitShown = context.formatValue(effective.limit);
   const word =
-    rule.direction === 'min'
-      ? effective.inclusive
-        ? 'at least'
-        : 'above'
-      : effective.inclusive
-        ? 'at most'
-        : 'below';
+    rule.direction === 'min' ? (effective.inclusive ? 'at least' : 'above') : effective.inclusive ? 'at most' : 'below';
   const fleetWords = effective.tightened ? ' (fleet limit, stricter than the published one)' : '';
 
   let advisory: string | null = null;
@@ -107,10 +96,7 @@ export function judgeLimit(
 
   if (passes) {
     if (rule.outOfService) oos = false;
-    if (
-      rule.advisory &&
-      !meetsLimit(value, rule.advisory.limit, rule.direction, rule.advisory.inclusive)
-    ) {
+    if (rule.advisory && !meetsLimit(value, rule.advisory.limit, rule.direction, rule.advisory.inclusive)) {
       advisory = rule.advisory.message;
       level = 'advisory';
     }

@@ -71,7 +71,10 @@ export const pushrodStrokeTable: readonly PushrodStrokeRow[] = [
  * A chamber with no long-stroke marking is treated as standard.
  */
 export function normalizeChamberKey(raw: string): string | null {
-  let text = raw.toUpperCase().replace(/TYPE/g, '').replace(/LONG\s*STROKE/g, 'L');
+  let text = raw
+    .toUpperCase()
+    .replace(/TYPE/g, '')
+    .replace(/LONG\s*STROKE/g, 'L');
   text = text.replace(/[\s\-_.]/g, '');
   if (/^DD3(30)?$/.test(text)) return 'DD3-30';
   const match = /^(\d{1,2})(LS?)?(3(IN)?|3INCH)?$/.exec(text);

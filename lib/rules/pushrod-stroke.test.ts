@@ -39,7 +39,10 @@ describe('pushrod stroke, 49 CFR 393.47(e) table', () => {
   });
 
   it.each(rows)('type %s: Canadian profile uses the same limit, major (NSC 13 Schedule 1 Part 1)', (chamber, limit) => {
-    expect(judge({ check: 'pushrod_stroke', chamber, value: limit, profile: 'ca' })).toMatchObject({ verdict: 'pass', limit });
+    expect(judge({ check: 'pushrod_stroke', chamber, value: limit, profile: 'ca' })).toMatchObject({
+      verdict: 'pass',
+      limit,
+    });
     const over = judge({ check: 'pushrod_stroke', chamber, value: limit + 1 / 8, profile: 'ca' });
     expect(over).toMatchObject({ verdict: 'fail', severity: 'major', source_status: 'from-memory' });
     expect(over.source).toMatch(/NSC 13 Schedule 1 Part 1/);
@@ -50,12 +53,18 @@ describe('pushrod stroke, 49 CFR 393.47(e) table', () => {
     const standard = judge({ check: 'pushrod_stroke', chamber: '30', value: 2.125 });
     expect(standard).toMatchObject({ verdict: 'fail', severity: 'major', limit: 2 });
     expect(standard.message).toContain('2-1/8 in');
-    expect(judge({ check: 'pushrod_stroke', chamber: '30LS', value: 2.125 })).toMatchObject({ verdict: 'pass', limit: 2.5 });
+    expect(judge({ check: 'pushrod_stroke', chamber: '30LS', value: 2.125 })).toMatchObject({
+      verdict: 'pass',
+      limit: 2.5,
+    });
   });
 
   // Manitoba Driving Commercial Vehicles manual: adjust a type 30 when applied stroke is over 1-3/4 in (not a legal limit).
   it('type 30 over 1-3/4 in passes with "adjust soon"', () => {
-    expect(judge({ check: 'pushrod_stroke', chamber: '30', value: 1.75 })).toMatchObject({ level: 'pass', advisory: null });
+    expect(judge({ check: 'pushrod_stroke', chamber: '30', value: 1.75 })).toMatchObject({
+      level: 'pass',
+      advisory: null,
+    });
     const soon = judge({ check: 'pushrod_stroke', chamber: '30', value: 1.875 });
     expect(soon).toMatchObject({ verdict: 'pass', severity: null, level: 'advisory' });
     expect(soon.advisory).toMatch(/adjust soon/);
@@ -84,6 +93,10 @@ describe('pushrod stroke, 49 CFR 393.47(e) table', () => {
 
   it('a fleet may tighten a chamber limit', () => {
     const fleet = { limits: { 'pushrod_stroke.30': 1.875 } };
-    expect(judge({ check: 'pushrod_stroke', chamber: '30', value: 1.9 }, { fleet })).toMatchObject({ verdict: 'fail', limit: 1.875, fleet_tightened: true });
+    expect(judge({ check: 'pushrod_stroke', chamber: '30', value: 1.9 }, { fleet })).toMatchObject({
+      verdict: 'fail',
+      limit: 1.875,
+      fleet_tightened: true,
+    });
   });
 });

@@ -73,7 +73,8 @@ export function readChoice<T extends string>(
   if (value === undefined || value === null) {
     return fallback ?? { error: `missing field "${name}" (one of ${choices.join(', ')})` };
   }
-  if (typeof value !== 'string') return { error: `"${name}" must be one of ${choices.join(', ')}, got ${describe(value)}` };
+  if (typeof value !== 'string')
+    return { error: `"${name}" must be one of ${choices.join(', ')}, got ${describe(value)}` };
   const found = choices.find((choice) => choice === value.trim().toLowerCase());
   return found ?? { error: `"${name}" must be one of ${choices.join(', ')}, got ${describe(value)}` };
 }

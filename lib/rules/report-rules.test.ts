@@ -22,7 +22,11 @@ describe('unit out of service', () => {
     expect(getUnitServiceStatus('T1', defects)).toMatchObject({ outOfService: true });
     expect(getUnitServiceStatus('T1', defects).openMinor.map((d) => d.id)).toEqual(['d2']);
     expect(getUnitServiceStatus('TR9', defects).outOfService).toBe(false);
-    expect(getUnitServiceStatus('T1', [{ id: 'd1', unitId: 'T1', severity: 'major', repair: { outcome: 'repair_unnecessary', certifiedAt: 0 } }]).outOfService).toBe(false);
+    expect(
+      getUnitServiceStatus('T1', [
+        { id: 'd1', unitId: 'T1', severity: 'major', repair: { outcome: 'repair_unnecessary', certifiedAt: 0 } },
+      ]).outOfService,
+    ).toBe(false);
     expect(getUnitServiceStatus('T1', [{ id: 'd2', unitId: 'T1', severity: 'minor' }]).outOfService).toBe(false);
   });
 });
@@ -31,10 +35,14 @@ describe('inspection completeness', () => {
   it('is complete only when every zone was visited and every required item answered', () => {
     const zones = [
       { id: 'front', visited: true, items: [{ id: 'headlamps', required: true, answer: 'ok' as const }] },
-      { id: 'coupling', visited: true, items: [
-        { id: 'jaws', required: true, answer: null },
-        { id: 'extra', required: false, answer: null },
-      ] },
+      {
+        id: 'coupling',
+        visited: true,
+        items: [
+          { id: 'jaws', required: true, answer: null },
+          { id: 'extra', required: false, answer: null },
+        ],
+      },
       { id: 'rear', visited: false, items: [] },
     ];
     expect(checkInspectionCompleteness(zones)).toEqual({
@@ -42,7 +50,11 @@ describe('inspection completeness', () => {
       unvisitedZones: ['rear'],
       unansweredItems: [{ zoneId: 'coupling', itemId: 'jaws' }],
     });
-    const done = zones.map((zone) => ({ ...zone, visited: true, items: zone.items.map((item) => (item.required ? { ...item, answer: 'defect' as const } : item)) }));
+    const done = zones.map((zone) => ({
+      ...zone,
+      visited: true,
+      items: zone.items.map((item) => (item.required ? { ...item, answer: 'defect' as const } : item)),
+    }));
     expect(checkInspectionCompleteness(done).complete).toBe(true);
   });
 });
@@ -55,8 +67,13 @@ describe('inspection duration', () => {
     expect(checkInspectionDuration(start, '2026-03-02T05:14:59Z')).toMatchObject({ short: true, minimumMinutes: 15 });
     expect(checkInspectionDuration(start, '2026-03-02T05:15:00Z')).toMatchObject({ short: false, minutes: 15 });
     expect(checkInspectionDuration(start, '2026-03-02T05:15:00Z').source).toMatch(/common practice/);
-    expect(checkInspectionDuration(start, '2026-03-02T05:18:00Z', { minimumPretripMinutes: 20 })).toMatchObject({ short: true, minimumMinutes: 20 });
-    expect(checkInspectionDuration(Date.parse(start), new Date('2026-03-02T05:25:00Z'), { minimumPretripMinutes: 20 }).short).toBe(false);
+    expect(checkInspectionDuration(start, '2026-03-02T05:18:00Z', { minimumPretripMinutes: 20 })).toMatchObject({
+      short: true,
+      minimumMinutes: 20,
+    });
+    expect(
+      checkInspectionDuration(Date.parse(start), new Date('2026-03-02T05:25:00Z'), { minimumPretripMinutes: 20 }).short,
+    ).toBe(false);
   });
 });
 

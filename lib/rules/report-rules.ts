@@ -40,7 +40,11 @@ export type UnitServiceStatus = {
 export function getUnitServiceStatus(unitId: string, defects: readonly DefectRecord[]): UnitServiceStatus {
   const open = defects.filter((defect) => defect.unitId === unitId && isDefectOpen(defect));
   const openMajor = open.filter((defect) => defect.severity === 'major');
-  return { outOfService: openMajor.length > 0, openMajor, openMinor: open.filter((defect) => defect.severity === 'minor') };
+  return {
+    outOfService: openMajor.length > 0,
+    openMajor,
+    openMinor: open.filter((defect) => defect.severity === 'minor'),
+  };
 }
 
 export type ChecklistItemState = {
@@ -63,7 +67,9 @@ export type InspectionCompleteness = {
 export function checkInspectionCompleteness(zones: readonly ZoneState[]): InspectionCompleteness {
   const unvisitedZones = zones.filter((zone) => !zone.visited).map((zone) => zone.id);
   const unansweredItems = zones.flatMap((zone) =>
-    zone.items.filter((item) => item.required && item.answer === null).map((item) => ({ zoneId: zone.id, itemId: item.id })),
+    zone.items
+      .filter((item) => item.required && item.answer === null)
+      .map((item) => ({ zoneId: zone.id, itemId: item.id })),
   );
   return { complete: unvisitedZones.length === 0 && unansweredItems.length === 0, unvisitedZones, unansweredItems };
 }

@@ -62,8 +62,7 @@ function buildPushrodRules(jurisdiction: Jurisdiction): Rule[] {
 
 function buildSteeringRules(jurisdiction: Jurisdiction): Rule[] {
   const rules: Rule[] = [];
-  const caCitation =
-    'NSC 13 Schedule 1 Part 19 (lash over the prescribed limit: major); limits of 49 CFR 393.209(b)';
+  const caCitation = 'NSC 13 Schedule 1 Part 19 (lash over the prescribed limit: major); limits of 49 CFR 393.209(b)';
   for (const steering of ['manual', 'power'] as const) {
     for (const row of steeringLashTable) {
       const limit = steering === 'manual' ? row.manualIn : row.powerIn;
@@ -100,8 +99,7 @@ function buildSteeringRules(jurisdiction: Jurisdiction): Rule[] {
       direction: 'max',
       inclusive: true,
       severity: 'major',
-      source:
-        jurisdiction === 'us' ? cite('49 CFR 393.209(b)(2)', 'from-memory') : cite(caCitation, 'from-memory'),
+      source: jurisdiction === 'us' ? cite('49 CFR 393.209(b)(2)', 'from-memory') : cite(caCitation, 'from-memory'),
       description: `Steering lash with ${steering} steering, wheel diameter not in the table: limit is an angle of wheel rotation.`,
       advisory: {
         limit: RULE_OF_THUMB_DEGREES,
@@ -141,27 +139,23 @@ function buildTreadRules(jurisdiction: Jurisdiction): Rule[] {
         source: cite(CVSA_OOS, 'from-memory'),
       },
     },
-    ...(['drive', 'trailer'] as const).map(
-      (position): Rule => ({
-        id: `tread_depth.${position}`,
-        check: 'tread_depth',
-        measurement: 'tread_depth_32nds',
-        limit: 2,
-        direction: 'min',
+    ...(['drive', 'trailer'] as const).map((position): Rule => ({
+      id: `tread_depth.${position}`,
+      check: 'tread_depth',
+      measurement: 'tread_depth_32nds',
+      limit: 2,
+      direction: 'min',
+      inclusive: true,
+      severity: 'major',
+      source: us ? cite('49 CFR 393.75(c)', 'verified') : cite(`${caCitation}; 2/32 in on other tires`, 'from-memory'),
+      description: `${position === 'drive' ? 'Drive' : 'Trailer'} tire tread must be at least 2/32 in in a major groove.`,
+      outOfService: {
+        limit: 1,
         inclusive: true,
-        severity: 'major',
-        source: us
-          ? cite('49 CFR 393.75(c)', 'verified')
-          : cite(`${caCitation}; 2/32 in on other tires`, 'from-memory'),
-        description: `${position === 'drive' ? 'Drive' : 'Trailer'} tire tread must be at least 2/32 in in a major groove.`,
-        outOfService: {
-          limit: 1,
-          inclusive: true,
-          message: 'Roadside out-of-service: under 1/32 in in two adjacent major grooves',
-          source: cite(CVSA_OOS, 'from-memory'),
-        },
-      }),
-    ),
+        message: 'Roadside out-of-service: under 1/32 in in two adjacent major grooves',
+        source: cite(CVSA_OOS, 'from-memory'),
+      },
+    })),
   ];
 }
 
@@ -196,7 +190,10 @@ function buildTirePressureRules(jurisdiction: Jurisdiction): Rule[] {
       inclusive: true,
       severity: 'minor',
       source: us
-        ? cite("unit's cold-pressure target; 49 CFR 393.75(h)(1) requires at least the load's table pressure", 'verified')
+        ? cite(
+            "unit's cold-pressure target; 49 CFR 393.75(h)(1) requires at least the load's table pressure",
+            'verified',
+          )
         : cite("unit's cold-pressure target (fleet setting)", 'common-practice'),
       description: "Cold pressure must be at least the unit's target.",
     },
@@ -246,8 +243,14 @@ function buildAirRules(jurisdiction: Jurisdiction): Rule[] {
       inclusive: true,
       severity: 'minor',
       source: us
-        ? cite(`${CDL_AIR_BRAKE} (dual system, operating rpm; larger tanks may take longer, check the maker's spec)`, 'verified')
-        : cite('MTO Official Air Brake Handbook §10.3 (600–900 rpm); NSC 13 Schedule 1 Part 1 (slow build-up: minor)', 'verified'),
+        ? cite(
+            `${CDL_AIR_BRAKE} (dual system, operating rpm; larger tanks may take longer, check the maker's spec)`,
+            'verified',
+          )
+        : cite(
+            'MTO Official Air Brake Handbook §10.3 (600–900 rpm); NSC 13 Schedule 1 Part 1 (slow build-up: minor)',
+            'verified',
+          ),
       description: us
         ? 'A dual air system should build from 85 to 100 psi within 45 seconds.'
         : 'At 600–900 rpm, pressure should build from 85 to 100 psi within 2 minutes.',
@@ -276,7 +279,10 @@ function buildAirRules(jurisdiction: Jurisdiction): Rule[] {
       inclusive: true,
       severity: 'minor',
       source: us
-        ? cite(`${COMMON_PRACTICE} (CDL manual §5.3: cut-out about 125 psi, check the maker's spec; ±10 psi band)`, 'common-practice')
+        ? cite(
+            `${COMMON_PRACTICE} (CDL manual §5.3: cut-out about 125 psi, check the maker's spec; ±10 psi band)`,
+            'common-practice',
+          )
         : cite(`${mtoTruck}: cut-out never above 145 psi (1000 kPa)`, 'verified'),
       description: us
         ? 'Governor cut-out should be about 125 psi (check the maker\u2019s spec).'
@@ -290,7 +296,10 @@ function buildAirRules(jurisdiction: Jurisdiction): Rule[] {
       direction: 'min',
       inclusive: true,
       severity: 'minor',
-      source: cite(`${COMMON_PRACTICE} (CDL manual §5.3: cut-out about 125 psi, check the maker's spec; ±10 psi band)`, 'common-practice'),
+      source: cite(
+        `${COMMON_PRACTICE} (CDL manual §5.3: cut-out about 125 psi, check the maker's spec; ±10 psi band)`,
+        'common-practice',
+      ),
       description: 'Governor cut-out should be about 125 psi (check the maker\u2019s spec).',
     },
     us
@@ -302,7 +311,10 @@ function buildAirRules(jurisdiction: Jurisdiction): Rule[] {
           direction: 'min',
           inclusive: true,
           severity: 'minor',
-          source: cite('FMVSS 121 as amended by 61 FR 6173 (1996), vehicles built since 1 Mar 1997; CDL manual §5.3 (about 100 psi)', 'verified'),
+          source: cite(
+            'FMVSS 121 as amended by 61 FR 6173 (1996), vehicles built since 1 Mar 1997; CDL manual §5.3 (about 100 psi)',
+            'verified',
+          ),
           description: 'The compressor must cut in before pressure falls below 100 psi.',
         }
       : {
@@ -318,7 +330,8 @@ function buildAirRules(jurisdiction: Jurisdiction): Rule[] {
           advisory: {
             limit: 100,
             inclusive: true,
-            message: 'Cut-in below 100 psi: newer vehicles built to the 121 standard cut in at 100 psi or more, check the maker\u2019s spec',
+            message:
+              'Cut-in below 100 psi: newer vehicles built to the 121 standard cut in at 100 psi or more, check the maker\u2019s spec',
             source: cite('FMVSS/CMVSS 121 cut-in of 100 psi, applied in the Canadian profile', 'from-memory'),
           },
         },
@@ -361,7 +374,12 @@ function buildAirRules(jurisdiction: Jurisdiction): Rule[] {
       leak('released', 'combination', 3, cite(`${nsc}; CDL manual static leakage values`, 'from-memory')),
       leak('released', 'multiple', 5, cite(`${nsc}; static leakage value for three or more vehicles`, 'from-memory')),
       leak('applied', 'single', 3, cite(`${mtoTruck}: over 3 psi (21 kPa), single vehicle; ${nsc}`, 'verified')),
-      leak('applied', 'combination', 4, cite(`${mtoTruck}: over 4 psi (28 kPa), tractor and trailer; ${nsc}`, 'verified')),
+      leak(
+        'applied',
+        'combination',
+        4,
+        cite(`${mtoTruck}: over 4 psi (28 kPa), tractor and trailer; ${nsc}`, 'verified'),
+      ),
       leak('applied', 'multiple', 6, cite(`${nsc}; about 6 psi (41 kPa) with two or more trailers`, 'from-memory')),
     );
   }
@@ -372,7 +390,10 @@ function buildWindshieldRules(jurisdiction: Jurisdiction): Rule[] {
   const us = jurisdiction === 'us';
   const severity = us ? 'major' : 'minor';
   const ca = (part: string) =>
-    cite(`NSC 13 Schedule 1 Part 14 (glass: minor); ${part} of 49 CFR 393.60(c) applied in the Canadian profile`, 'from-memory');
+    cite(
+      `NSC 13 Schedule 1 Part 14 (glass: minor); ${part} of 49 CFR 393.60(c) applied in the Canadian profile`,
+      'from-memory',
+    );
   return [
     {
       id: 'windshield_damage.spot_diameter',
@@ -498,7 +519,9 @@ export function findProfile(name: string | undefined): RuleProfile | undefined {
   return ruleProfiles.find((profile) => profile.id === key || profile.aliases.includes(key));
 }
 
-export type RuleCorrection = Partial<Pick<Rule, 'limit' | 'inclusive' | 'severity' | 'source' | 'advisory' | 'outOfService'>>;
+export type RuleCorrection = Partial<
+  Pick<Rule, 'limit' | 'inclusive' | 'severity' | 'source' | 'advisory' | 'outOfService'>
+>;
 
 /**
  * A copy of a profile with some rules corrected: the way to fix a `from-memory` value once it has

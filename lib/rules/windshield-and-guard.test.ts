@@ -24,7 +24,12 @@ describe('windshield damage, 49 CFR 393.60(c)', () => {
     expect(spot(0.625, null)).toMatchObject({ verdict: 'pass', limit: 0.75, source: '49 CFR 393.60(c)(3)' });
   });
   it('worked example: two 5/8 in chips 2 in apart fail', () => {
-    expect(spot(0.625, 2)).toMatchObject({ verdict: 'fail', severity: 'major', limit: 3, rule: 'us-federal/windshield_damage.spot_separation' });
+    expect(spot(0.625, 2)).toMatchObject({
+      verdict: 'fail',
+      severity: 'major',
+      limit: 3,
+      rule: 'us-federal/windshield_damage.spot_separation',
+    });
   });
   it('disc boundary: 3/4 in passes, just over fails', () => {
     expect(spot(0.75, null).verdict).toBe('pass');
@@ -37,7 +42,10 @@ describe('windshield damage, 49 CFR 393.60(c)', () => {
   // 49 CFR 393.60(c)(2): a single crack not intersected by any other crack.
   it('worked example: two cracks that cross in the protected area fail', () => {
     expect(spot(0, null, { crack_intersections: 0 }).verdict).toBe('pass');
-    expect(spot(0, null, { crack_intersections: 1 })).toMatchObject({ verdict: 'fail', rule: 'us-federal/windshield_damage.crack_intersections' });
+    expect(spot(0, null, { crack_intersections: 1 })).toMatchObject({
+      verdict: 'fail',
+      rule: 'us-federal/windshield_damage.crack_intersections',
+    });
   });
   // 49 CFR 393.60(c)(2) crack width 1/4 in: [M] from memory.
   it('crack width: 1/4 in passes, wider fails (from memory)', () => {
@@ -46,7 +54,9 @@ describe('windshield damage, 49 CFR 393.60(c)', () => {
   });
   // NSC 13 Schedule 1 Part 14: glass damage is a minor defect (no major listed).
   it('Canadian profile: the same damage is a minor defect', () => {
-    expect(judge({ check: 'windshield_damage', diameter: 1, in_critical_area: true, nearest_other: null, profile: 'ca' })).toMatchObject({ verdict: 'fail', severity: 'minor' });
+    expect(
+      judge({ check: 'windshield_damage', diameter: 1, in_critical_area: true, nearest_other: null, profile: 'ca' }),
+    ).toMatchObject({ verdict: 'fail', severity: 'minor' });
   });
 });
 
@@ -75,6 +85,10 @@ describe('rear impact guard, 49 CFR 393.86', () => {
     expect(guard(25, 1998, { trailer_built_date: '1998-01-26' })).toMatchObject({ verdict: 'fail', limit: 22 });
   });
   it('Canadian profile applies the same values, marked from memory', () => {
-    expect(guard(23, 2005, { profile: 'ca' })).toMatchObject({ verdict: 'fail', severity: 'major', source_status: 'from-memory' });
+    expect(guard(23, 2005, { profile: 'ca' })).toMatchObject({
+      verdict: 'fail',
+      severity: 'major',
+      source_status: 'from-memory',
+    });
   });
 });

@@ -20,7 +20,10 @@ export const certifyRepairBodySchema = z
     certifiedName: z.string().trim().min(2, 'type your full name to sign').max(120),
     confirm: z.literal(true, { message: 'tick the certification statement to sign it' }),
   })
-  .refine((b) => b.outcome === 'no_repair_needed' || b.work.length >= 3, { path: ['work'], message: 'describe the work done' })
+  .refine((b) => b.outcome === 'no_repair_needed' || b.work.length >= 3, {
+    path: ['work'],
+    message: 'describe the work done',
+  })
   .refine((b) => b.outcome === 'repaired' || b.notes.length >= 3 || b.work.length >= 3, {
     path: ['notes'],
     message: 'say why no repair is needed (what you checked)',

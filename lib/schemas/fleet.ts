@@ -18,15 +18,25 @@ const minutes = (what: string) =>
   z
     .int(`Enter the minimum ${what} time as whole minutes.`)
     .min(inspectionMinuteBounds.min, 'Minutes cannot be negative.')
-    .max(inspectionMinuteBounds.max, `Keep the minimum ${what} time at ${inspectionMinuteBounds.max} minutes (4 hours) or less.`);
+    .max(
+      inspectionMinuteBounds.max,
+      `Keep the minimum ${what} time at ${inspectionMinuteBounds.max} minutes (4 hours) or less.`,
+    );
 
 const psi = (axle: string) =>
   z
     .int(`Enter the ${axle} target as whole psi.`)
     .min(tirePressureBounds.min, `A ${axle} target below ${tirePressureBounds.min} psi is not a truck tire pressure.`)
-    .max(tirePressureBounds.max, `A ${axle} target above ${tirePressureBounds.max} psi is more than truck tires are built for.`);
+    .max(
+      tirePressureBounds.max,
+      `A ${axle} target above ${tirePressureBounds.max} psi is more than truck tires are built for.`,
+    );
 
-export const tirePressureTargetsSchema = z.object({ steer: psi('steer'), drive: psi('drive'), trailer: psi('trailer') });
+export const tirePressureTargetsSchema = z.object({
+  steer: psi('steer'),
+  drive: psi('drive'),
+  trailer: psi('trailer'),
+});
 export type TirePressureTargets = z.infer<typeof tirePressureTargetsSchema>;
 
 export const updateFleetSettingsBodySchema = z
@@ -38,7 +48,9 @@ export const updateFleetSettingsBodySchema = z
     maintenanceEmail: optionalEmailSchema,
     supervisorEmail: optionalEmailSchema,
   })
-  .refine((b) => Object.values(b).some((v) => v !== undefined), { message: 'Nothing to change: send at least one setting.' });
+  .refine((b) => Object.values(b).some((v) => v !== undefined), {
+    message: 'Nothing to change: send at least one setting.',
+  });
 export type UpdateFleetSettingsBody = z.input<typeof updateFleetSettingsBodySchema>;
 
 export const fleetSettingsSchema = z.object({

@@ -41,7 +41,11 @@ export type MeasureKind = z.infer<typeof measureKindSchema>;
 export const unitSchema = z.enum(['32nds', 'psi', 's', 'min', 'in', 'count']);
 export type Unit = z.infer<typeof unitSchema>;
 
-export const vocabularySystemSchema = z.object({ id: idSchema, name: z.string().min(1), nscPart: z.string().optional() });
+export const vocabularySystemSchema = z.object({
+  id: idSchema,
+  name: z.string().min(1),
+  nscPart: z.string().optional(),
+});
 
 export const vocabularyConditionSchema = z.object({
   id: idSchema,
@@ -74,7 +78,18 @@ export type Vocabulary = z.infer<typeof vocabularySchema>;
 export type VocabularyComponent = z.infer<typeof vocabularyComponentSchema>;
 export type VocabularyCondition = z.infer<typeof vocabularyConditionSchema>;
 
-export const commandIdSchema = z.enum(['next', 'previous', 'repeat', 'ok', 'undo', 'photo', 'pause', 'finish', 'yes', 'no']);
+export const commandIdSchema = z.enum([
+  'next',
+  'previous',
+  'repeat',
+  'ok',
+  'undo',
+  'photo',
+  'pause',
+  'finish',
+  'yes',
+  'no',
+]);
 export type CommandId = z.infer<typeof commandIdSchema>;
 
 export const commandsSchema = z.object({
@@ -88,9 +103,7 @@ export type Commands = z.infer<typeof commandsSchema>;
 
 export const positionsSchema = z.object({
   version: versionSchema,
-  positions: z
-    .array(z.object({ id: idSchema, group: idSchema, phrases: z.array(phraseSchema).min(1) }))
-    .min(1),
+  positions: z.array(z.object({ id: idSchema, group: idSchema, phrases: z.array(phraseSchema).min(1) })).min(1),
   axleWords: z.array(z.string().min(1)),
   ordinals: z.record(z.string(), z.number().int().positive()),
 });

@@ -17,7 +17,11 @@ export const startInspectionBodySchema = z.object({
   kind: z.enum(inspectionKinds, { error: 'Choose pre-trip or post-trip.' }),
   tractorId: idSchema,
   trailerId: idSchema.nullable(),
-  odometer: z.int('Enter the odometer in whole miles or kilometres.').min(0, 'The odometer cannot be negative.').max(9_999_999, 'That odometer reading is too large.').nullable(),
+  odometer: z
+    .int('Enter the odometer in whole miles or kilometres.')
+    .min(0, 'The odometer cannot be negative.')
+    .max(9_999_999, 'That odometer reading is too large.')
+    .nullable(),
   location: optionalText(200, 'The location'),
   billOfLading: optionalText(60, 'The bill of lading number'),
   sealNumber: optionalText(40, 'The seal number'),
@@ -51,7 +55,11 @@ export const recordStepBodySchema = z
     /** The number read off the gauge, and any extra fields the check needs. */
     reading: z
       .object({
-        value: z.number({ error: 'The reading must be a number.' }).finite().min(0, 'A reading cannot be negative.').max(100_000),
+        value: z
+          .number({ error: 'The reading must be a number.' })
+          .finite()
+          .min(0, 'A reading cannot be negative.')
+          .max(100_000),
         wheelDiameter: z.number().positive().max(30).optional(),
         power: z.boolean().optional(),
         chamber: z.string().max(12).optional(),
@@ -61,10 +69,22 @@ export const recordStepBodySchema = z
     deviceAt: deviceTime,
   })
   .superRefine((s, ctx) => {
-    if (s.kind === 'defect' && !s.termKey) ctx.addIssue({ code: 'custom', path: ['termKey'], message: 'A defect needs the component and condition it is about.' });
-    if (s.kind === 'measurement' && (!s.reading || !s.item)) ctx.addIssue({ code: 'custom', path: ['reading'], message: 'A measurement needs the checklist item and the reading.' });
-    if (s.kind === 'undo' && !s.undoesStepId) ctx.addIssue({ code: 'custom', path: ['undoesStepId'], message: 'An undo names the step it takes back.' });
-    if (s.kind === 'ok' && !s.item) ctx.addIssue({ code: 'custom', path: ['item'], message: 'An OK names the checklist item.' });
+    if (s.kind === 'defect' && !s.termKey)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['termKey'],
+        message: 'A defect needs the component and condition it is about.',
+      });
+    if (s.kind === 'measurement' && (!s.reading || !s.item))
+      ctx.addIssue({
+        code: 'custom',
+        path: ['reading'],
+        message: 'A measurement needs the checklist item and the reading.',
+      });
+    if (s.kind === 'undo' && !s.undoesStepId)
+      ctx.addIssue({ code: 'custom', path: ['undoesStepId'], message: 'An undo names the step it takes back.' });
+    if (s.kind === 'ok' && !s.item)
+      ctx.addIssue({ code: 'custom', path: ['item'], message: 'An OK names the checklist item.' });
   });
 export type RecordStepBody = z.input<typeof recordStepBodySchema>;
 

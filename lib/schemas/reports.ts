@@ -67,6 +67,11 @@ export type ReviewReportBody = z.infer<typeof reviewReportBodySchema>;
 export const pendingAcknowledgementsQuerySchema = z.object({
   units: z
     .string()
-    .transform((s) => s.split(',').map((x) => x.trim()).filter(Boolean))
+    .transform((s) =>
+      s
+        .split(',')
+        .map((x) => x.trim())
+        .filter(Boolean),
+    )
     .pipe(z.array(idSchema).min(1, 'name at least one unit').max(10)),
 });

@@ -8,7 +8,23 @@ export const axlePositions = ['steer', 'drive', 'trailer'] as const;
 export type AxlePosition = (typeof axlePositions)[number];
 
 /** Clamp-type air brake chamber types, as stamped on the chamber (L = long stroke). */
-export const brakeChamberTypes = ['6', '9', '12', '12L', '16', '16L', '20', '20L', '24', '24L', '24L3', '30', '30L', '36', 'DD3-30'] as const;
+export const brakeChamberTypes = [
+  '6',
+  '9',
+  '12',
+  '12L',
+  '16',
+  '16L',
+  '20',
+  '20L',
+  '24',
+  '24L',
+  '24L3',
+  '30',
+  '30L',
+  '36',
+  'DD3-30',
+] as const;
 export type BrakeChamberType = (typeof brakeChamberTypes)[number];
 
 /** Bounds for a cold-inflation target: common practice for truck tires, no published source. */
@@ -16,18 +32,99 @@ export const coldPsiBounds = { min: 50, max: 150 } as const;
 
 /** US states and DC, then Canadian provinces and territories. */
 export const plateJurisdictions = [
-  'AL', 'AK', 'AZ', 'AR', 'CA', 'CO', 'CT', 'DE', 'DC', 'FL', 'GA', 'HI', 'ID', 'IL', 'IN', 'IA', 'KS', 'KY', 'LA',
-  'ME', 'MD', 'MA', 'MI', 'MN', 'MS', 'MO', 'MT', 'NE', 'NV', 'NH', 'NJ', 'NM', 'NY', 'NC', 'ND', 'OH', 'OK', 'OR',
-  'PA', 'RI', 'SC', 'SD', 'TN', 'TX', 'UT', 'VT', 'VA', 'WA', 'WV', 'WI', 'WY',
-  'AB', 'BC', 'MB', 'NB', 'NL', 'NS', 'NT', 'NU', 'ON', 'PE', 'QC', 'SK', 'YT',
+  'AL',
+  'AK',
+  'AZ',
+  'AR',
+  'CA',
+  'CO',
+  'CT',
+  'DE',
+  'DC',
+  'FL',
+  'GA',
+  'HI',
+  'ID',
+  'IL',
+  'IN',
+  'IA',
+  'KS',
+  'KY',
+  'LA',
+  'ME',
+  'MD',
+  'MA',
+  'MI',
+  'MN',
+  'MS',
+  'MO',
+  'MT',
+  'NE',
+  'NV',
+  'NH',
+  'NJ',
+  'NM',
+  'NY',
+  'NC',
+  'ND',
+  'OH',
+  'OK',
+  'OR',
+  'PA',
+  'RI',
+  'SC',
+  'SD',
+  'TN',
+  'TX',
+  'UT',
+  'VT',
+  'VA',
+  'WA',
+  'WV',
+  'WI',
+  'WY',
+  'AB',
+  'BC',
+  'MB',
+  'NB',
+  'NL',
+  'NS',
+  'NT',
+  'NU',
+  'ON',
+  'PE',
+  'QC',
+  'SK',
+  'YT',
 ] as const;
 
 const maxYear = new Date().getFullYear() + 2;
 
 // VIN check digit: transliteration and position weights of 49 CFR 565.15.
 const vinValue: Record<string, number> = {
-  A: 1, B: 2, C: 3, D: 4, E: 5, F: 6, G: 7, H: 8, J: 1, K: 2, L: 3, M: 4, N: 5, P: 7, R: 9,
-  S: 2, T: 3, U: 4, V: 5, W: 6, X: 7, Y: 8, Z: 9,
+  A: 1,
+  B: 2,
+  C: 3,
+  D: 4,
+  E: 5,
+  F: 6,
+  G: 7,
+  H: 8,
+  J: 1,
+  K: 2,
+  L: 3,
+  M: 4,
+  N: 5,
+  P: 7,
+  R: 9,
+  S: 2,
+  T: 3,
+  U: 4,
+  V: 5,
+  W: 6,
+  X: 7,
+  Y: 8,
+  Z: 9,
 };
 const vinWeights = [8, 7, 6, 5, 4, 3, 2, 10, 0, 9, 8, 7, 6, 5, 4, 3, 2];
 
@@ -46,9 +143,11 @@ export function computeVinCheckDigit(vin: string): string {
 /** What is wrong with a VIN, in words, or null when it is well formed. */
 export function findVinProblem(vin: string): string | null {
   if (vin.length !== 17) return `A VIN has 17 characters; this one has ${vin.length}.`;
-  if (/[IOQ]/.test(vin)) return 'A VIN never uses the letters I, O or Q (they read like 1 and 0). Check those characters.';
+  if (/[IOQ]/.test(vin))
+    return 'A VIN never uses the letters I, O or Q (they read like 1 and 0). Check those characters.';
   if (!/^[A-Z0-9]{17}$/.test(vin)) return 'A VIN is letters and digits only.';
-  if (computeVinCheckDigit(vin) !== vin[8]) return 'The 9th character (the check digit) does not fit the rest of this VIN. Look for a mistyped character.';
+  if (computeVinCheckDigit(vin) !== vin[8])
+    return 'The 9th character (the check digit) does not fit the rest of this VIN. Look for a mistyped character.';
   return null;
 }
 
@@ -98,7 +197,11 @@ const jurisdictionSchema = z
       .string()
       .trim()
       .toUpperCase()
-      .pipe(z.enum(plateJurisdictions, { error: 'Pick the state or province that issued the plate (two letters, e.g. IA or ON).' })),
+      .pipe(
+        z.enum(plateJurisdictions, {
+          error: 'Pick the state or province that issued the plate (two letters, e.g. IA or ON).',
+        }),
+      ),
   ])
   .optional();
 
@@ -115,7 +218,13 @@ const yearSchema = z
 export const axleSchema = z.object({
   position: z.enum(axlePositions, { error: 'Say whether the axle is a steer, drive or trailer axle.' }),
   tires: z
-    .array(z.string().trim().toUpperCase().regex(/^[A-Z0-9]{1,6}$/, 'Name each tire position with up to 6 letters or digits.'))
+    .array(
+      z
+        .string()
+        .trim()
+        .toUpperCase()
+        .regex(/^[A-Z0-9]{1,6}$/, 'Name each tire position with up to 6 letters or digits.'),
+    )
     .min(2, 'An axle carries 2 tires (singles) or 4 (duals).')
     .max(4, 'An axle carries 2 tires (singles) or 4 (duals).')
     .refine((t) => t.length !== 3, 'An axle carries 2 tires (singles) or 4 (duals).')
@@ -124,7 +233,9 @@ export const axleSchema = z.object({
     .int('Enter the cold-inflation target as whole psi.')
     .min(coldPsiBounds.min, `A cold-inflation target is at least ${coldPsiBounds.min} psi.`)
     .max(coldPsiBounds.max, `A cold-inflation target is at most ${coldPsiBounds.max} psi.`),
-  chamber: z.enum(brakeChamberTypes, { error: `Pick the brake chamber type stamped on the chamber (${brakeChamberTypes.join(', ')}).` }),
+  chamber: z.enum(brakeChamberTypes, {
+    error: `Pick the brake chamber type stamped on the chamber (${brakeChamberTypes.join(', ')}).`,
+  }),
 });
 export type Axle = z.infer<typeof axleSchema>;
 
@@ -139,9 +250,11 @@ export function findAxleProblems(kind: UnitKind, axles: readonly Axle[]): Record
   const add = (key: string, message: string) => (fields[key] ??= []).push(message);
   axles.forEach((a, i) => {
     if (kind === 'trailer' && a.position !== 'trailer') add(`axles.${i}.position`, 'A trailer has trailer axles only.');
-    if (kind === 'tractor' && a.position === 'trailer') add(`axles.${i}.position`, 'A tractor has steer and drive axles, not trailer axles.');
+    if (kind === 'tractor' && a.position === 'trailer')
+      add(`axles.${i}.position`, 'A tractor has steer and drive axles, not trailer axles.');
   });
-  if (kind === 'tractor' && axles.length > 0 && axles[0]?.position !== 'steer') add('axles.0.position', 'The first axle of a tractor is its steer axle.');
+  if (kind === 'tractor' && axles.length > 0 && axles[0]?.position !== 'steer')
+    add('axles.0.position', 'The first axle of a tractor is its steer axle.');
   return fields;
 }
 
@@ -158,7 +271,11 @@ const unitFields = {
 
 function checkPlate(b: { plate?: string | null; plateJurisdiction?: string | null }, ctx: z.RefinementCtx) {
   if (b.plate && b.plateJurisdiction === null) {
-    ctx.addIssue({ code: 'custom', path: ['plateJurisdiction'], message: 'Pick the state or province that issued this plate.' });
+    ctx.addIssue({
+      code: 'custom',
+      path: ['plateJurisdiction'],
+      message: 'Pick the state or province that issued this plate.',
+    });
   }
 }
 
@@ -167,7 +284,8 @@ export const createUnitBodySchema = z
   .superRefine((b, ctx) => {
     checkPlate({ plate: b.plate, plateJurisdiction: b.plateJurisdiction ?? null }, ctx);
     for (const [path, messages] of Object.entries(findAxleProblems(b.kind, b.axles))) {
-      for (const message of messages) ctx.addIssue({ code: 'custom', path: path.split('.').map((p) => (/^\d+$/.test(p) ? Number(p) : p)), message });
+      for (const message of messages)
+        ctx.addIssue({ code: 'custom', path: path.split('.').map((p) => (/^\d+$/.test(p) ? Number(p) : p)), message });
     }
   });
 export type CreateUnitBody = z.input<typeof createUnitBodySchema>;
@@ -183,9 +301,12 @@ export const updateUnitBodySchema = z
     year: unitFields.year,
     axles: unitFields.axles.optional(),
   })
-  .refine((b) => Object.values(b).some((v) => v !== undefined), { message: 'Nothing to change: send at least one field.' })
+  .refine((b) => Object.values(b).some((v) => v !== undefined), {
+    message: 'Nothing to change: send at least one field.',
+  })
   .superRefine((b, ctx) => {
-    if (b.plate !== undefined && b.plateJurisdiction !== undefined) checkPlate({ plate: b.plate, plateJurisdiction: b.plateJurisdiction }, ctx);
+    if (b.plate !== undefined && b.plateJurisdiction !== undefined)
+      checkPlate({ plate: b.plate, plateJurisdiction: b.plateJurisdiction }, ctx);
   });
 export type UpdateUnitBody = z.input<typeof updateUnitBodySchema>;
 

@@ -14,9 +14,7 @@ export const emailSchema = z
   .pipe(z.email('Enter an e-mail address like name@company.com.'));
 
 /** An optional e-mail: an empty field means "none". */
-export const optionalEmailSchema = z
-  .union([z.literal('').transform(() => null), z.null(), emailSchema])
-  .optional();
+export const optionalEmailSchema = z.union([z.literal('').transform(() => null), z.null(), emailSchema]).optional();
 
 export const roleSchema = z.enum(roles, { error: `Pick roles from the list: ${roles.join(', ')}.` });
 

@@ -16,9 +16,16 @@ export function listGrammarProblems(g: Grammar): string[] {
     if (components.has(c.id)) problems.push(`component “${c.id}” appears twice`);
     components.add(c.id);
     if (!systems.has(c.system)) problems.push(`component “${c.name}” names system “${c.system}”, which does not exist`);
-    for (const d of c.defects) if (!conditions.has(d.condition)) problems.push(`component “${c.name}” names condition “${d.condition}”, which does not exist`);
+    for (const d of c.defects)
+      if (!conditions.has(d.condition))
+        problems.push(`component “${c.name}” names condition “${d.condition}”, which does not exist`);
   }
-  for (const zone of g.zones.zones) for (const item of zone.items) if (!components.has(item.component)) problems.push(`checklist item “${item.label}” (${zone.name}) names component “${item.component}”, which does not exist`);
+  for (const zone of g.zones.zones)
+    for (const item of zone.items)
+      if (!components.has(item.component))
+        problems.push(
+          `checklist item “${item.label}” (${zone.name}) names component “${item.component}”, which does not exist`,
+        );
   return problems;
 }
 
@@ -53,7 +60,10 @@ export const addPhraseBodySchema = z.object({
 });
 export type AddPhraseBody = z.input<typeof addPhraseBodySchema>;
 
-export const benchBodySchema = z.object({ text: z.string().trim().min(1).max(400), zone: zoneIdSchema.nullable().optional() });
+export const benchBodySchema = z.object({
+  text: z.string().trim().min(1).max(400),
+  zone: zoneIdSchema.nullable().optional(),
+});
 export type BenchBody = z.infer<typeof benchBodySchema>;
 
 export const publishBodySchema = z.object({
@@ -64,14 +74,29 @@ export type PublishBody = z.infer<typeof publishBodySchema>;
 
 /** Any of the grammars/ files; the parts left out are kept from the draft (or the published version). */
 export const importGrammarBodySchema = z.object({
-  files: z.object({ vocabulary: z.unknown(), commands: z.unknown(), positions: z.unknown(), numbers: z.unknown(), zones: z.unknown() }).partial(),
+  files: z
+    .object({
+      vocabulary: z.unknown(),
+      commands: z.unknown(),
+      positions: z.unknown(),
+      numbers: z.unknown(),
+      zones: z.unknown(),
+    })
+    .partial(),
 });
 export type ImportGrammarBody = z.infer<typeof importGrammarBodySchema>;
 
 export const labelledUtteranceSchema = z.object({
   text: z.string().min(1).max(400),
   zone: z.string().optional(),
-  ctx: z.object({ zone: z.string().nullable().optional(), measure: z.string().nullable().optional(), component: z.string().nullable().optional(), profile: z.enum(['us', 'ca']).optional() }).optional(),
+  ctx: z
+    .object({
+      zone: z.string().nullable().optional(),
+      measure: z.string().nullable().optional(),
+      component: z.string().nullable().optional(),
+      profile: z.enum(['us', 'ca']).optional(),
+    })
+    .optional(),
   kind: z.enum(['defect', 'ok', 'measurement', 'command', 'unknown']),
   termId: z.string().optional(),
   command: z.string().optional(),
@@ -82,7 +107,10 @@ export const labelledUtteranceSchema = z.object({
   position: z.string().optional(),
 });
 
-export const saveTestSetBodySchema = z.object({ name: z.string().trim().min(1).max(80), jsonl: z.string().min(1).max(2_000_000) });
+export const saveTestSetBodySchema = z.object({
+  name: z.string().trim().min(1).max(80),
+  jsonl: z.string().min(1).max(2_000_000),
+});
 export type SaveTestSetBody = z.infer<typeof saveTestSetBodySchema>;
 
 export const dismissUtterancesBodySchema = z.object({ ids: z.array(idSchema).min(1).max(500) });

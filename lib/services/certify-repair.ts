@@ -13,7 +13,13 @@ const toRecord = (d: Row): DefectRecord => ({
   id: d.id,
   unitId: d.unitId,
   severity: d.severity === 'major' ? 'major' : 'minor',
-  repair: d.status === 'open' ? null : { outcome: d.status === 'no_repair_needed' ? 'repair_unnecessary' : 'repaired', certifiedAt: d.certifiedAt ?? new Date() },
+  repair:
+    d.status === 'open'
+      ? null
+      : {
+          outcome: d.status === 'no_repair_needed' ? 'repair_unnecessary' : 'repaired',
+          certifiedAt: d.certifiedAt ?? new Date(),
+        },
 });
 
 /**
@@ -21,14 +27,28 @@ const toRecord = (d: Row): DefectRecord => ({
  * The unit's status then follows its open major defects: back in service only when none is open,
  * and that change is mailed to maintenance and the supervisor.
  */
-export async function certifyRepair({ fleetId, actorId, id, body }: { fleetId: string; actorId: string; id: string; body: CertifyRepairBody }) {
+export async function certifyRepair({
+  fleetId,
+  actorId,
+  id,
+  body,
+}: {
+  fleetId: string;
+  actorId: string;
+  id: string;
+  body: CertifyRepairBody;
+}) {
   const at = new Date();
   const result = await getDb()
     .transaction()
     .execute(async (trx) => {
       const defect = await lockDefect(trx, { fleetId, id });
       if (!defect) throw new AppError('not_found', 'No such defect in your fleet.');
-      if (defect.status !== 'open') throw new AppError('conflict', 'This defect is already certified; a certification is part of the record and is not changed.');
+      if (defect.status !== 'open')
+        throw new AppError(
+          'conflict',
+          'This defect is already certified; a certification is part of the record and is not changed.',
+        );
       const { unit, defects } = await listUnitDefectsForStatus(trx, { fleetId, unitId: defect.unitId });
       const before = getUnitServiceStatus(unit.id, defects.map(toRecord));
 
@@ -52,16 +72,48 @@ export async function certifyRepair({ fleetId, actorId, id, body }: { fleetId: s
       );
       const nextStatus = after.outOfService ? 'out_of_service' : 'in_service';
       const changed = nextStatus !== unit.status;
-      if (changed) await trx.updateTable('unit').set({ status: nextStatus, statusChangedAt: at }).where('id', '=', unit.id).execute();
+      if (changed)
+        await trx
+          .updateTable('unit')
+          .set({ status: nextStatus, statusChangedAt: at })
+          .where('id', '=', unit.id)
+          .execute();
       await trx
         .insertInto('auditLog')
         .values([
-          { fleetId, actorId, action: 'defect.certified', entity: 'defect', entityId: id, detail: JSON.stringify({ outcome: body.outcome, certifiedName: body.certifiedName }) },
-          ...(changed ? [{ fleetId, actorId, action: `unit.${nextStatus}`, entity: 'unit', entityId: unit.id, detail: JSON.stringify({ afterDefect: id }) }] : []),
+          {
+            fleetId,
+            actorId,
+            action: 'defect.certified',
+            entity: 'defect',
+            entityId: id,
+            detail: JSON.stringify({ outcome: body.outcome, certifiedName: body.certifiedName }),
+          },
+          ...(changed
+            ? [
+                {
+                  fleetId,
+                  actorId,
+                  action: `unit.${nextStatus}`,
+                  entity: 'unit',
+                  entityId: unit.id,
+                  detail: JSON.stringify({ afterDefect: id }),
+                },
+              ]
+            : []),
         ])
         .execute();
-      const closedMajors = defects.filter((d) => d.severity === 'major' && (d.id === id || d.status !== 'open') && before.openMajor.some((m) => m.id === d.id));
-      return { unit: { id: unit.id, unitNumber: unit.unitNumber, status: nextStatus, changed }, openMajor: after.openMajor.length, openMinor: after.openMinor.length, closedMajors, inspectionId: defect.inspectionId };
+      const closedMajors = defects.filter(
+        (d) =>
+          d.severity === 'major' && (d.id === id || d.status !== 'open') && before.openMajor.some((m) => m.id === d.id),
+      );
+      return {
+        unit: { id: unit.id, unitNumber: unit.unitNumber, status: nextStatus, changed },
+        openMajor: after.openMajor.length,
+        openMinor: after.openMinor.length,
+        closedMajors,
+        inspectionId: defect.inspectionId,
+      };
     });
 
   let mailed: Awaited<ReturnType<typeof sendUnitStatusMail>> | null = null;
@@ -73,7 +125,12 @@ export async function certifyRepair({ fleetId, actorId, id, body }: { fleetId: s
       mail: renderBackInServiceMail({
         fleetName: fleet.name,
         unitNumber: result.unit.unitNumber,
-        defects: result.closedMajors.map((d) => ({ severity: 'major' as const, description: d.description, certifiedName: d.id === id ? body.certifiedName : d.certifiedName, outcome: d.id === id ? body.outcome : d.status })),
+        defects: result.closedMajors.map((d) => ({
+          severity: 'major' as const,
+          description: d.description,
+          certifiedName: d.id === id ? body.certifiedName : d.certifiedName,
+          outcome: d.id === id ? body.outcome : d.status,
+        })),
         certifiedName: body.certifiedName,
         certifiedAt: at.toISOString(),
         defectUrl: appUrl(`/mechanic/defects/${id}`),
@@ -85,7 +142,12 @@ export async function certifyRepair({ fleetId, actorId, id, body }: { fleetId: s
     status: body.outcome,
     certifiedName: body.certifiedName,
     certifiedAt: at.toISOString(),
-    unit: { id: result.unit.id, unitNumber: result.unit.unitNumber, status: result.unit.status, changed: result.unit.changed },
+    unit: {
+      id: result.unit.id,
+      unitNumber: result.unit.unitNumber,
+      status: result.unit.status,
+      changed: result.unit.changed,
+    },
     openMajor: result.openMajor,
     openMinor: result.openMinor,
     mailed: mailed?.sent ?? false,

@@ -13,7 +13,9 @@ export function unitNumberTaken(unitNumber: string, retired: boolean): AppError 
 }
 
 /** Add a tractor or trailer to the fleet. */
-export async function createUnit(opts: { fleetId: string; actorId: string; kind: UnitKind } & UnitFields): Promise<{ unit: UnitDto }> {
+export async function createUnit(
+  opts: { fleetId: string; actorId: string; kind: UnitKind } & UnitFields,
+): Promise<{ unit: UnitDto }> {
   const { fleetId, actorId, ...fields } = opts;
   try {
     return await getDb()

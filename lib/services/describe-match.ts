@@ -22,6 +22,10 @@ export function describeMatch(r: MatchResult): BenchMatch {
     severity: r.severity,
     value: r.value,
     unit: r.unit,
-    alternatives: r.alternatives.map((a) => ({ termId: a.termId, label: [a.component, a.condition].filter(Boolean).join(', '), score: a.score })),
+    alternatives: r.alternatives.map((a) => ({
+      termId: a.termId,
+      label: [a.component, a.condition].filter(Boolean).join(', '),
+      score: a.score,
+    })),
   };
 }

@@ -2,14 +2,30 @@ import 'server-only';
 import { getDb, type DB } from '@/lib/db';
 import { findNewestPublishedId } from '@/lib/db/vocabulary';
 import type { Matcher, MatchResult } from '@/lib/matcher';
-import { getLabelledContext, isTopOneCorrect, isTopThreeCorrect, type LabelledUtterance } from '@/lib/matcher/fixture-scoring';
+import {
+  getLabelledContext,
+  isTopOneCorrect,
+  isTopThreeCorrect,
+  type LabelledUtterance,
+} from '@/lib/matcher/fixture-scoring';
 import type { EvaluationLine, EvaluationReport, Figures } from '@/lib/schemas/vocabulary';
 import { getVocabularyVersionOrThrow } from './get-vocabulary-version-or-throw';
 import { loadTestSet } from './load-test-set';
 import { getVersionMatcher } from './version-matcher';
 
-const expectedOf = (u: LabelledUtterance) => u.termId ?? (u.kind === 'measurement' ? `${u.measure} ${u.value} ${u.unit}` : u.kind === 'command' || u.kind === 'ok' ? `command:${u.command ?? 'ok'}` : u.kind);
-const gotOf = (r: MatchResult) => (r.kind === 'measurement' ? `${r.measure} ${r.value} ${r.unit}` : r.kind === 'command' || r.kind === 'ok' ? `command:${r.command ?? 'ok'}` : (r.termId ?? r.kind));
+const expectedOf = (u: LabelledUtterance) =>
+  u.termId ??
+  (u.kind === 'measurement'
+    ? `${u.measure} ${u.value} ${u.unit}`
+    : u.kind === 'command' || u.kind === 'ok'
+      ? `command:${u.command ?? 'ok'}`
+      : u.kind);
+const gotOf = (r: MatchResult) =>
+  r.kind === 'measurement'
+    ? `${r.measure} ${r.value} ${r.unit}`
+    : r.kind === 'command' || r.kind === 'ok'
+      ? `command:${r.command ?? 'ok'}`
+      : (r.termId ?? r.kind);
 
 const rate = (n: number, total: number) => (total ? Math.round((n / total) * 10000) / 10000 : 0);
 
@@ -18,20 +34,48 @@ export function scoreLabelledSet(matcher: Matcher, items: readonly LabelledUtter
   const lines = items.map((u) => {
     const r = matcher.match(u.text, getLabelledContext(u));
     const top1 = isTopOneCorrect(u, r);
-    const line: EvaluationLine = { text: u.text, zone: u.ctx?.zone ?? u.zone ?? null, expected: expectedOf(u), got: gotOf(r), score: r.score, top3: isTopThreeCorrect(u, r) };
+    const line: EvaluationLine = {
+      text: u.text,
+      zone: u.ctx?.zone ?? u.zone ?? null,
+      expected: expectedOf(u),
+      got: gotOf(r),
+      score: r.score,
+      top3: isTopThreeCorrect(u, r),
+    };
     return { top1, line };
   });
   const top1 = lines.filter((l) => l.top1).length;
   const top3 = lines.filter((l) => l.line.top3).length;
-  const figures: Figures = { total: items.length, top1, top3, top1Rate: rate(top1, items.length), top3Rate: rate(top3, items.length) };
+  const figures: Figures = {
+    total: items.length,
+    top1,
+    top3,
+    top1Rate: rate(top1, items.length),
+    top3Rate: rate(top3, items.length),
+  };
   return { figures, lines };
 }
 
 /** A version on the fleet's labelled set, beside the newest published version. */
-export async function evaluateVocabulary({ fleetId, versionId, db = getDb() }: { fleetId: string; versionId: string; db?: DB }): Promise<EvaluationReport> {
-  const [version, set, publishedId] = await Promise.all([getVocabularyVersionOrThrow(db, { fleetId, id: versionId }), loadTestSet(db, { fleetId }), findNewestPublishedId(db, { fleetId })]);
+export async function evaluateVocabulary({
+  fleetId,
+  versionId,
+  db = getDb(),
+}: {
+  fleetId: string;
+  versionId: string;
+  db?: DB;
+}): Promise<EvaluationReport> {
+  const [version, set, publishedId] = await Promise.all([
+    getVocabularyVersionOrThrow(db, { fleetId, id: versionId }),
+    loadTestSet(db, { fleetId }),
+    findNewestPublishedId(db, { fleetId }),
+  ]);
   const mine = scoreLabelledSet(getVersionMatcher(version), set.items);
-  const published = publishedId && publishedId !== version.id ? await getVocabularyVersionOrThrow(db, { fleetId, id: publishedId }) : null;
+  const published =
+    publishedId && publishedId !== version.id
+      ? await getVocabularyVersionOrThrow(db, { fleetId, id: publishedId })
+      : null;
   const theirs = published ? scoreLabelledSet(getVersionMatcher(published), set.items) : null;
   const newlyMissed: EvaluationLine[] = [];
   const newlyFixed: EvaluationLine[] = [];

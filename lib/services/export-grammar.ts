@@ -9,8 +9,13 @@ export type GrammarFile = (typeof grammarFiles)[number];
 /** A version in the grammars/ file format: one file's content, or all five keyed by file name. */
 export async function exportGrammar({ fleetId, id, file }: { fleetId: string; id: string; file?: GrammarFile }) {
   const version = await getVocabularyVersionOrThrow(getDb(), { fleetId, id });
-  const slug = version.label.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'version';
-  if (file) return { filename: `${file}.json`, body: version.grammar[file] as Grammar[GrammarFile], label: version.label };
+  const slug =
+    version.label
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, '-')
+      .replace(/^-|-$/g, '') || 'version';
+  if (file)
+    return { filename: `${file}.json`, body: version.grammar[file] as Grammar[GrammarFile], label: version.label };
   return { filename: `rigcall-grammar-${slug}.json`, body: version.grammar, label: version.label };
 }
 

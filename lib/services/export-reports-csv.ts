@@ -40,7 +40,13 @@ export function toCsvLine(cells: readonly string[]): string {
 }
 
 /** The filtered reports table as CSV text, streamed: the header line, then one line a report. */
-export function exportReportsCsv({ fleetId, query }: { fleetId: string; query: ExportReportsQuery }): ReadableStream<Uint8Array> {
+export function exportReportsCsv({
+  fleetId,
+  query,
+}: {
+  fleetId: string;
+  query: ExportReportsQuery;
+}): ReadableStream<Uint8Array> {
   const { sort, dir, ...filters } = query;
   const encoder = new TextEncoder();
   let rows: AsyncGenerator<ReportRow[]> | undefined;
@@ -53,7 +59,9 @@ export function exportReportsCsv({ fleetId, query }: { fleetId: string; query: E
     async pull(controller) {
       const next = await rows!.next();
       if (next.done) return controller.close();
-      controller.enqueue(encoder.encode(next.value.map((r) => toCsvLine(reportCsvColumns.map(([, get]) => get(r)))).join('')));
+      controller.enqueue(
+        encoder.encode(next.value.map((r) => toCsvLine(reportCsvColumns.map(([, get]) => get(r)))).join('')),
+      );
     },
   });
 }

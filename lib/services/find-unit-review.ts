@@ -16,15 +16,35 @@ export type UnitReview = {
 };
 
 /** What a driver must review before driving a unit: its last report, if that report lists defects. */
-export async function findUnitReview(db: DB, { fleetId, unitId, driverId, profile }: { fleetId: string; unitId: string; driverId: string; profile: string }): Promise<UnitReview> {
+export async function findUnitReview(
+  db: DB,
+  { fleetId, unitId, driverId, profile }: { fleetId: string; unitId: string; driverId: string; profile: string },
+): Promise<UnitReview> {
   const report = (await findLastUnitReport(db, { fleetId, unitId })) ?? null;
   const records: DefectRecord[] = (report?.defects ?? []).map((d) => ({
     id: d.id,
     unitId: d.unitId,
     severity: d.severity === 'minor' ? 'minor' : 'major',
-    repair: d.status === 'open' || !d.certifiedAt ? null : { outcome: d.status === 'no_repair_needed' ? 'repair_unnecessary' : 'repaired', certifiedAt: d.certifiedAt },
+    repair:
+      d.status === 'open' || !d.certifiedAt
+        ? null
+        : { outcome: d.status === 'no_repair_needed' ? 'repair_unnecessary' : 'repaired', certifiedAt: d.certifiedAt },
   }));
-  const due = listDefectsToAcknowledge(report ? { id: report.id, unitIds: [unitId], defects: records } : null, [unitId], profile);
-  const acknowledged = report ? await hasAcknowledged(db, { fleetId, reviewedInspectionId: report.id, unitId, driverId }) : false;
-  return { unitId, report, mustAcknowledge: due.signatureRequired && !acknowledged, acknowledged, uncertified: due.uncertified.length, mayOperate: due.mayOperate, source: due.source };
+  const due = listDefectsToAcknowledge(
+    report ? { id: report.id, unitIds: [unitId], defects: records } : null,
+    [unitId],
+    profile,
+  );
+  const acknowledged = report
+    ? await hasAcknowledged(db, { fleetId, reviewedInspectionId: report.id, unitId, driverId })
+    : false;
+  return {
+    unitId,
+    report,
+    mustAcknowledge: due.signatureRequired && !acknowledged,
+    acknowledged,
+    uncertified: due.uncertified.length,
+    mayOperate: due.mayOperate,
+    source: due.source,
+  };
 }

@@ -43,7 +43,9 @@ export async function getDefectOrThrow({ fleetId, id }: { fleetId: string; id: s
       verdict: d.verdict,
     },
     repair: { work: d.repairWork, parts: d.repairParts, notes: d.repairNotes },
-    certification: d.certifiedAt ? { name: d.certifiedName, at: d.certifiedAt.toISOString(), text: d.certificationText } : null,
+    certification: d.certifiedAt
+      ? { name: d.certifiedName, at: d.certifiedAt.toISOString(), text: d.certificationText }
+      : null,
     photos: photos.map((p) => ({ id: p.id, contentType: p.contentType, url: `/api/attachments/${p.id}` })),
   };
 }

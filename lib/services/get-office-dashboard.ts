@@ -5,7 +5,10 @@ import { listDefectsByWeek, listDurationCounts, listFirstTryByZone, listOpenMajo
 import { getFleetMinimumsOrThrow } from './list-reports';
 import { zoneName } from './walk-zones';
 
-const vocab = vocabulary as unknown as { systems: { id: string; name: string }[]; components: { id: string; name: string; system: string }[] };
+const vocab = vocabulary as unknown as {
+  systems: { id: string; name: string }[];
+  components: { id: string; name: string; system: string }[];
+};
 const systemOfComponent = new Map<string, string>();
 for (const c of vocab.components) {
   const system = vocab.systems.find((s) => s.id === c.system)?.name ?? c.system;
@@ -14,7 +17,15 @@ for (const c of vocab.components) {
 }
 
 /** The four trend charts of the office dashboard, as plain series. */
-export async function getOfficeDashboard({ fleetId, weeks = 9, days = 60 }: { fleetId: string; weeks?: number; days?: number }) {
+export async function getOfficeDashboard({
+  fleetId,
+  weeks = 9,
+  days = 60,
+}: {
+  fleetId: string;
+  weeks?: number;
+  days?: number;
+}) {
   const db = getDb();
   const fleet = await getFleetMinimumsOrThrow(fleetId);
   const [byWeek, openMajor, durations, firstTry] = await Promise.all([
@@ -33,7 +44,9 @@ export async function getOfficeDashboard({ fleetId, weeks = 9, days = 60 }: { fl
     w[system] = (w[system] ?? 0) + r.n;
     weekMap.set(r.week, w);
   }
-  const defectsBySystem = [...weekMap.entries()].sort(([a], [b]) => a.localeCompare(b)).map(([week, counts]) => ({ week, ...counts }));
+  const defectsBySystem = [...weekMap.entries()]
+    .sort(([a], [b]) => a.localeCompare(b))
+    .map(([week, counts]) => ({ week, ...counts }));
 
   const maxMinute = Math.max(35, ...durations.map((d) => d.minutes));
   const durationBuckets = Array.from({ length: maxMinute + 1 }, (_, minutes) => ({
@@ -45,7 +58,14 @@ export async function getOfficeDashboard({ fleetId, weeks = 9, days = 60 }: { fl
   const recognition = firstTry
     .map((z) => {
       const total = z.firstTry + z.confirmed + z.corrected;
-      return { zone: zoneName(z.zone), total, firstTry: z.firstTry, confirmed: z.confirmed, corrected: z.corrected, share: total ? Math.round((z.firstTry / total) * 1000) / 10 : 0 };
+      return {
+        zone: zoneName(z.zone),
+        total,
+        firstTry: z.firstTry,
+        confirmed: z.confirmed,
+        corrected: z.corrected,
+        share: total ? Math.round((z.firstTry / total) * 1000) / 10 : 0,
+      };
     })
     .sort((a, b) => a.share - b.share);
 

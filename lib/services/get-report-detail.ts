@@ -23,7 +23,13 @@ export function checkReportHash(record: NonNullable<Awaited<ReturnType<typeof fi
     return { state: 'unsigned', stored: h.contentHash, computed: null };
   }
   const text = serializeReport({
-    ...pickReportHeader({ ...h, finishedAt: h.finishedAt, signedAt: h.signedAt, signatureName: h.signatureName, certificationText: h.certificationText }),
+    ...pickReportHeader({
+      ...h,
+      finishedAt: h.finishedAt,
+      signedAt: h.signedAt,
+      signatureName: h.signatureName,
+      certificationText: h.certificationText,
+    }),
     steps: toCanonicalSteps(record.steps.map((s) => ({ ...s, value: s.value === null ? null : Number(s.value) }))),
   });
   const computed = createHash('sha256').update(text).digest('hex');
@@ -31,29 +37,45 @@ export function checkReportHash(record: NonNullable<Awaited<ReturnType<typeof fi
 }
 
 /** A report with everything the supervisor's detail screen and the PDF show. */
-export async function getReportDetail({ fleetId, id, withPhotoUrls = true }: { fleetId: string; id: string; withPhotoUrls?: boolean }) {
+export async function getReportDetail({
+  fleetId,
+  id,
+  withPhotoUrls = true,
+}: {
+  fleetId: string;
+  id: string;
+  withPhotoUrls?: boolean;
+}) {
   const db = getDb();
-  const [detail, record, fleet] = await Promise.all([findInspectionDetail(db, { fleetId, id }), findReportRecord(db, { fleetId, id }), findFleetMinimums(db, { fleetId })]);
+  const [detail, record, fleet] = await Promise.all([
+    findInspectionDetail(db, { fleetId, id }),
+    findReportRecord(db, { fleetId, id }),
+    findFleetMinimums(db, { fleetId }),
+  ]);
   if (!detail || !record || !fleet) throw new AppError('not_found', 'No such inspection report in your fleet.');
 
   const minimumMinutes = detail.kind === 'post_trip' ? fleet.minPosttripMinutes : fleet.minPretripMinutes;
-  const duration = detail.finishedAt ? checkInspectionDuration(detail.startedAt, detail.finishedAt, { minimumPretripMinutes: minimumMinutes }) : null;
+  const duration = detail.finishedAt
+    ? checkInspectionDuration(detail.startedAt, detail.finishedAt, { minimumPretripMinutes: minimumMinutes })
+    : null;
 
   const photos = record.attachments.map((a) => ({
-      id: a.id,
-      stepId: a.stepId,
-      defectId: a.defectId,
-      contentType: a.contentType,
-      url: withPhotoUrls ? `/api/attachments/${a.id}` : null,
-      objectKey: a.objectKey,
-    }));
+    id: a.id,
+    stepId: a.stepId,
+    defectId: a.defectId,
+    contentType: a.contentType,
+    url: withPhotoUrls ? `/api/attachments/${a.id}` : null,
+    objectKey: a.objectKey,
+  }));
 
   const steps = detail.steps.map((s) => ({
     ...s,
     score: num(s.score),
     value: num(s.value),
     deviceAt: iso(s.deviceAt)!,
-    alternatives: Array.isArray(s.alternatives) ? (s.alternatives as unknown[]).map((x) => (typeof x === 'string' ? x : JSON.stringify(x))) : [],
+    alternatives: Array.isArray(s.alternatives)
+      ? (s.alternatives as unknown[]).map((x) => (typeof x === 'string' ? x : JSON.stringify(x)))
+      : [],
     photos: photos.filter((p) => p.stepId === s.id),
   }));
 
@@ -70,7 +92,9 @@ export async function getReportDetail({ fleetId, id, withPhotoUrls = true }: { f
   });
   const expected = listExpectedZones(detail.trailerNumber !== null);
   const skippedZones = expected.filter((z) => !order.includes(z.id));
-  const lowConfidenceUnconfirmed = steps.filter((s) => s.kind === 'defect' && s.score !== null && s.score < LOW_CONFIDENCE && s.resolution === 'auto').length;
+  const lowConfidenceUnconfirmed = steps.filter(
+    (s) => s.kind === 'defect' && s.score !== null && s.score < LOW_CONFIDENCE && s.resolution === 'auto',
+  ).length;
 
   const h = record.header;
   return {
@@ -78,8 +102,27 @@ export async function getReportDetail({ fleetId, id, withPhotoUrls = true }: { f
     kind: detail.kind as 'pre_trip' | 'post_trip',
     status: detail.status as 'draft' | 'submitted',
     driverName: detail.driverName,
-    tractor: { id: h.tractorId, number: detail.tractorNumber, plate: h.tractorPlate, plateJurisdiction: h.tractorPlateJurisdiction, vin: h.tractorVin, make: h.tractorMake, model: h.tractorModel, status: h.tractorStatus },
-    trailer: h.trailerId ? { id: h.trailerId, number: detail.trailerNumber, plate: h.trailerPlate, plateJurisdiction: h.trailerPlateJurisdiction, make: h.trailerMake, model: h.trailerModel, status: h.trailerStatus } : null,
+    tractor: {
+      id: h.tractorId,
+      number: detail.tractorNumber,
+      plate: h.tractorPlate,
+      plateJurisdiction: h.tractorPlateJurisdiction,
+      vin: h.tractorVin,
+      make: h.tractorMake,
+      model: h.tractorModel,
+      status: h.tractorStatus,
+    },
+    trailer: h.trailerId
+      ? {
+          id: h.trailerId,
+          number: detail.trailerNumber,
+          plate: h.trailerPlate,
+          plateJurisdiction: h.trailerPlateJurisdiction,
+          make: h.trailerMake,
+          model: h.trailerModel,
+          status: h.trailerStatus,
+        }
+      : null,
     odometer: detail.odometer,
     location: detail.location,
     billOfLading: detail.billOfLading,
@@ -89,7 +132,14 @@ export async function getReportDetail({ fleetId, id, withPhotoUrls = true }: { f
     startedAt: iso(detail.startedAt)!,
     finishedAt: iso(detail.finishedAt),
     durationS: detail.durationS,
-    duration: duration ? { minutes: duration.minutes, minimumMinutes: duration.minimumMinutes, short: duration.short, source: duration.source } : null,
+    duration: duration
+      ? {
+          minutes: duration.minutes,
+          minimumMinutes: duration.minimumMinutes,
+          short: duration.short,
+          source: duration.source,
+        }
+      : null,
     certificationText: detail.certificationText,
     signatureName: detail.signatureName,
     signedAt: iso(detail.signedAt),
@@ -98,7 +148,11 @@ export async function getReportDetail({ fleetId, id, withPhotoUrls = true }: { f
     zones,
     skippedZones,
     lowConfidenceUnconfirmed,
-    defects: record.defects.map((d) => ({ ...d, certifiedAt: iso(d.certifiedAt), photos: photos.filter((p) => p.defectId === d.id || p.stepId === d.stepId) })),
+    defects: record.defects.map((d) => ({
+      ...d,
+      certifiedAt: iso(d.certifiedAt),
+      photos: photos.filter((p) => p.defectId === d.id || p.stepId === d.stepId),
+    })),
     acknowledgements: record.acknowledgements.map((a) => ({ ...a, acknowledgedAt: iso(a.acknowledgedAt)! })),
     photoCount: photos.length,
     fleetName: fleet.name,

@@ -6,7 +6,15 @@ import { getFleetMinimumsOrThrow } from './list-reports';
 import { listExpectedZones } from './walk-zones';
 
 /** The supervisor's home: the units board and the recent inspections that need a look. */
-export async function getSupervisorBoard({ fleetId, days = 14, now = new Date() }: { fleetId: string; days?: number; now?: Date }) {
+export async function getSupervisorBoard({
+  fleetId,
+  days = 14,
+  now = new Date(),
+}: {
+  fleetId: string;
+  days?: number;
+  now?: Date;
+}) {
   const db = getDb();
   const fleet = await getFleetMinimumsOrThrow(fleetId);
   const [units, attention] = await Promise.all([
@@ -23,14 +31,26 @@ export async function getSupervisorBoard({ fleetId, days = 14, now = new Date() 
     }),
   ]);
   return {
-    fleet: { timezone: fleet.timezone, minPretripMinutes: fleet.minPretripMinutes, minPosttripMinutes: fleet.minPosttripMinutes },
+    fleet: {
+      timezone: fleet.timezone,
+      minPretripMinutes: fleet.minPretripMinutes,
+      minPosttripMinutes: fleet.minPosttripMinutes,
+    },
     units: units.map((u) => ({
       id: u.id,
       unitNumber: u.unitNumber,
       kind: u.kind === 'trailer' ? ('trailer' as const) : ('tractor' as const),
       status: u.status === 'out_of_service' ? ('out_of_service' as const) : ('in_service' as const),
       statusChangedAt: u.statusChangedAt.toISOString(),
-      last: u.lastId ? { id: u.lastId, kind: u.lastKind!, startedAt: u.lastStartedAt!.toISOString(), driverName: u.lastDriver!, ageHours: Math.round((now.getTime() - u.lastStartedAt!.getTime()) / 360_000) / 10 } : null,
+      last: u.lastId
+        ? {
+            id: u.lastId,
+            kind: u.lastKind!,
+            startedAt: u.lastStartedAt!.toISOString(),
+            driverName: u.lastDriver!,
+            ageHours: Math.round((now.getTime() - u.lastStartedAt!.getTime()) / 360_000) / 10,
+          }
+        : null,
       openMajor: u.openMajor,
       openMinor: u.openMinor,
     })),

@@ -13,6 +13,10 @@ export async function getVocabularyVersionOrThrow(db: DB, { fleetId, id }: { fle
 /** The same, and it must still be a draft (published versions never change). */
 export async function getDraftVersionOrThrow(db: DB, { fleetId, id }: { fleetId: string; id: string }) {
   const version = await getVocabularyVersionOrThrow(db, { fleetId, id });
-  if (version.status !== 'draft') throw new AppError('conflict', `Version “${version.label}” is published and cannot change. Start a new draft from it.`);
+  if (version.status !== 'draft')
+    throw new AppError(
+      'conflict',
+      `Version “${version.label}” is published and cannot change. Start a new draft from it.`,
+    );
   return version;
 }

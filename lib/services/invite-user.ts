@@ -30,9 +30,18 @@ export function generateTemporaryPassword(groups = 3, size = 4): string {
   return Array.from({ length: groups }, (_, g) => out.slice(g * size, g * size + size).join('')).join('-');
 }
 
-const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+const escapeHtml = (s: string) =>
+  s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
-export function composeInviteMail(m: { name: string; email: string; fleetName: string; inviterName: string; roles: Role[]; password: string; signInUrl: string }) {
+export function composeInviteMail(m: {
+  name: string;
+  email: string;
+  fleetName: string;
+  inviterName: string;
+  roles: Role[];
+  password: string;
+  signInUrl: string;
+}) {
   const roleWords = m.roles.map((r) => roleLabel[r].toLowerCase()).join(', ');
   const subject = `Your RigCall account for ${m.fleetName}`;
   const text = [
@@ -65,7 +74,13 @@ export function composeInviteMail(m: { name: string; email: string; fleetName: s
  * The mail goes out before the transaction commits: if it cannot be sent, no account is left
  * behind with a password nobody knows.
  */
-export async function inviteUser(opts: { fleetId: string; actorId: string; name: string; email: string; roles: Role[] }): Promise<{ user: AdminUser }> {
+export async function inviteUser(opts: {
+  fleetId: string;
+  actorId: string;
+  name: string;
+  email: string;
+  roles: Role[];
+}): Promise<{ user: AdminUser }> {
   const email = opts.email.toLowerCase();
   const password = generateTemporaryPassword();
   const passwordHash = await bcrypt.hash(password, 10);
@@ -73,11 +88,26 @@ export async function inviteUser(opts: { fleetId: string; actorId: string; name:
     return await getDb()
       .transaction()
       .execute(async (trx) => {
-        if (await isEmailTaken(trx, { email })) throw new AppError('conflict', `${email} already has an account.`, { email: [`${email} already has an account.`] });
+        if (await isEmailTaken(trx, { email }))
+          throw new AppError('conflict', `${email} already has an account.`, {
+            email: [`${email} already has an account.`],
+          });
         const fleet = await findFleet(trx, { fleetId: opts.fleetId });
         if (!fleet) throw new AppError('not_found', 'This fleet no longer exists.');
-        const inviter = await trx.selectFrom('appUser').select('name').where('id', '=', opts.actorId).where('fleetId', '=', opts.fleetId).executeTakeFirst();
-        const user = await insertFleetUser(trx, { fleetId: opts.fleetId, name: opts.name, email, roles: opts.roles, passwordHash, mustChangePassword: true });
+        const inviter = await trx
+          .selectFrom('appUser')
+          .select('name')
+          .where('id', '=', opts.actorId)
+          .where('fleetId', '=', opts.fleetId)
+          .executeTakeFirst();
+        const user = await insertFleetUser(trx, {
+          fleetId: opts.fleetId,
+          name: opts.name,
+          email,
+          roles: opts.roles,
+          passwordHash,
+          mustChangePassword: true,
+        });
         await recordAdminAudit(trx, {
           fleetId: opts.fleetId,
           actorId: opts.actorId,
@@ -87,17 +117,31 @@ export async function inviteUser(opts: { fleetId: string; actorId: string; name:
           detail: { email, name: opts.name, roles: opts.roles },
         });
         const base = (getEnv().NEXTAUTH_URL ?? 'http://127.0.0.1:3000').replace(/\/$/, '');
-        const mail = composeInviteMail({ name: opts.name, email, fleetName: fleet.name, inviterName: inviter?.name ?? 'Your fleet admin', roles: opts.roles, password, signInUrl: `${base}/sign-in` });
+        const mail = composeInviteMail({
+          name: opts.name,
+          email,
+          fleetName: fleet.name,
+          inviterName: inviter?.name ?? 'Your fleet admin',
+          roles: opts.roles,
+          password,
+          signInUrl: `${base}/sign-in`,
+        });
         try {
           await sendMail({ to: [email], ...mail });
         } catch (err) {
           console.error('[rigcall] invitation mail failed', err);
-          throw new AppError('internal', 'The invitation e-mail could not be sent, so no account was created. Try again in a moment.');
+          throw new AppError(
+            'internal',
+            'The invitation e-mail could not be sent, so no account was created. Try again in a moment.',
+          );
         }
         return { user };
       });
   } catch (err) {
-    if (isUniqueViolation(err)) throw new AppError('conflict', `${email} already has an account.`, { email: [`${email} already has an account.`] });
+    if (isUniqueViolation(err))
+      throw new AppError('conflict', `${email} already has an account.`, {
+        email: [`${email} already has an account.`],
+      });
     throw err;
   }
 }

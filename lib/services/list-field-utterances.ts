@@ -7,7 +7,25 @@ import { describeMatch } from './describe-match';
 import { getVocabularyVersionOrThrow } from './get-vocabulary-version-or-throw';
 import { getVersionMatcher } from './version-matcher';
 
-const glue = new Set(['the', 'a', 'an', 'is', 'on', 'of', 'my', 'it', 'its', 'there', 'theres', 's', 'got', 'has', 'this', 'that', 'and']);
+const glue = new Set([
+  'the',
+  'a',
+  'an',
+  'is',
+  'on',
+  'of',
+  'my',
+  'it',
+  'its',
+  'there',
+  'theres',
+  's',
+  'got',
+  'has',
+  'this',
+  'that',
+  'and',
+]);
 
 function stem(w: string) {
   return w.length > 3 && w.endsWith('s') && !w.endsWith('ss') ? w.slice(0, -1) : w;
@@ -25,7 +43,11 @@ function jaccard(a: Set<string>, b: Set<string>) {
  */
 export async function listFieldUtterances({ fleetId, limit = 2000 }: { fleetId: string; limit?: number }) {
   const db = getDb();
-  const [rows, draftId, publishedId] = await Promise.all([listOpenFieldUtterances(db, { fleetId, limit }), findDraftVersionId(db, { fleetId }), findNewestPublishedId(db, { fleetId })]);
+  const [rows, draftId, publishedId] = await Promise.all([
+    listOpenFieldUtterances(db, { fleetId, limit }),
+    findDraftVersionId(db, { fleetId }),
+    findNewestPublishedId(db, { fleetId }),
+  ]);
   const versionId = draftId ?? publishedId;
   const version = versionId ? await getVocabularyVersionOrThrow(db, { fleetId, id: versionId }) : null;
   const grammar = version?.grammar;
@@ -34,7 +56,11 @@ export async function listFieldUtterances({ fleetId, limit = 2000 }: { fleetId: 
   type Acc = { words: Set<string>; rows: typeof rows };
   const groups: Acc[] = [];
   for (const row of rows) {
-    const words = new Set(normalize(row.text).filter((w) => !fillers.has(w)).map(stem));
+    const words = new Set(
+      normalize(row.text)
+        .filter((w) => !fillers.has(w))
+        .map(stem),
+    );
     const home = groups.find((g) => jaccard(g.words, words) >= 0.75);
     if (home) home.rows.push(row);
     else groups.push({ words, rows: [row] });
@@ -50,7 +76,10 @@ export async function listFieldUtterances({ fleetId, limit = 2000 }: { fleetId: 
     }
     const ordered = [...variants.entries()].sort((a, b) => b[1] - a[1]).map(([text, count]) => ({ text, count }));
     const text = ordered[0]!.text;
-    const corrected = g.rows.find((r) => r.termKey && r.termKey.includes(':') && !r.termKey.startsWith('command:') && !r.termKey.startsWith('measure:'));
+    const corrected = g.rows.find(
+      (r) =>
+        r.termKey && r.termKey.includes(':') && !r.termKey.startsWith('command:') && !r.termKey.startsWith('measure:'),
+    );
     const zone = g.rows[0]!.zone;
     let suggestion: FieldUtteranceGroup['suggestion'] = null;
     if (corrected?.termKey && grammar) {
@@ -61,7 +90,12 @@ export async function listFieldUtterances({ fleetId, limit = 2000 }: { fleetId: 
     }
     if (!suggestion && matcher) {
       const m = describeMatch(matcher.match(text, { zone }));
-      const first = m.kind === 'defect' && m.termId ? { termKey: m.termId, label: m.label } : m.alternatives[0] ? { termKey: m.alternatives[0].termId, label: m.alternatives[0].label } : null;
+      const first =
+        m.kind === 'defect' && m.termId
+          ? { termKey: m.termId, label: m.label }
+          : m.alternatives[0]
+            ? { termKey: m.alternatives[0].termId, label: m.alternatives[0].label }
+            : null;
       suggestion = first && first.termKey.includes(':') && !first.termKey.startsWith('command:') ? first : null;
     }
     return {

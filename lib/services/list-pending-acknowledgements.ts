@@ -26,7 +26,13 @@ export type PendingAcknowledgement = {
  * each unit, its last submitted report when that report lists defects on the unit and no driver
  * has yet signed the review of it for that unit. A report shared by two units comes back once.
  */
-export async function listPendingAcknowledgements({ fleetId, unitIds }: { fleetId: string; unitIds: readonly string[] }): Promise<PendingAcknowledgement[]> {
+export async function listPendingAcknowledgements({
+  fleetId,
+  unitIds,
+}: {
+  fleetId: string;
+  unitIds: readonly string[];
+}): Promise<PendingAcknowledgement[]> {
   if (!unitIds.length) return [];
   const db = getDb();
   const ids = [...unitIds];
@@ -45,7 +51,13 @@ export async function listPendingAcknowledgements({ fleetId, unitIds }: { fleetI
   }
   const pending: typeof latest = [];
   for (const l of latest) {
-    const listed = await db.selectFrom('defect').select('id').where('inspectionId', '=', l.inspectionId).where('unitId', '=', l.unitId).limit(1).executeTakeFirst();
+    const listed = await db
+      .selectFrom('defect')
+      .select('id')
+      .where('inspectionId', '=', l.inspectionId)
+      .where('unitId', '=', l.unitId)
+      .limit(1)
+      .executeTakeFirst();
     if (!listed) continue;
     const ack = await db
       .selectFrom('acknowledgement')
@@ -70,7 +82,18 @@ export async function listPendingAcknowledgements({ fleetId, unitIds }: { fleetI
       db
         .selectFrom('defect as df')
         .innerJoin('unit as u', 'u.id', 'df.unitId')
-        .select(['df.id', 'df.unitId', 'u.unitNumber', 'df.severity', 'df.description', 'df.status', 'df.repairWork', 'df.certifiedName', 'df.certifiedAt', 'df.certificationText'])
+        .select([
+          'df.id',
+          'df.unitId',
+          'u.unitNumber',
+          'df.severity',
+          'df.description',
+          'df.status',
+          'df.repairWork',
+          'df.certifiedName',
+          'df.certifiedAt',
+          'df.certificationText',
+        ])
         .where('df.inspectionId', '=', reportId)
         .where('df.unitId', 'in', units)
         .orderBy(sql`df.severity = 'major'`, 'desc')
@@ -82,10 +105,22 @@ export async function listPendingAcknowledgements({ fleetId, unitIds }: { fleetI
       unitId: d.unitId,
       severity: d.severity === 'major' ? 'major' : 'minor',
       description: d.description,
-      repair: d.status === 'open' || !d.certifiedAt ? null : { outcome: d.status === 'no_repair_needed' ? 'repair_unnecessary' : 'repaired', certifiedAt: d.certifiedAt, certifiedBy: d.certifiedName ?? undefined },
+      repair:
+        d.status === 'open' || !d.certifiedAt
+          ? null
+          : {
+              outcome: d.status === 'no_repair_needed' ? 'repair_unnecessary' : 'repaired',
+              certifiedAt: d.certifiedAt,
+              certifiedBy: d.certifiedName ?? undefined,
+            },
     }));
     out.push({
-      report: { id: report.id, kind: report.kind, startedAt: report.startedAt.toISOString(), driverName: report.driverName },
+      report: {
+        id: report.id,
+        kind: report.kind,
+        startedAt: report.startedAt.toISOString(),
+        driverName: report.driverName,
+      },
       units: [...new Map(defects.map((d) => [d.unitId, { id: d.unitId, unitNumber: d.unitNumber }])).values()],
       defects: defects.map((d) => ({
         ...d,

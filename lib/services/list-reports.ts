@@ -11,7 +11,13 @@ export async function getFleetMinimumsOrThrow(fleetId: string): Promise<FleetMin
 }
 
 /** One page of the fleet's reports with the total, filtered and sorted on the server. */
-export async function listReports({ fleetId, query }: { fleetId: string; query: ListReportsQuery }): Promise<ReportPage> {
+export async function listReports({
+  fleetId,
+  query,
+}: {
+  fleetId: string;
+  query: ListReportsQuery;
+}): Promise<ReportPage> {
   const { page, pageSize, sort, dir, ...filters } = query;
   const minimums = await getFleetMinimumsOrThrow(fleetId);
   const db = getDb();

@@ -31,11 +31,17 @@ export function parseTestSetOrThrow(jsonl: string): LabelledUtterance[] {
       return;
     }
     const r = labelledUtteranceSchema.safeParse(value);
-    if (!r.success) problems[`line ${i + 1}`] = r.error.issues.map((x) => `${x.path.join('.') || 'line'}: ${x.message}`);
+    if (!r.success)
+      problems[`line ${i + 1}`] = r.error.issues.map((x) => `${x.path.join('.') || 'line'}: ${x.message}`);
     else if (r.data.kind === 'defect' && !r.data.termId) problems[`line ${i + 1}`] = ['a defect line needs a termId'];
   });
   const keys = Object.keys(problems);
-  if (keys.length) throw new AppError('invalid_body', `The labelled set has ${keys.length} bad line${keys.length === 1 ? '' : 's'}, first ${keys[0]}: ${problems[keys[0]!]![0]}`, problems);
+  if (keys.length)
+    throw new AppError(
+      'invalid_body',
+      `The labelled set has ${keys.length} bad line${keys.length === 1 ? '' : 's'}, first ${keys[0]}: ${problems[keys[0]!]![0]}`,
+      problems,
+    );
   const items = parseLabelledJsonl(jsonl);
   if (!items.length) throw new AppError('invalid_body', 'The labelled set is empty.', { jsonl: ['no lines'] });
   return items;
@@ -44,7 +50,20 @@ export function parseTestSetOrThrow(jsonl: string): LabelledUtterance[] {
 /** The fleet's labelled set, or the repository's when the fleet has none of its own. */
 export async function loadTestSet(db: DB, { fleetId }: { fleetId: string }) {
   const row = await findTestSet(db, { fleetId });
-  if (row) return { name: row.name, source: 'fleet' as const, jsonl: row.jsonl, items: parseLabelledJsonl(row.jsonl), updatedAt: row.updatedAt.toISOString() };
+  if (row)
+    return {
+      name: row.name,
+      source: 'fleet' as const,
+      jsonl: row.jsonl,
+      items: parseLabelledJsonl(row.jsonl),
+      updatedAt: row.updatedAt.toISOString(),
+    };
   const jsonl = readDefaultTestSet();
-  return { name: defaultTestSetName, source: 'default' as const, jsonl, items: parseLabelledJsonl(jsonl), updatedAt: null };
+  return {
+    name: defaultTestSetName,
+    source: 'default' as const,
+    jsonl,
+    items: parseLabelledJsonl(jsonl),
+    updatedAt: null,
+  };
 }

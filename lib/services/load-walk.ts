@@ -12,11 +12,25 @@ import { loadCheckContext } from './record-step';
 const uuid = z.uuid();
 
 /** Everything the walk screen needs for one of the driver's own inspections, or null. */
-export async function loadWalkOrNull(db: DB, { fleetId, driverId, inspectionId }: { fleetId: string; driverId: string; inspectionId: string }) {
+export async function loadWalkOrNull(
+  db: DB,
+  { fleetId, driverId, inspectionId }: { fleetId: string; driverId: string; inspectionId: string },
+) {
   if (!uuid.safeParse(inspectionId).success) return null;
   const inspection = await db
     .selectFrom('inspection')
-    .select(['id', 'kind', 'status', 'tractorId', 'trailerId', 'startedAt', 'sealNumber', 'ruleProfile', 'driverId', 'vocabularyVersionId'])
+    .select([
+      'id',
+      'kind',
+      'status',
+      'tractorId',
+      'trailerId',
+      'startedAt',
+      'sealNumber',
+      'ruleProfile',
+      'driverId',
+      'vocabularyVersionId',
+    ])
     .where('fleetId', '=', fleetId)
     .where('id', '=', inspectionId)
     .executeTakeFirst();
@@ -28,7 +42,9 @@ export async function loadWalkOrNull(db: DB, { fleetId, driverId, inspectionId }
     loadCheckContext(db, { fleetId, tractorId: inspection.tractorId, trailerId: inspection.trailerId }),
     listInspectionSteps(db, { inspectionId }),
     // The grammar of the version the inspection started with (read as text: see findVocabularyVersion).
-    inspection.vocabularyVersionId ? findVocabularyVersion(db, { fleetId, id: inspection.vocabularyVersionId }) : Promise.resolve(undefined),
+    inspection.vocabularyVersionId
+      ? findVocabularyVersion(db, { fleetId, id: inspection.vocabularyVersionId })
+      : Promise.resolve(undefined),
   ]);
   const grammar = version?.grammar ?? getDefaultGrammar();
   // The version's own zone checklists (a trainer may have changed them).
@@ -59,10 +75,18 @@ export async function loadWalkOrNull(db: DB, { fleetId, driverId, inspectionId }
     source: r.source,
   }));
   return {
-    inspection: { id: inspection.id, kind: inspection.kind as 'pre_trip' | 'post_trip', status: inspection.status as 'draft' | 'submitted', startedAt: inspection.startedAt.toISOString(), sealNumber: inspection.sealNumber, ruleProfile: inspection.ruleProfile },
+    inspection: {
+      id: inspection.id,
+      kind: inspection.kind as 'pre_trip' | 'post_trip',
+      status: inspection.status as 'draft' | 'submitted',
+      startedAt: inspection.startedAt.toISOString(),
+      sealNumber: inspection.sealNumber,
+      ruleProfile: inspection.ruleProfile,
+    },
     tractorNumber: tractor?.unitNumber ?? '?',
     trailerNumber: trailer?.unitNumber ?? null,
-    minimumMinutes: inspection.kind === 'pre_trip' ? (fleet?.minPretripMinutes ?? 15) : (fleet?.minPosttripMinutes ?? 5),
+    minimumMinutes:
+      inspection.kind === 'pre_trip' ? (fleet?.minPretripMinutes ?? 15) : (fleet?.minPosttripMinutes ?? 5),
     zones,
     context,
     serverSteps,

@@ -8,7 +8,15 @@ import { appUrl, sendUnitStatusMail } from './send-unit-status-mail';
  * Mail the shop about a report's open defects, one message a unit: out of service when a major
  * defect is open on it, repair needed otherwise. For reports whose first notice was missed.
  */
-export async function notifyReportDefects({ fleetId, actorName, id }: { fleetId: string; actorName: string; id: string }) {
+export async function notifyReportDefects({
+  fleetId,
+  actorName,
+  id,
+}: {
+  fleetId: string;
+  actorName: string;
+  id: string;
+}) {
   const db = getDb();
   const report = await db
     .selectFrom('inspection as i')
@@ -35,12 +43,28 @@ export async function notifyReportDefects({ fleetId, actorName, id }: { fleetId:
   const hasMajor = (list: typeof open) => Number(list.some((d) => d.severity === 'major'));
   const ordered = [...byUnit].sort(([a, listA], [b, listB]) => hasMajor(listB) - hasMajor(listA) || a.localeCompare(b));
   for (const [unitNumber, defects] of ordered) {
-    const list = defects.map((d) => ({ severity: d.severity === 'major' ? ('major' as const) : ('minor' as const), description: d.description, unitNumber }));
+    const list = defects.map((d) => ({
+      severity: d.severity === 'major' ? ('major' as const) : ('minor' as const),
+      description: d.description,
+      unitNumber,
+    }));
     const major = list.some((d) => d.severity === 'major');
     const inspectionUrl = appUrl(`/supervisor/reports/${id}`);
     const mail = major
-      ? renderOutOfServiceMail({ fleetName: report.fleetName, unitNumber, defects: list, inspectionUrl, driverName: report.driverName })
-      : renderRepairNeededMail({ fleetName: report.fleetName, unitNumber, defects: list, inspectionUrl, requestedBy: actorName });
+      ? renderOutOfServiceMail({
+          fleetName: report.fleetName,
+          unitNumber,
+          defects: list,
+          inspectionUrl,
+          driverName: report.driverName,
+        })
+      : renderRepairNeededMail({
+          fleetName: report.fleetName,
+          unitNumber,
+          defects: list,
+          inspectionUrl,
+          requestedBy: actorName,
+        });
     const r = await sendUnitStatusMail({ fleetId, kind: major ? 'out_of_service' : 'repair_needed', mail });
     sent.push({ unitNumber, kind: major ? 'out_of_service' : 'repair_needed', sent: r.sent });
   }

@@ -11,7 +11,17 @@ import { recordAudit } from './record-audit';
  * trigger refuses). A draft scoring lower than the published version on the labelled set is
  * only published with an override and its reason, both kept in the audit log.
  */
-export async function publishVersion({ fleetId, actorId, id, body }: { fleetId: string; actorId: string; id: string; body: PublishBody }) {
+export async function publishVersion({
+  fleetId,
+  actorId,
+  id,
+  body,
+}: {
+  fleetId: string;
+  actorId: string;
+  id: string;
+  body: PublishBody;
+}) {
   return getDb()
     .transaction()
     .execute(async (trx) => {
@@ -26,17 +36,40 @@ export async function publishVersion({ fleetId, actorId, id, body }: { fleetId: 
           { override: ['a reason is needed to publish a draft that lowers accuracy'] },
         );
       }
-      await trx.updateTable('vocabularyVersion').set({ status: 'published', publishedAt: new Date(), publishedBy: actorId }).where('id', '=', id).where('status', '=', 'draft').execute();
-      const figures = { top1: report.figures.top1, top3: report.figures.top3, total: report.figures.total, set: report.set.name };
-      const before = report.published ? { label: report.published.label, top1: report.published.figures.top1, top3: report.published.figures.top3 } : null;
+      await trx
+        .updateTable('vocabularyVersion')
+        .set({ status: 'published', publishedAt: new Date(), publishedBy: actorId })
+        .where('id', '=', id)
+        .where('status', '=', 'draft')
+        .execute();
+      const figures = {
+        top1: report.figures.top1,
+        top3: report.figures.top3,
+        total: report.figures.total,
+        set: report.set.name,
+      };
+      const before = report.published
+        ? { label: report.published.label, top1: report.published.figures.top1, top3: report.published.figures.top3 }
+        : null;
       await recordAudit(trx, {
         fleetId,
         actorId,
         action: report.lowersAccuracy ? 'vocabulary.published_with_override' : 'vocabulary.published',
         entity: 'vocabulary_version',
         entityId: id,
-        detail: { label: report.version.label, figures, replaces: before, ...(report.lowersAccuracy ? { overrideReason: body.override!.reason, newlyMissed: report.newlyMissed.map((l) => l.text) } : {}) },
+        detail: {
+          label: report.version.label,
+          figures,
+          replaces: before,
+          ...(report.lowersAccuracy
+            ? { overrideReason: body.override!.reason, newlyMissed: report.newlyMissed.map((l) => l.text) }
+            : {}),
+        },
       });
-      return { version: await getVocabularyVersionOrThrow(trx, { fleetId, id }), evaluation: report, override: report.lowersAccuracy };
+      return {
+        version: await getVocabularyVersionOrThrow(trx, { fleetId, id }),
+        evaluation: report,
+        override: report.lowersAccuracy,
+      };
     });
 }

@@ -17,7 +17,10 @@ export async function recordAdminAudit(db: DB, e: AdminAuditEntry): Promise<void
 }
 
 /** The fields that differ between before and after, as { field: { from, to } }. */
-export function diffFields<T extends Record<string, unknown>>(before: T, after: Partial<T>): Record<string, { from: unknown; to: unknown }> {
+export function diffFields<T extends Record<string, unknown>>(
+  before: T,
+  after: Partial<T>,
+): Record<string, { from: unknown; to: unknown }> {
   const changes: Record<string, { from: unknown; to: unknown }> = {};
   for (const [key, to] of Object.entries(after)) {
     if (to === undefined) continue;

@@ -20,11 +20,20 @@ import { loadGrammar, resolveTerm } from './resolve-vocabulary';
 // signing commit waits for the disk, which makes every earlier step durable with it.
 
 type Body = z.output<typeof recordStepBodySchema>;
-type Inspection = { fleetId: string; tractorId: string; trailerId: string | null; ruleProfile: string; vocabularyVersionId: string | null };
+type Inspection = {
+  fleetId: string;
+  tractorId: string;
+  trailerId: string | null;
+  ruleProfile: string;
+  vocabularyVersionId: string | null;
+};
 const itemsOf = (zones: Zones) => new Map(zones.zones.flatMap((z) => z.items.map((i) => [i.id, i] as const)));
 
 /** What the rules need about the units of this inspection. */
-export async function loadCheckContext(db: DB, i: { fleetId: string; tractorId: string; trailerId: string | null }): Promise<CheckContext> {
+export async function loadCheckContext(
+  db: DB,
+  i: { fleetId: string; tractorId: string; trailerId: string | null },
+): Promise<CheckContext> {
   const [tractor, trailer, fleet] = await Promise.all([
     findFleetUnit(db, { fleetId: i.fleetId, id: i.tractorId }),
     i.trailerId ? findFleetUnit(db, { fleetId: i.fleetId, id: i.trailerId }) : Promise.resolve(undefined),
@@ -44,12 +53,26 @@ export async function loadCheckContext(db: DB, i: { fleetId: string; tractorId: 
 const startedWith = new Map<string, Inspection>();
 const rememberInspection = (i: Inspection & { id: string }) => {
   if (startedWith.size >= 5000) startedWith.delete(startedWith.keys().next().value!);
-  startedWith.set(`${i.fleetId}:${i.id}`, { fleetId: i.fleetId, tractorId: i.tractorId, trailerId: i.trailerId, ruleProfile: i.ruleProfile, vocabularyVersionId: i.vocabularyVersionId });
+  startedWith.set(`${i.fleetId}:${i.id}`, {
+    fleetId: i.fleetId,
+    tractorId: i.tractorId,
+    trailerId: i.trailerId,
+    ruleProfile: i.ruleProfile,
+    vocabularyVersionId: i.vocabularyVersionId,
+  });
 };
 
 /** The trainers' inbox takes what the vocabulary missed or half-caught. */
 const utteranceOutcome = (body: Body) =>
-  body.inputMode !== 'voice' || !body.heard ? null : body.kind === 'note' ? 'unmatched' : body.resolution === 'corrected' ? 'corrected' : body.resolution === 'confirmed' ? 'low_score' : null;
+  body.inputMode !== 'voice' || !body.heard
+    ? null
+    : body.kind === 'note'
+      ? 'unmatched'
+      : body.resolution === 'corrected'
+        ? 'corrected'
+        : body.resolution === 'confirmed'
+          ? 'low_score'
+          : null;
 
 /** The step's words and judgement, worked out on the server from the inspection's own vocabulary and units. */
 async function judgeStep(db: DB, inspection: Inspection, body: Body) {
@@ -67,7 +90,10 @@ async function judgeStep(db: DB, inspection: Inspection, body: Body) {
   const grammar = await loadGrammar(db, inspection.vocabularyVersionId);
   if (body.termKey) {
     const term = resolveTerm(grammar.vocabulary, body.termKey, inspection.ruleProfile);
-    if (!term) throw new AppError('invalid_body', `“${body.termKey}” is not in this inspection’s vocabulary.`, { termKey: ['not in the vocabulary'] });
+    if (!term)
+      throw new AppError('invalid_body', `“${body.termKey}” is not in this inspection’s vocabulary.`, {
+        termKey: ['not in the vocabulary'],
+      });
     judged.component = term.component;
     judged.condition = term.condition;
     if (body.kind === 'defect') {
@@ -77,7 +103,10 @@ async function judgeStep(db: DB, inspection: Inspection, body: Body) {
   }
   if (body.kind === 'measurement' && body.reading && body.item) {
     const item = itemsOf(grammar.zones).get(body.item);
-    if (!item?.measure) throw new AppError('invalid_body', `“${body.item}” is not a checklist item that takes a reading.`, { item: ['not a measured item'] });
+    if (!item?.measure)
+      throw new AppError('invalid_body', `“${body.item}” is not a checklist item that takes a reading.`, {
+        item: ['not a measured item'],
+      });
     judged.measurementKind = item.measure;
     judged.component = grammar.vocabulary.components.find((c) => c.id === item.component)?.name ?? item.label;
     judged.value = body.reading.value;
@@ -85,7 +114,10 @@ async function judgeStep(db: DB, inspection: Inspection, body: Body) {
     const input = buildCheckInput(item, body.reading, await loadCheckContext(db, inspection));
     if (input) {
       const outcome = evaluateMeasurement(input, { profile: inspection.ruleProfile });
-      if ('error' in outcome) throw new AppError('invalid_body', `That reading cannot be judged: ${outcome.error}.`, { reading: [outcome.error] });
+      if ('error' in outcome)
+        throw new AppError('invalid_body', `That reading cannot be judged: ${outcome.error}.`, {
+          reading: [outcome.error],
+        });
       judged.measurementKind = outcome.check;
       judged.verdict = outcome.verdict;
       judged.severity = outcome.severity;
@@ -120,13 +152,30 @@ const stepRow = (fleetId: string, inspectionId: string, body: Body, judged: Awai
  * Record one step of a walk. The id comes from the device: the same step sent twice is recorded
  * once, even after the report is locked. The server judges readings and finds severities itself.
  */
-export async function recordStep({ fleetId, actorId, inspectionId, body }: { fleetId: string; actorId: string; inspectionId: string; body: Body }) {
+export async function recordStep({
+  fleetId,
+  actorId,
+  inspectionId,
+  body,
+}: {
+  fleetId: string;
+  actorId: string;
+  inspectionId: string;
+  body: Body;
+}) {
   const quick = await writeStepQuickly({ fleetId, actorId, inspectionId, body });
   if (quick) return { step: quick, created: true };
   const outcome = await writeStep({ fleetId, actorId, inspectionId, body });
   if ('refused' in outcome) {
     // Logged outside the refused write, so the attempt stays on record.
-    await recordAudit(getDb(), { fleetId, actorId, action: 'inspection.change_refused', entity: 'inspection', entityId: inspectionId, detail: { stepId: body.id, kind: body.kind } });
+    await recordAudit(getDb(), {
+      fleetId,
+      actorId,
+      action: 'inspection.change_refused',
+      entity: 'inspection',
+      entityId: inspectionId,
+      detail: { stepId: body.id, kind: body.kind },
+    });
     throw new AppError('conflict', 'This report is signed and locked; it cannot change.');
   }
   return outcome;
@@ -142,13 +191,25 @@ const snake = (s: string) => s.replace(/[A-Z]/g, (c) => `_${c.toLowerCase()}`);
  * a reading, a take-back, a phrase for the trainers, a replay, a refusal) returns null and goes
  * the careful way.
  */
-async function writeStepQuickly({ fleetId, actorId, inspectionId, body }: { fleetId: string; actorId: string; inspectionId: string; body: Body }) {
+async function writeStepQuickly({
+  fleetId,
+  actorId,
+  inspectionId,
+  body,
+}: {
+  fleetId: string;
+  actorId: string;
+  inspectionId: string;
+  body: Body;
+}) {
   const inspection = startedWith.get(`${fleetId}:${inspectionId}`);
   if (!inspection || body.kind === 'measurement' || body.undoesStepId || utteranceOutcome(body)) return null;
   const db = getStepDb();
   const row = stepRow(fleetId, inspectionId, body, await judgeStep(db, inspection, body));
   const columns = Object.keys(row).map(snake);
-  const record = Object.fromEntries(Object.entries(row).map(([k, v]) => [snake(k), k === 'alternatives' ? body.alternatives : v]));
+  const record = Object.fromEntries(
+    Object.entries(row).map(([k, v]) => [snake(k), k === 'alternatives' ? body.alternatives : v]),
+  );
   const result = await sql<Record<(typeof stepColumns)[number], unknown>>`
     with live as (
       select id from inspection
@@ -163,13 +224,24 @@ async function writeStepQuickly({ fleetId, actorId, inspectionId, body }: { flee
   return (result.rows[0] as Awaited<ReturnType<typeof findStep>>) ?? null;
 }
 
-async function writeStep({ fleetId, actorId, inspectionId, body }: { fleetId: string; actorId: string; inspectionId: string; body: Body }) {
+async function writeStep({
+  fleetId,
+  actorId,
+  inspectionId,
+  body,
+}: {
+  fleetId: string;
+  actorId: string;
+  inspectionId: string;
+  body: Body;
+}) {
   return getStepDb()
     .transaction()
     .execute(async (trx) => {
       const inspection = await findInspectionForUpdate(trx, { fleetId, id: inspectionId });
       if (!inspection) throw new AppError('not_found', 'No such inspection in your fleet.');
-      if (inspection.driverId !== actorId) throw new AppError('forbidden', 'Only the driver who started this inspection records its steps.');
+      if (inspection.driverId !== actorId)
+        throw new AppError('forbidden', 'Only the driver who started this inspection records its steps.');
       if (inspection.status === 'submitted') {
         // A replay of a step the report already holds is harmless; anything new is refused.
         const already = await findStep(trx, { inspectionId, id: body.id });
@@ -178,7 +250,10 @@ async function writeStep({ fleetId, actorId, inspectionId, body }: { fleetId: st
       rememberInspection(inspection);
       if (body.undoesStepId) {
         const target = await findStep(trx, { inspectionId, id: body.undoesStepId });
-        if (!target) throw new AppError('invalid_body', 'The step to take back is not part of this inspection.', { undoesStepId: ['not part of this inspection'] });
+        if (!target)
+          throw new AppError('invalid_body', 'The step to take back is not part of this inspection.', {
+            undoesStepId: ['not part of this inspection'],
+          });
       }
       const step = await trx
         .insertInto('inspectionStep')
@@ -190,7 +265,20 @@ async function writeStep({ fleetId, actorId, inspectionId, body }: { fleetId: st
       if (step && outcome && body.heard) {
         await trx
           .insertInto('fieldUtterance')
-          .values({ fleetId, stepId: step.id, zone: body.zone, text: body.heard, normalized: body.heard.toLowerCase().replace(/[^a-z0-9' ]+/g, ' ').replace(/\s+/g, ' ').trim(), outcome, termKey: body.termKey, score: body.score })
+          .values({
+            fleetId,
+            stepId: step.id,
+            zone: body.zone,
+            text: body.heard,
+            normalized: body.heard
+              .toLowerCase()
+              .replace(/[^a-z0-9' ]+/g, ' ')
+              .replace(/\s+/g, ' ')
+              .trim(),
+            outcome,
+            termKey: body.termKey,
+            score: body.score,
+          })
           .execute();
       }
       if (step) return { step, created: true };

@@ -12,7 +12,11 @@ export async function loadGrammar(db: DB, versionId: string | null): Promise<Gra
   if (!versionId) return getDefaultGrammar();
   const hit = cache.get(versionId);
   if (hit) return hit;
-  const row = await db.selectFrom('vocabularyVersion').select(['status', sql<string>`grammar::text`.as('grammarText')]).where('id', '=', versionId).executeTakeFirst();
+  const row = await db
+    .selectFrom('vocabularyVersion')
+    .select(['status', sql<string>`grammar::text`.as('grammarText')])
+    .where('id', '=', versionId)
+    .executeTakeFirst();
   let grammar: Grammar;
   try {
     grammar = row ? toFullGrammar(JSON.parse(row.grammarText)) : getDefaultGrammar();
@@ -28,7 +32,13 @@ export async function loadVocabulary(db: DB, versionId: string | null): Promise<
   return (await loadGrammar(db, versionId)).vocabulary;
 }
 
-export type ResolvedTerm = { componentId: string; component: string; condition: string; severity: 'minor' | 'major'; source: string | null };
+export type ResolvedTerm = {
+  componentId: string;
+  component: string;
+  condition: string;
+  severity: 'minor' | 'major';
+  source: string | null;
+};
 
 /** A component:condition key → its plain words and its severity under the rule profile; null if unknown. */
 export function resolveTerm(vocab: Vocabulary, termKey: string, profile: string): ResolvedTerm | null {
@@ -37,6 +47,15 @@ export function resolveTerm(vocab: Vocabulary, termKey: string, profile: string)
   const condition = vocab.conditions.find((c) => c.id === conditionId);
   if (!component || !condition) return null;
   const pair = component.defects.find((d) => d.condition === condition.id);
-  const sev = getFindingSeverity({ componentId: component.id, conditionId: condition.id, severity: pair?.severity, source: pair?.source }, profile);
-  return { componentId: component.id, component: component.name, condition: condition.name, severity: sev.severity, source: sev.source };
+  const sev = getFindingSeverity(
+    { componentId: component.id, conditionId: condition.id, severity: pair?.severity, source: pair?.source },
+    profile,
+  );
+  return {
+    componentId: component.id,
+    component: component.name,
+    condition: condition.name,
+    severity: sev.severity,
+    source: sev.source,
+  };
 }

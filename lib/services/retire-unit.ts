@@ -9,7 +9,12 @@ import { recordAdminAudit } from './record-admin-audit';
  * Take a unit out of the fleet for good: it keeps its records and its number, and can no
  * longer be picked for a new inspection. Nothing is deleted.
  */
-export async function retireUnit(opts: { fleetId: string; actorId: string; unitId: string; reason?: string | null }): Promise<{ unit: UnitDto }> {
+export async function retireUnit(opts: {
+  fleetId: string;
+  actorId: string;
+  unitId: string;
+  reason?: string | null;
+}): Promise<{ unit: UnitDto }> {
   const { fleetId, actorId, unitId } = opts;
   return getDb()
     .transaction()

@@ -25,11 +25,23 @@ export function sniffImageType(bytes: Uint8Array): 'image/jpeg' | 'image/png' | 
  */
 export async function encodePhoto(bytes: Uint8Array): Promise<{ type: string; full: Buffer; thumb: Buffer }> {
   const type = sniffImageType(bytes);
-  if (!type) throw new AppError('unsupported_media_type', 'That file is not a photo RigCall can read. Send a JPEG, PNG or WebP image.');
+  if (!type)
+    throw new AppError(
+      'unsupported_media_type',
+      'That file is not a photo RigCall can read. Send a JPEG, PNG or WebP image.',
+    );
   try {
     const image = sharp(bytes, { failOn: 'error', limitInputPixels: 80_000_000 }).rotate();
-    const full = await image.clone().resize({ width: 1600, height: 1600, fit: 'inside', withoutEnlargement: true }).jpeg({ quality: 82, mozjpeg: true }).toBuffer();
-    const thumb = await image.clone().resize({ width: 320, height: 320, fit: 'inside', withoutEnlargement: true }).jpeg({ quality: 70 }).toBuffer();
+    const full = await image
+      .clone()
+      .resize({ width: 1600, height: 1600, fit: 'inside', withoutEnlargement: true })
+      .jpeg({ quality: 82, mozjpeg: true })
+      .toBuffer();
+    const thumb = await image
+      .clone()
+      .resize({ width: 320, height: 320, fit: 'inside', withoutEnlargement: true })
+      .jpeg({ quality: 70 })
+      .toBuffer();
     return { type, full, thumb };
   } catch {
     throw new AppError('unsupported_media_type', 'That photo is damaged or cut off; take it again.');
@@ -40,17 +52,43 @@ export async function encodePhoto(bytes: Uint8Array): Promise<{ type: string; fu
  * Store a defect photo: the type is checked from the bytes, the image is re-encoded (which drops
  * its metadata, location included) and a thumbnail is made. The same photo id twice stores once.
  */
-export async function savePhoto({ fleetId, actorId, inspectionId, photoId, stepId, bytes }: { fleetId: string; actorId: string; inspectionId: string; photoId: string; stepId: string | null; bytes: Uint8Array }) {
+export async function savePhoto({
+  fleetId,
+  actorId,
+  inspectionId,
+  photoId,
+  stepId,
+  bytes,
+}: {
+  fleetId: string;
+  actorId: string;
+  inspectionId: string;
+  photoId: string;
+  stepId: string | null;
+  bytes: Uint8Array;
+}) {
   const db = getDb();
-  const existing = await db.selectFrom('attachment').select(['id', 'inspectionId', 'sizeBytes', 'sha256']).where('id', '=', photoId).where('fleetId', '=', fleetId).executeTakeFirst();
+  const existing = await db
+    .selectFrom('attachment')
+    .select(['id', 'inspectionId', 'sizeBytes', 'sha256'])
+    .where('id', '=', photoId)
+    .where('fleetId', '=', fleetId)
+    .executeTakeFirst();
   if (existing) {
-    if (existing.inspectionId !== inspectionId) throw new AppError('conflict', 'That photo id belongs to another inspection.');
+    if (existing.inspectionId !== inspectionId)
+      throw new AppError('conflict', 'That photo id belongs to another inspection.');
     return { attachment: existing, created: false };
   }
   const { type, full, thumb } = await encodePhoto(bytes);
-  const inspection = await db.selectFrom('inspection').select(['id', 'driverId', 'status']).where('fleetId', '=', fleetId).where('id', '=', inspectionId).executeTakeFirst();
+  const inspection = await db
+    .selectFrom('inspection')
+    .select(['id', 'driverId', 'status'])
+    .where('fleetId', '=', fleetId)
+    .where('id', '=', inspectionId)
+    .executeTakeFirst();
   if (!inspection) throw new AppError('not_found', 'No such inspection in your fleet.');
-  if (inspection.driverId !== actorId) throw new AppError('forbidden', 'Only the driver of this inspection adds its photos.');
+  if (inspection.driverId !== actorId)
+    throw new AppError('forbidden', 'Only the driver of this inspection adds its photos.');
   const key = `fleet/${fleetId}/inspections/${inspectionId}/photos/${photoId}.jpg`;
   await putObject(key, full, 'image/jpeg');
   await putObject(key.replace(/\.jpg$/, '.thumb.jpg'), thumb, 'image/jpeg');
@@ -59,15 +97,36 @@ export async function savePhoto({ fleetId, actorId, inspectionId, photoId, stepI
     const locked = await findInspectionForUpdate(trx, { fleetId, id: inspectionId });
     // Photos taken before signing may arrive after it, when the device was offline.
     if (stepId && !(await findStep(trx, { inspectionId, id: stepId }))) {
-      if (locked?.status !== 'submitted') throw new AppError('conflict', 'The finding this photo belongs to has not arrived yet; it will be sent again.');
+      if (locked?.status !== 'submitted')
+        throw new AppError('conflict', 'The finding this photo belongs to has not arrived yet; it will be sent again.');
     }
     const attachment = await trx
       .insertInto('attachment')
-      .values({ id: photoId, fleetId, inspectionId, stepId: stepId && (await findStep(trx, { inspectionId, id: stepId })) ? stepId : null, objectKey: key, contentType: 'image/jpeg', sizeBytes: full.byteLength, sha256, uploadedBy: actorId })
+      .values({
+        id: photoId,
+        fleetId,
+        inspectionId,
+        stepId: stepId && (await findStep(trx, { inspectionId, id: stepId })) ? stepId : null,
+        objectKey: key,
+        contentType: 'image/jpeg',
+        sizeBytes: full.byteLength,
+        sha256,
+        uploadedBy: actorId,
+      })
       .onConflict((oc) => oc.column('id').doNothing())
       .returning(['id', 'inspectionId', 'sizeBytes', 'sha256'])
       .executeTakeFirst();
-    await recordAudit(trx, { fleetId, actorId, action: 'photo.add', entity: 'inspection', entityId: inspectionId, detail: { photoId, stepId, bytesIn: bytes.byteLength, bytesStored: full.byteLength, sniffed: type } });
-    return { attachment: attachment ?? { id: photoId, inspectionId, sizeBytes: full.byteLength, sha256 }, created: !!attachment };
+    await recordAudit(trx, {
+      fleetId,
+      actorId,
+      action: 'photo.add',
+      entity: 'inspection',
+      entityId: inspectionId,
+      detail: { photoId, stepId, bytesIn: bytes.byteLength, bytesStored: full.byteLength, sniffed: type },
+    });
+    return {
+      attachment: attachment ?? { id: photoId, inspectionId, sizeBytes: full.byteLength, sha256 },
+      created: !!attachment,
+    };
   });
 }

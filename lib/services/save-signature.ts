@@ -12,11 +12,25 @@ export const MAX_SIGNATURE_BYTES = 512 * 1024;
  * The driver's drawn signature, stored before the report is signed and locked. Sending it again
  * replaces it while the report is a draft; after signing it cannot change.
  */
-export async function saveSignature({ fleetId, actorId, inspectionId, bytes }: { fleetId: string; actorId: string; inspectionId: string; bytes: Uint8Array }) {
-  if (sniffImageType(bytes) !== 'image/png') throw new AppError('unsupported_media_type', 'A drawn signature is sent as a PNG image.');
+export async function saveSignature({
+  fleetId,
+  actorId,
+  inspectionId,
+  bytes,
+}: {
+  fleetId: string;
+  actorId: string;
+  inspectionId: string;
+  bytes: Uint8Array;
+}) {
+  if (sniffImageType(bytes) !== 'image/png')
+    throw new AppError('unsupported_media_type', 'A drawn signature is sent as a PNG image.');
   let png: Buffer;
   try {
-    png = await sharp(bytes, { failOn: 'error', limitInputPixels: 4_000_000 }).resize({ width: 900, height: 400, fit: 'inside', withoutEnlargement: true }).png().toBuffer();
+    png = await sharp(bytes, { failOn: 'error', limitInputPixels: 4_000_000 })
+      .resize({ width: 900, height: 400, fit: 'inside', withoutEnlargement: true })
+      .png()
+      .toBuffer();
   } catch {
     throw new AppError('unsupported_media_type', 'That signature image is damaged; sign again.');
   }
@@ -26,10 +40,15 @@ export async function saveSignature({ fleetId, actorId, inspectionId, bytes }: {
     .execute(async (trx) => {
       const inspection = await findInspectionForUpdate(trx, { fleetId, id: inspectionId });
       if (!inspection) throw new AppError('not_found', 'No such inspection in your fleet.');
-      if (inspection.driverId !== actorId) throw new AppError('forbidden', 'Only the driver of this inspection signs it.');
+      if (inspection.driverId !== actorId)
+        throw new AppError('forbidden', 'Only the driver of this inspection signs it.');
       if (inspection.status === 'submitted') {
         // The same signature sent again after a reconnect is fine; a new one is not.
-        const row = await trx.selectFrom('inspection').select('signatureKey').where('id', '=', inspectionId).executeTakeFirstOrThrow();
+        const row = await trx
+          .selectFrom('inspection')
+          .select('signatureKey')
+          .where('id', '=', inspectionId)
+          .executeTakeFirstOrThrow();
         if (row.signatureKey === key) return { signatureKey: key, created: false };
         throw new AppError('conflict', 'This report is signed and locked; its signature cannot change.');
       }

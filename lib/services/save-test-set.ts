@@ -6,14 +6,38 @@ import { parseTestSetOrThrow } from './load-test-set';
 import { recordAudit } from './record-audit';
 
 /** Import a labelled JSONL set as the fleet's own (replacing the one it had). */
-export async function saveTestSet({ fleetId, actorId, body }: { fleetId: string; actorId: string; body: SaveTestSetBody }) {
+export async function saveTestSet({
+  fleetId,
+  actorId,
+  body,
+}: {
+  fleetId: string;
+  actorId: string;
+  body: SaveTestSetBody;
+}) {
   const items = parseTestSetOrThrow(body.jsonl);
-  const jsonl = `${body.jsonl.split('\n').filter((l) => l.trim()).join('\n')}\n`;
+  const jsonl = `${body.jsonl
+    .split('\n')
+    .filter((l) => l.trim())
+    .join('\n')}\n`;
   return getDb()
     .transaction()
     .execute(async (trx) => {
-      const row = await upsertTestSet(trx, { fleetId, name: body.name, jsonl, lineCount: items.length, updatedBy: actorId });
-      await recordAudit(trx, { fleetId, actorId, action: 'vocabulary.test_set_imported', entity: 'vocabulary_test_set', entityId: row.id, detail: { name: body.name, lines: items.length } });
+      const row = await upsertTestSet(trx, {
+        fleetId,
+        name: body.name,
+        jsonl,
+        lineCount: items.length,
+        updatedBy: actorId,
+      });
+      await recordAudit(trx, {
+        fleetId,
+        actorId,
+        action: 'vocabulary.test_set_imported',
+        entity: 'vocabulary_test_set',
+        entityId: row.id,
+        detail: { name: body.name, lines: items.length },
+      });
       return { name: row.name, count: row.lineCount, source: 'fleet' as const, updatedAt: row.updatedAt.toISOString() };
     });
 }

@@ -16,14 +16,38 @@ export function appUrl(path: string): string {
  * Send one unit-status mail to the fleet's maintenance and supervisor addresses and keep a copy
  * in mail_outbox (sent or failed). A failed send never undoes the certification that caused it.
  */
-export async function sendUnitStatusMail({ fleetId, kind, mail, extraTo = [] }: { fleetId: string; kind: UnitMailKind; mail: RenderedMail; extraTo?: string[] }) {
+export async function sendUnitStatusMail({
+  fleetId,
+  kind,
+  mail,
+  extraTo = [],
+}: {
+  fleetId: string;
+  kind: UnitMailKind;
+  mail: RenderedMail;
+  extraTo?: string[];
+}) {
   const db = getDb();
-  const fleet = await db.selectFrom('fleet').select(['maintenanceEmail', 'supervisorEmail']).where('id', '=', fleetId).executeTakeFirst();
-  const to = [...new Set([fleet?.maintenanceEmail, fleet?.supervisorEmail, ...extraTo].filter((x): x is string => !!x))];
+  const fleet = await db
+    .selectFrom('fleet')
+    .select(['maintenanceEmail', 'supervisorEmail'])
+    .where('id', '=', fleetId)
+    .executeTakeFirst();
+  const to = [
+    ...new Set([fleet?.maintenanceEmail, fleet?.supervisorEmail, ...extraTo].filter((x): x is string => !!x)),
+  ];
   if (!to.length) return { sent: false as const, reason: 'no maintenance or supervisor address in the fleet settings' };
   const row = await db
     .insertInto('mailOutbox')
-    .values({ fleetId, kind, toAddresses: to, subject: mail.subject, textBody: mail.text, htmlBody: mail.html, attempts: 1 })
+    .values({
+      fleetId,
+      kind,
+      toAddresses: to,
+      subject: mail.subject,
+      textBody: mail.text,
+      htmlBody: mail.html,
+      attempts: 1,
+    })
     .returning('id')
     .executeTakeFirstOrThrow();
   try {
@@ -32,7 +56,11 @@ export async function sendUnitStatusMail({ fleetId, kind, mail, extraTo = [] }: 
     return { sent: true as const, to };
   } catch (err) {
     console.error('[rigcall] mail failed', kind, err);
-    await db.updateTable('mailOutbox').set({ status: 'failed', lastError: String(err).slice(0, 500) }).where('id', '=', row.id).execute();
+    await db
+      .updateTable('mailOutbox')
+      .set({ status: 'failed', lastError: String(err).slice(0, 500) })
+      .where('id', '=', row.id)
+      .execute();
     return { sent: false as const, reason: 'the mail server did not take the message; it is kept in the outbox' };
   }
 }

@@ -8,7 +8,11 @@ import type { StartInspectionBody } from '@/lib/schemas/inspections';
 import { findUnitReview } from './find-unit-review';
 import { recordAudit } from './record-audit';
 
-type Parsed = Omit<StartInspectionBody, 'location' | 'billOfLading' | 'sealNumber'> & { location: string | null; billOfLading: string | null; sealNumber: string | null };
+type Parsed = Omit<StartInspectionBody, 'location' | 'billOfLading' | 'sealNumber'> & {
+  location: string | null;
+  billOfLading: string | null;
+  sealNumber: string | null;
+};
 
 /**
  * Open a draft inspection with the id the device chose. Sending the same start again returns the
@@ -25,16 +29,32 @@ export async function startInspection({ fleetId, actorId, body }: { fleetId: str
         return { inspection: existing, created: false };
       }
       const tractor = await findUsableUnit(trx, { fleetId, id: body.tractorId, kind: 'tractor' });
-      if (!tractor) throw new AppError('invalid_body', 'Pick one of your fleet’s tractors in service.', { tractorId: ['Pick one of your fleet’s tractors.'] });
-      const trailer = body.trailerId ? await findUsableUnit(trx, { fleetId, id: body.trailerId, kind: 'trailer' }) : null;
-      if (body.trailerId && !trailer) throw new AppError('invalid_body', 'Pick one of your fleet’s trailers, or no trailer.', { trailerId: ['Pick one of your fleet’s trailers, or no trailer.'] });
+      if (!tractor)
+        throw new AppError('invalid_body', 'Pick one of your fleet’s tractors in service.', {
+          tractorId: ['Pick one of your fleet’s tractors.'],
+        });
+      const trailer = body.trailerId
+        ? await findUsableUnit(trx, { fleetId, id: body.trailerId, kind: 'trailer' })
+        : null;
+      if (body.trailerId && !trailer)
+        throw new AppError('invalid_body', 'Pick one of your fleet’s trailers, or no trailer.', {
+          trailerId: ['Pick one of your fleet’s trailers, or no trailer.'],
+        });
       const fleet = await findFleetSettings(trx, { fleetId });
       if (!fleet) throw new AppError('not_found', 'Your fleet was not found.');
 
       for (const unit of [tractor, trailer].filter((u): u is NonNullable<typeof u> => !!u)) {
-        const review = await findUnitReview(trx, { fleetId, unitId: unit.id, driverId: actorId, profile: fleet.ruleProfile });
+        const review = await findUnitReview(trx, {
+          fleetId,
+          unitId: unit.id,
+          driverId: actorId,
+          profile: fleet.ruleProfile,
+        });
         if (review.mustAcknowledge) {
-          throw new AppError('conflict', `Review and sign the last report of unit ${unit.unitNumber} before you start: it lists defects.`);
+          throw new AppError(
+            'conflict',
+            `Review and sign the last report of unit ${unit.unitNumber} before you start: it lists defects.`,
+          );
         }
       }
       const vocabulary = await findPublishedVocabulary(trx, { fleetId });
@@ -55,9 +75,36 @@ export async function startInspection({ fleetId, actorId, body }: { fleetId: str
           vocabularyVersionId: vocabulary?.id ?? null,
           startedAt: new Date(body.startedAt),
         })
-        .returning(['id', 'fleetId', 'kind', 'status', 'driverId', 'tractorId', 'trailerId', 'odometer', 'location', 'billOfLading', 'sealNumber', 'ruleProfile', 'vocabularyVersionId', 'startedAt', 'finishedAt', 'signatureName', 'signedAt', 'certificationText', 'contentHash'])
+        .returning([
+          'id',
+          'fleetId',
+          'kind',
+          'status',
+          'driverId',
+          'tractorId',
+          'trailerId',
+          'odometer',
+          'location',
+          'billOfLading',
+          'sealNumber',
+          'ruleProfile',
+          'vocabularyVersionId',
+          'startedAt',
+          'finishedAt',
+          'signatureName',
+          'signedAt',
+          'certificationText',
+          'contentHash',
+        ])
         .executeTakeFirstOrThrow();
-      await recordAudit(trx, { fleetId, actorId, action: 'inspection.start', entity: 'inspection', entityId: inspection.id, detail: { kind: body.kind, tractor: tractor.unitNumber, trailer: trailer?.unitNumber ?? null } });
+      await recordAudit(trx, {
+        fleetId,
+        actorId,
+        action: 'inspection.start',
+        entity: 'inspection',
+        entityId: inspection.id,
+        detail: { kind: body.kind, tractor: tractor.unitNumber, trailer: trailer?.unitNumber ?? null },
+      });
       return { inspection, created: true };
     });
 }

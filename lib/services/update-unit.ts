@@ -7,7 +7,9 @@ import { unitNumberTaken } from './create-unit';
 import { diffFields, isUniqueViolation, recordAdminAudit } from './record-admin-audit';
 
 /** Edit a unit's number, plate, VIN, make/model/year or axle layout. Retired units are read-only. */
-export async function updateUnit(opts: { fleetId: string; actorId: string; unitId: string } & Partial<UnitFields>): Promise<{ unit: UnitDto }> {
+export async function updateUnit(
+  opts: { fleetId: string; actorId: string; unitId: string } & Partial<UnitFields>,
+): Promise<{ unit: UnitDto }> {
   const { fleetId, actorId, unitId, ...change } = opts;
   try {
     return await getDb()
@@ -15,13 +17,16 @@ export async function updateUnit(opts: { fleetId: string; actorId: string; unitI
       .execute(async (trx) => {
         const before = await findFleetUnit(trx, { fleetId, id: unitId });
         if (!before) throw new AppError('not_found', 'There is no such unit in this fleet.');
-        if (before.retiredAt) throw new AppError('conflict', `Unit ${before.unitNumber} is retired; its record can no longer change.`);
+        if (before.retiredAt)
+          throw new AppError('conflict', `Unit ${before.unitNumber} is retired; its record can no longer change.`);
 
         const axles = change.axles ?? before.axles;
         const axleProblems = findAxleProblems(before.kind, axles);
-        if (Object.keys(axleProblems).length) throw new AppError('invalid_body', Object.values(axleProblems)[0]![0]!, axleProblems);
+        if (Object.keys(axleProblems).length)
+          throw new AppError('invalid_body', Object.values(axleProblems)[0]![0]!, axleProblems);
         const plate = change.plate !== undefined ? change.plate : before.plate;
-        const jurisdiction = change.plateJurisdiction !== undefined ? change.plateJurisdiction : before.plateJurisdiction;
+        const jurisdiction =
+          change.plateJurisdiction !== undefined ? change.plateJurisdiction : before.plateJurisdiction;
         if (plate && !jurisdiction) {
           const message = 'Pick the state or province that issued this plate.';
           throw new AppError('invalid_body', message, { plateJurisdiction: [message] });
@@ -33,14 +38,24 @@ export async function updateUnit(opts: { fleetId: string; actorId: string; unitI
         }
         const changes = diffFields(before, change);
         if (Object.keys(changes).length === 0) return { unit: before };
-        const set = Object.fromEntries(Object.keys(changes).map((k) => [k, change[k as keyof UnitFields]])) as Partial<UnitFields>;
+        const set = Object.fromEntries(
+          Object.keys(changes).map((k) => [k, change[k as keyof UnitFields]]),
+        ) as Partial<UnitFields>;
         const unit = await updateFleetUnitRow(trx, { fleetId, id: unitId, set });
         if (!unit) throw new AppError('not_found', 'There is no such unit in this fleet.');
-        await recordAdminAudit(trx, { fleetId, actorId, action: 'unit.updated', entity: 'unit', entityId: unitId, detail: { unitNumber: unit.unitNumber, changes } });
+        await recordAdminAudit(trx, {
+          fleetId,
+          actorId,
+          action: 'unit.updated',
+          entity: 'unit',
+          entityId: unitId,
+          detail: { unitNumber: unit.unitNumber, changes },
+        });
         return { unit };
       });
   } catch (err) {
-    if (isUniqueViolation(err, 'unit_fleet_number_key') && change.unitNumber) throw unitNumberTaken(change.unitNumber, false);
+    if (isUniqueViolation(err, 'unit_fleet_number_key') && change.unitNumber)
+      throw unitNumberTaken(change.unitNumber, false);
     throw err;
   }
 }

@@ -21,10 +21,14 @@ export async function updateUser(opts: {
   const { fleetId, actorId, userId } = opts;
   const self = userId === actorId;
   if (self && opts.active === false) {
-    throw new AppError('conflict', 'You cannot deactivate your own account. Another admin can do it.', { active: ['You cannot deactivate your own account.'] });
+    throw new AppError('conflict', 'You cannot deactivate your own account. Another admin can do it.', {
+      active: ['You cannot deactivate your own account.'],
+    });
   }
   if (self && opts.roles && !opts.roles.includes('admin')) {
-    throw new AppError('conflict', 'You cannot remove your own admin role. Another admin can do it.', { roles: ['You cannot remove your own admin role.'] });
+    throw new AppError('conflict', 'You cannot remove your own admin role. Another admin can do it.', {
+      roles: ['You cannot remove your own admin role.'],
+    });
   }
   return getDb()
     .transaction()
@@ -40,7 +44,14 @@ export async function updateUser(opts: {
       const user = await updateFleetUserRow(trx, { fleetId, id: userId, set });
       if (!user) throw new AppError('not_found', 'There is no such user in this fleet.');
       const audit = (action: string, detail: Record<string, unknown>) =>
-        recordAdminAudit(trx, { fleetId, actorId, action, entity: 'app_user', entityId: userId, detail: { email: before.email, ...detail } });
+        recordAdminAudit(trx, {
+          fleetId,
+          actorId,
+          action,
+          entity: 'app_user',
+          entityId: userId,
+          detail: { email: before.email, ...detail },
+        });
       if (set.name !== undefined) await audit('user.renamed', { from: before.name, to: set.name });
       if (set.roles !== undefined) await audit('user.roles_changed', { from: before.roles, to: set.roles });
       if (set.active !== undefined) await audit(set.active ? 'user.reactivated' : 'user.deactivated', {});

@@ -19,7 +19,9 @@ function client(): S3Client {
 }
 
 export async function putObject(key: string, body: Uint8Array, contentType: string): Promise<void> {
-  await client().send(new PutObjectCommand({ Bucket: getEnv().S3_BUCKET, Key: key, Body: body, ContentType: contentType }));
+  await client().send(
+    new PutObjectCommand({ Bucket: getEnv().S3_BUCKET, Key: key, Body: body, ContentType: contentType }),
+  );
 }
 
 export async function getObjectBytes(key: string): Promise<{ bytes: Uint8Array; contentType: string | undefined }> {
@@ -30,7 +32,11 @@ export async function getObjectBytes(key: string): Promise<{ bytes: Uint8Array; 
 
 /** A URL the browser may PUT one object to, for a few minutes. */
 export async function presignPut(key: string, contentType: string, expiresIn = 300): Promise<string> {
-  return getSignedUrl(client(), new PutObjectCommand({ Bucket: getEnv().S3_BUCKET, Key: key, ContentType: contentType }), { expiresIn });
+  return getSignedUrl(
+    client(),
+    new PutObjectCommand({ Bucket: getEnv().S3_BUCKET, Key: key, ContentType: contentType }),
+    { expiresIn },
+  );
 }
 
 export async function presignGet(key: string, expiresIn = 300): Promise<string> {

@@ -16,6 +16,11 @@ export async function makeFleetFixture(db: DB, name = 'Fixture fleet') {
   }
   const tractor = await makeUnit(db, { fleetId: fleet.id, kind: 'tractor' });
   const trailer = await makeUnit(db, { fleetId: fleet.id, kind: 'trailer' });
-  const inspection = await makeInspection(db, { fleetId: fleet.id, driverId: users.driver.id, tractorId: tractor.id, trailerId: trailer.id });
+  const inspection = await makeInspection(db, {
+    fleetId: fleet.id,
+    driverId: users.driver.id,
+    tractorId: tractor.id,
+    trailerId: trailer.id,
+  });
   return { fleet, users, cookies, tractor, trailer, inspection };
 }

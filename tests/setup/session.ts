@@ -1,12 +1,25 @@
 // Real next-auth session cookies for calling route handlers directly in integration tests.
 import { encode } from 'next-auth/jwt';
 
-export async function sessionCookieFor(user: { id: string; name?: string; email?: string; fleetId: string; roles: string[] }): Promise<string> {
+export async function sessionCookieFor(user: {
+  id: string;
+  name?: string;
+  email?: string;
+  fleetId: string;
+  roles: string[];
+}): Promise<string> {
   const secret = process.env.NEXTAUTH_SECRET;
   if (!secret) throw new Error('NEXTAUTH_SECRET is not set');
   const token = await encode({
     secret,
-    token: { uid: user.id, name: user.name ?? 'Test', email: user.email ?? 'test@test.example', fleetId: user.fleetId, roles: user.roles as never, sub: user.id },
+    token: {
+      uid: user.id,
+      name: user.name ?? 'Test',
+      email: user.email ?? 'test@test.example',
+      fleetId: user.fleetId,
+      roles: user.roles as never,
+      sub: user.id,
+    },
   });
   return `next-auth.session-token=${token}`;
 }
@@ -19,7 +32,8 @@ export function makeRequest(path: string, init: CallInit = {}): Request {
   if (init.cookie) headers.cookie = init.cookie;
   if (init.json !== undefined) headers['content-type'] = 'application/json';
   // What a browser sends with a write from our own pages (define-route refuses other origins).
-  if (init.method && init.method !== 'GET' && !Object.keys(headers).some((h) => h.toLowerCase() === 'origin')) headers.origin = 'http://127.0.0.1:3100';
+  if (init.method && init.method !== 'GET' && !Object.keys(headers).some((h) => h.toLowerCase() === 'origin'))
+    headers.origin = 'http://127.0.0.1:3100';
   return new Request(`http://127.0.0.1:3100${path}`, {
     method: init.method ?? 'GET',
     headers,
@@ -27,7 +41,10 @@ export function makeRequest(path: string, init: CallInit = {}): Request {
   });
 }
 
-type RouteFn = (req: Request, ctx: { params: Promise<Record<string, string | string[] | undefined>> }) => Promise<Response>;
+type RouteFn = (
+  req: Request,
+  ctx: { params: Promise<Record<string, string | string[] | undefined>> },
+) => Promise<Response>;
 
 /** Call a route handler with path params, the way Next does. */
 export function callRoute(fn: RouteFn, req: Request, params: Record<string, string> = {}): Promise<Response> {

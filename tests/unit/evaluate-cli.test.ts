@@ -56,7 +56,13 @@ describe('npm run -s evaluate', () => {
     const out = lines.map((line) => JSON.parse(line) as Record<string, unknown>);
     expect(out[0]).toEqual({ error: expect.stringMatching(/not JSON/) });
     // 49 CFR 393.75(b): steer tread at least 4/32 in.
-    expect(out[1]).toMatchObject({ check: 'tread_depth', verdict: 'fail', severity: 'major', limit: 4, source: '49 CFR 393.75(b)' });
+    expect(out[1]).toMatchObject({
+      check: 'tread_depth',
+      verdict: 'fail',
+      severity: 'major',
+      limit: 4,
+      source: '49 CFR 393.75(b)',
+    });
     expect(out[2]).toEqual({ error: expect.stringMatching(/unknown check/) });
     expect(out[3]).toEqual({ error: expect.stringMatching(/missing field "value"/) });
     expect(out[4]).toEqual({ error: expect.stringMatching(/must not be negative/) });

@@ -1,16 +1,33 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { commandsSchema, grammarSchema, numbersSchema, positionsSchema, vocabularySchema, zonesSchema } from '@/lib/schemas/grammar';
+import {
+  commandsSchema,
+  grammarSchema,
+  numbersSchema,
+  positionsSchema,
+  vocabularySchema,
+  zonesSchema,
+} from '@/lib/schemas/grammar';
 
 const dir = new URL('../../grammars/', import.meta.url);
 const load = (name: string): unknown => JSON.parse(readFileSync(new URL(name, dir), 'utf8'));
-const schemas = { 'vocabulary.json': vocabularySchema, 'commands.json': commandsSchema, 'positions.json': positionsSchema, 'numbers.json': numbersSchema, 'zones.json': zonesSchema } as const;
+const schemas = {
+  'vocabulary.json': vocabularySchema,
+  'commands.json': commandsSchema,
+  'positions.json': positionsSchema,
+  'numbers.json': numbersSchema,
+  'zones.json': zonesSchema,
+} as const;
 
 const findDuplicates = (ids: string[]) => ids.filter((id, i) => ids.indexOf(id) !== i);
 
 describe('grammars/', () => {
   it('holds exactly the known grammar files', () => {
-    expect(readdirSync(dir).filter((f) => f.endsWith('.json')).sort()).toEqual(Object.keys(schemas).sort());
+    expect(
+      readdirSync(dir)
+        .filter((f) => f.endsWith('.json'))
+        .sort(),
+    ).toEqual(Object.keys(schemas).sort());
   });
 
   it.each(Object.entries(schemas))('%s parses with its schema and carries a version', (name, schema) => {
@@ -47,21 +64,56 @@ describe('grammars/', () => {
 
   it('covers the systems of a daily tractor-trailer inspection', () => {
     const ids = vocabulary.systems.map((s) => s.id);
-    for (const id of ['air_brakes', 'cab_glass', 'mirrors', 'wipers_washers', 'horn', 'heater_defroster', 'lamps_reflectors', 'steering', 'suspension', 'tires', 'wheels_hubs_fasteners', 'frame_body', 'coupling', 'landing_gear', 'exhaust', 'fuel', 'engine_bay', 'doors_latches', 'cargo_securement', 'emergency_equipment', 'seat_belt', 'abs', 'rear_impact_guard', 'mud_flaps', 'documents_stickers']) {
+    for (const id of [
+      'air_brakes',
+      'cab_glass',
+      'mirrors',
+      'wipers_washers',
+      'horn',
+      'heater_defroster',
+      'lamps_reflectors',
+      'steering',
+      'suspension',
+      'tires',
+      'wheels_hubs_fasteners',
+      'frame_body',
+      'coupling',
+      'landing_gear',
+      'exhaust',
+      'fuel',
+      'engine_bay',
+      'doors_latches',
+      'cargo_securement',
+      'emergency_equipment',
+      'seat_belt',
+      'abs',
+      'rear_impact_guard',
+      'mud_flaps',
+      'documents_stickers',
+    ]) {
       expect(ids).toContain(id);
-      expect(vocabulary.components.some((c) => c.system === id), id).toBe(true);
+      expect(
+        vocabulary.components.some((c) => c.system === id),
+        id,
+      ).toBe(true);
     }
   });
 
   it('has at least 400 distinct phrases and a severity with a source for every pair', () => {
-    const phrases = new Set([...vocabulary.components.flatMap((c) => c.phrases), ...vocabulary.conditions.flatMap((c) => c.phrases), ...commands.commands.flatMap((c) => c.phrases)]);
+    const phrases = new Set([
+      ...vocabulary.components.flatMap((c) => c.phrases),
+      ...vocabulary.conditions.flatMap((c) => c.phrases),
+      ...commands.commands.flatMap((c) => c.phrases),
+    ]);
     expect(phrases.size).toBeGreaterThanOrEqual(400);
-    for (const c of vocabulary.components) for (const d of c.defects) expect(d.source.length, `${c.id}:${d.condition}`).toBeGreaterThan(5);
+    for (const c of vocabulary.components)
+      for (const d of c.defects) expect(d.source.length, `${c.id}:${d.condition}`).toBeGreaterThan(5);
   });
 
   it('keeps the published classes from the NSC Schedule 1 examples', () => {
     // NSC 13 Schedule 1 Part 21 (Ontario MTO handbook): flat tire and a leak that can be felt or heard are major
-    const pair = (comp: string, cond: string) => vocabulary.components.find((c) => c.id === comp)?.defects.find((d) => d.condition === cond);
+    const pair = (comp: string, cond: string) =>
+      vocabulary.components.find((c) => c.id === comp)?.defects.find((d) => d.condition === cond);
     expect(pair('steer_tire', 'flat')?.severity.ca).toBe('major');
     expect(pair('drive_tire', 'audible_air_leak')?.severity.ca).toBe('major');
     // NSC 13 Schedule 1 Part 1 (copy of the schedule): audible air leak is minor, pushrod stroke over the limit is major
@@ -74,14 +126,32 @@ describe('grammars/', () => {
   });
 
   it('orders the walk and gives each configuration its zones', () => {
-    expect(zones.zones.map((z) => z.id)).toEqual(['front', 'engine_bay', 'driver_side_tractor', 'coupling', 'driver_side_trailer', 'rear', 'passenger_side_trailer', 'passenger_side_tractor', 'in_cab', 'air_brake_tests']);
+    expect(zones.zones.map((z) => z.id)).toEqual([
+      'front',
+      'engine_bay',
+      'driver_side_tractor',
+      'coupling',
+      'driver_side_trailer',
+      'rear',
+      'passenger_side_trailer',
+      'passenger_side_tractor',
+      'in_cab',
+      'air_brake_tests',
+    ]);
     const bobtail = zones.zones.filter((z) => z.configurations.includes('bobtail')).map((z) => z.id);
     expect(bobtail).not.toContain('coupling');
     expect(bobtail).not.toContain('driver_side_trailer');
-    for (const z of zones.zones) for (const i of z.items) expect(i.configurations.every((c) => z.configurations.includes(c)), i.id).toBe(true);
+    for (const z of zones.zones)
+      for (const i of z.items)
+        expect(
+          i.configurations.every((c) => z.configurations.includes(c)),
+          i.id,
+        ).toBe(true);
   });
 
   it('forms one grammar object the matcher accepts', () => {
-    expect(() => grammarSchema.parse({ vocabulary, commands, positions, numbers: load('numbers.json'), zones })).not.toThrow();
+    expect(() =>
+      grammarSchema.parse({ vocabulary, commands, positions, numbers: load('numbers.json'), zones }),
+    ).not.toThrow();
   });
 });

@@ -34,15 +34,22 @@ describe('server-only boundary', () => {
   });
 
   it('no client component imports code from a server folder', () => {
-    const clientFiles = ['app', 'components'].flatMap(filesUnder).filter((f) => /^['"]use client['"]/.test(fs.readFileSync(path.join(root, f), 'utf8').trim()));
+    const clientFiles = ['app', 'components']
+      .flatMap(filesUnder)
+      .filter((f) => /^['"]use client['"]/.test(fs.readFileSync(path.join(root, f), 'utf8').trim()));
     expect(clientFiles.length).toBeGreaterThan(0);
     for (const f of clientFiles) {
       const text = fs.readFileSync(path.join(root, f), 'utf8');
       for (const folder of serverFolders) {
         // `import type` is erased at build time and cannot pull server code into the browser.
-        const imports = [...text.matchAll(new RegExp(`^import (?!type )[^;]*?from ['"](@/${folder}[^'"]*)['"]`, 'gm'))].map((m) => m[1]!);
+        const imports = [
+          ...text.matchAll(new RegExp(`^import (?!type )[^;]*?from ['"](@/${folder}[^'"]*)['"]`, 'gm')),
+        ].map((m) => m[1]!);
         // roles.ts is the one universal file beside the server code.
-        expect(imports.filter((i) => !universal.has(`${i.slice(2)}.ts`)), `${f} imports ${folder}`).toEqual([]);
+        expect(
+          imports.filter((i) => !universal.has(`${i.slice(2)}.ts`)),
+          `${f} imports ${folder}`,
+        ).toEqual([]);
       }
     }
   });

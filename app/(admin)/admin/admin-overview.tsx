@@ -23,7 +23,17 @@ function describe(action: string, detail: unknown): string {
   return `${actionWords[action] ?? action} ${action.startsWith('fleet.') ? '' : what}`.trim();
 }
 
-function Card({ title, href, linkLabel, children }: { title: string; href: string; linkLabel: string; children: ReactNode }) {
+function Card({
+  title,
+  href,
+  linkLabel,
+  children,
+}: {
+  title: string;
+  href: string;
+  linkLabel: string;
+  children: ReactNode;
+}) {
   return (
     <section className={`${panelClass} flex flex-col gap-3 p-4`} aria-labelledby={`card-${href}`}>
       <h2 id={`card-${href}`} className="text-xl font-extrabold">
@@ -47,7 +57,11 @@ const Stat = ({ n, label }: { n: number | string; label: string }) => (
 /** The admin's first screen: the fleet at a glance, with the way into each section. */
 export function AdminOverview({ summary }: { summary: AdminSummary }) {
   const { fleet, users, units, recent } = summary;
-  const when = new Intl.DateTimeFormat('en-US', { timeZone: summary.timezone, dateStyle: 'medium', timeStyle: 'short' });
+  const when = new Intl.DateTimeFormat('en-US', {
+    timeZone: summary.timezone,
+    dateStyle: 'medium',
+    timeStyle: 'short',
+  });
   return (
     <div className="flex flex-col gap-5">
       <header>
@@ -76,7 +90,10 @@ export function AdminOverview({ summary }: { summary: AdminSummary }) {
             </p>
           ) : (
             <p className="text-base">
-              <span aria-hidden="true" className="text-pass">✓ </span>None out of service
+              <span aria-hidden="true" className="text-pass">
+                ✓{' '}
+              </span>
+              None out of service
             </p>
           )}
           {units.retired ? <p className="text-base text-muted">{units.retired} retired</p> : null}
@@ -89,7 +106,8 @@ export function AdminOverview({ summary }: { summary: AdminSummary }) {
             <dd className="font-bold">{fleet.minPosttripMinutes} min</dd>
             <dt className="text-muted">Steer / drive / trailer</dt>
             <dd className="font-bold">
-              {fleet.tirePressureTargets.steer} / {fleet.tirePressureTargets.drive} / {fleet.tirePressureTargets.trailer} psi
+              {fleet.tirePressureTargets.steer} / {fleet.tirePressureTargets.drive} /{' '}
+              {fleet.tirePressureTargets.trailer} psi
             </dd>
             <dt className="text-muted">Rules</dt>
             <dd className="font-bold">{ruleProfileLabel[fleet.ruleProfile].split(':')[0]}</dd>

@@ -4,7 +4,8 @@ import { signIn } from 'next-auth/react';
 import { useState, type FormEvent } from 'react';
 import { slabClass } from '@/components/ui/slab-button';
 
-const field = 'min-h-target w-full rounded-lg border-slab border-edge bg-panel px-4 text-xl text-ink placeholder:text-muted';
+const field =
+  'min-h-target w-full rounded-lg border-slab border-edge bg-panel px-4 text-xl text-ink placeholder:text-muted';
 
 export function SignInForm({ next }: { next: string }) {
   const [error, setError] = useState<string | null>(null);
@@ -26,7 +27,11 @@ export function SignInForm({ next }: { next: string }) {
         return;
       }
       // A lock-out says so (and for how long); anything else is the same plain refusal.
-      setError(res?.error && /too many/i.test(res.error) ? res.error : 'That e-mail and password do not match an active account. Check both and try again.');
+      setError(
+        res?.error && /too many/i.test(res.error)
+          ? res.error
+          : 'That e-mail and password do not match an active account. Check both and try again.',
+      );
     } catch {
       setError('RigCall cannot be reached. Check the connection and try again.');
     }

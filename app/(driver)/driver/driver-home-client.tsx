@@ -3,10 +3,20 @@
 import Link from 'next/link';
 import { slabClass } from '@/components/ui/slab-button';
 
-type Recent = { id: string; kind: string; status: string; startedAt: string; finishedAt: string | null; tractorNumber: string; trailerNumber: string | null; defectCount: number };
+type Recent = {
+  id: string;
+  kind: string;
+  status: string;
+  startedAt: string;
+  finishedAt: string | null;
+  tractorNumber: string;
+  trailerNumber: string | null;
+  defectCount: number;
+};
 
 const kindLabel = (k: string) => (k === 'pre_trip' ? 'Pre-trip' : 'Post-trip');
-const when = (iso: string) => new Date(iso).toLocaleString([], { weekday: 'short', hour: '2-digit', minute: '2-digit' });
+const when = (iso: string) =>
+  new Date(iso).toLocaleString([], { weekday: 'short', hour: '2-digit', minute: '2-digit' });
 
 export function DriverHomeClient({ recent }: { recent: Recent[] }) {
   const drafts = recent.filter((r) => r.status === 'draft');
@@ -38,7 +48,10 @@ export function DriverHomeClient({ recent }: { recent: Recent[] }) {
           {recent
             .filter((r) => r.status === 'submitted')
             .map((r) => (
-              <li key={r.id} className="flex min-h-target flex-wrap items-center justify-between gap-2 rounded-lg border-slab border-edge bg-panel px-4 py-3 text-lg">
+              <li
+                key={r.id}
+                className="flex min-h-target flex-wrap items-center justify-between gap-2 rounded-lg border-slab border-edge bg-panel px-4 py-3 text-lg"
+              >
                 <span>
                   <span className="font-bold">{kindLabel(r.kind)}</span> · {r.tractorNumber}
                   {r.trailerNumber ? ` + ${r.trailerNumber}` : ''} · {when(r.startedAt)}

@@ -9,7 +9,14 @@ export default async function DriverHomePage() {
   const recent = await listDriverInspections(getDb(), { fleetId: user.fleetId, driverId: user.id, limit: 8 });
   return (
     <RoleHome user={user} title="Today's walk-around">
-      <DriverHomeClient recent={recent.map((r) => ({ ...r, startedAt: r.startedAt.toISOString(), finishedAt: r.finishedAt?.toISOString() ?? null, defectCount: Number(r.defectCount ?? 0) }))} />
+      <DriverHomeClient
+        recent={recent.map((r) => ({
+          ...r,
+          startedAt: r.startedAt.toISOString(),
+          finishedAt: r.finishedAt?.toISOString() ?? null,
+          defectCount: Number(r.defectCount ?? 0),
+        }))}
+      />
     </RoleHome>
   );
 }

@@ -15,7 +15,7 @@ function Row({ d }: { d: DefectQueueRow }) {
         <span className="pl-1">{d.severity === 'major' ? <MajorMark compact /> : <MinorMark />}</span>
         <span>
           <span className="font-bold">{d.description}</span>
-          <span className="block text-sm capitalize text-muted">
+          <span className="block text-sm text-muted capitalize">
             {zoneLabel(d.zone)} · {d.component}
           </span>
         </span>
@@ -31,16 +31,32 @@ function Row({ d }: { d: DefectQueueRow }) {
               <span className="block">{formatDateTime(d.certifiedAt)}</span>
             </>
           )}
-          {d.photoCount > 0 && <span className="block">{d.photoCount} photo{d.photoCount > 1 ? 's' : ''}</span>}
+          {d.photoCount > 0 && (
+            <span className="block">
+              {d.photoCount} photo{d.photoCount > 1 ? 's' : ''}
+            </span>
+          )}
         </span>
       </Link>
     </li>
   );
 }
 
-export function DefectQueue({ groups, status, filteredUnit }: { groups: DefectQueueGroup[]; status: 'open' | 'closed' | 'all'; filteredUnit: string | null }) {
+export function DefectQueue({
+  groups,
+  status,
+  filteredUnit,
+}: {
+  groups: DefectQueueGroup[];
+  status: 'open' | 'closed' | 'all';
+  filteredUnit: string | null;
+}) {
   const tab = (s: string, label: string) => (
-    <Link href={s === 'open' ? '/mechanic' : `/mechanic?status=${s}`} aria-current={status === s ? 'page' : undefined} className={`rounded-md px-3 py-1.5 font-bold ${status === s ? 'bg-ink text-ground' : 'hover:bg-panel'}`}>
+    <Link
+      href={s === 'open' ? '/mechanic' : `/mechanic?status=${s}`}
+      aria-current={status === s ? 'page' : undefined}
+      className={`rounded-md px-3 py-1.5 font-bold ${status === s ? 'bg-ink text-ground' : 'hover:bg-panel'}`}
+    >
       {label}
     </Link>
   );
@@ -53,7 +69,9 @@ export function DefectQueue({ groups, status, filteredUnit }: { groups: DefectQu
         {tab('closed', 'Certified')}
         {tab('all', 'All')}
         <p className="ml-auto text-base text-muted">
-          {groups.length} unit{groups.length === 1 ? '' : 's'} · <span className="font-bold text-major">{majors} major</span> · <span className="font-bold text-minor">{minors} minor</span>
+          {groups.length} unit{groups.length === 1 ? '' : 's'} ·{' '}
+          <span className="font-bold text-major">{majors} major</span> ·{' '}
+          <span className="font-bold text-minor">{minors} minor</span>
           {filteredUnit && (
             <>
               {' · '}
@@ -64,9 +82,18 @@ export function DefectQueue({ groups, status, filteredUnit }: { groups: DefectQu
           )}
         </p>
       </div>
-      {groups.length === 0 && <p className="rounded-lg border-slab border-edge bg-panel p-6 text-lg">Nothing here. No defect waits for the shop.</p>}
+      {groups.length === 0 && (
+        <p className="rounded-lg border-slab border-edge bg-panel p-6 text-lg">
+          Nothing here. No defect waits for the shop.
+        </p>
+      )}
       {groups.map((g) => (
-        <section key={g.unitId} aria-label={`Unit ${g.unitNumber}`} className="rounded-lg border-slab border-edge bg-panel" data-testid={`queue-unit-${g.unitNumber}`}>
+        <section
+          key={g.unitId}
+          aria-label={`Unit ${g.unitNumber}`}
+          className="rounded-lg border-slab border-edge bg-panel"
+          data-testid={`queue-unit-${g.unitNumber}`}
+        >
           <header className="flex flex-wrap items-center gap-3 border-b-2 border-edge/20 px-4 py-2">
             <h2 className="text-xl font-extrabold">Unit {g.unitNumber}</h2>
             <span className="text-sm text-muted">{g.unitKind}</span>

@@ -4,7 +4,11 @@ import { listDefectsQuerySchema } from '@/lib/schemas/defects';
 import { listDefectQueue } from '@/lib/services/list-defect-queue';
 import { DefectQueue } from './defect-queue';
 
-export default async function MechanicHomePage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function MechanicHomePage({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const user = await requireRole('mechanic', 'supervisor');
   const sp = await searchParams;
   const query = listDefectsQuerySchema.safeParse({ status: sp.status, severity: sp.severity, unitId: sp.unit });

@@ -13,21 +13,34 @@ const reasonText: Record<string, string> = {
 function Reason({ reason }: { reason: string }) {
   const major = reason === 'major_defect';
   return (
-    <span className={`inline-flex items-center gap-1 rounded border-2 px-1.5 text-sm font-bold ${major ? 'border-major bg-major text-on-major' : 'border-edge/40'}`}>
+    <span
+      className={`inline-flex items-center gap-1 rounded border-2 px-1.5 text-sm font-bold ${major ? 'border-major bg-major text-on-major' : 'border-edge/40'}`}
+    >
       {major && <span aria-hidden className="inline-block h-3 w-1 bg-on-major" />}
       {reasonText[reason] ?? reason}
     </span>
   );
 }
 
-export function AttentionList({ rows, days, fleet }: { rows: SupervisorBoard['attention']; days: number; fleet: SupervisorBoard['fleet'] }) {
+export function AttentionList({
+  rows,
+  days,
+  fleet,
+}: {
+  rows: SupervisorBoard['attention'];
+  days: number;
+  fleet: SupervisorBoard['fleet'];
+}) {
   const open = rows.filter((r) => !r.reviewedAt);
   return (
     <section aria-labelledby="attention-heading" className="rounded-lg border-slab border-edge bg-panel">
       <header className="border-b-2 border-edge/20 px-4 py-3">
-        <h2 id="attention-heading" className="text-xl font-extrabold">Needs a look</h2>
+        <h2 id="attention-heading" className="text-xl font-extrabold">
+          Needs a look
+        </h2>
         <p className="text-sm text-muted">
-          Last {days} days · {open.length} not reviewed · minimum {fleet.minPretripMinutes} min pre-trip, {fleet.minPosttripMinutes} min post-trip (fleet setting)
+          Last {days} days · {open.length} not reviewed · minimum {fleet.minPretripMinutes} min pre-trip,{' '}
+          {fleet.minPosttripMinutes} min post-trip (fleet setting)
         </p>
       </header>
       {rows.length === 0 ? (
@@ -36,7 +49,11 @@ export function AttentionList({ rows, days, fleet }: { rows: SupervisorBoard['at
         <ul className="divide-y divide-edge/15">
           {rows.map((r) => (
             <li key={r.id} className={r.reviewedAt ? 'opacity-70' : ''}>
-              <Link href={`/supervisor/reports/${r.id}`} className="block px-4 py-2.5 hover:bg-ground" data-testid="attention-row">
+              <Link
+                href={`/supervisor/reports/${r.id}`}
+                className="block px-4 py-2.5 hover:bg-ground"
+                data-testid="attention-row"
+              >
                 <div className="flex flex-wrap items-baseline gap-x-3">
                   <span className="font-extrabold">
                     {r.tractorNumber}
@@ -44,7 +61,7 @@ export function AttentionList({ rows, days, fleet }: { rows: SupervisorBoard['at
                   </span>
                   <span>{kindLabel(r.kind)}</span>
                   <span className="text-muted">{r.driverName}</span>
-                  <span className="ml-auto text-sm tabular-nums text-muted">
+                  <span className="ml-auto text-sm text-muted tabular-nums">
                     {formatDateTime(r.startedAt, fleet.timezone)} · {formatDuration(r.durationS)}
                   </span>
                 </div>

@@ -8,7 +8,10 @@ export default async function TrainerHomePage() {
   return (
     <RoleHome user={user} title="Defect vocabulary">
       <TrainerNav />
-      <p className="text-lg">The words drivers say, what they match, and how sure the match is. Edits go to a draft; a published version never changes, and each inspection keeps the version it started with.</p>
+      <p className="text-lg">
+        The words drivers say, what they match, and how sure the match is. Edits go to a draft; a published version
+        never changes, and each inspection keeps the version it started with.
+      </p>
       <VersionsClient />
     </RoleHome>
   );

@@ -14,14 +14,21 @@ export function VersionsClient() {
   const { list, versions, draftSummary, publishedSummary } = useVersions();
   const inbox = useQuery(inboxOptions());
   if (list.isPending) return <p className="text-muted">Loading versions…</p>;
-  if (list.error) return <p role="alert" className="font-bold text-major">{list.error.message}</p>;
+  if (list.error)
+    return (
+      <p role="alert" className="font-bold text-major">
+        {list.error.message}
+      </p>
+    );
   const tz = hydrated ? undefined : 'UTC';
   return (
     <div className="grid gap-4 lg:grid-cols-[2fr_1fr]">
       <section className={cardClass} aria-labelledby="versions-title">
-        <h2 id="versions-title" className="mb-3 text-xl font-extrabold">Versions</h2>
+        <h2 id="versions-title" className="mb-3 text-xl font-extrabold">
+          Versions
+        </h2>
         <table className="w-full text-left text-base">
-          <thead className="border-b-2 border-edge/30 text-sm uppercase tracking-wide text-muted">
+          <thead className="border-b-2 border-edge/30 text-sm tracking-wide text-muted uppercase">
             <tr>
               <th className="py-1.5 pr-3">Label</th>
               <th className="py-1.5 pr-3">State</th>
@@ -36,17 +43,29 @@ export function VersionsClient() {
                 <td className="py-2 pr-3 font-bold">{v.label}</td>
                 <td className="py-2 pr-3">
                   {v.status === 'draft' ? (
-                    <span className="rounded border-2 border-dashed border-edge/60 px-1.5 text-sm font-bold">✎ DRAFT</span>
+                    <span className="rounded border-2 border-dashed border-edge/60 px-1.5 text-sm font-bold">
+                      ✎ DRAFT
+                    </span>
                   ) : v.id === publishedSummary?.id ? (
                     <span className="rounded bg-vest px-1.5 text-sm font-bold text-on-vest">● IN USE</span>
                   ) : (
                     <span className="text-sm text-muted">published, replaced</span>
                   )}
                 </td>
-                <td className="py-2 pr-3 text-sm">{v.publishedAt ? `${formatDateTime(v.publishedAt, tz)}${v.publishedBy ? ` · ${v.publishedBy}` : ''}` : '—'}</td>
+                <td className="py-2 pr-3 text-sm">
+                  {v.publishedAt
+                    ? `${formatDateTime(v.publishedAt, tz)}${v.publishedBy ? ` · ${v.publishedBy}` : ''}`
+                    : '—'}
+                </td>
                 <td className="py-2 pr-3 text-right tabular-nums">{v.inspections}</td>
                 <td className="py-2 text-sm">
-                  <a className="underline" href={`/api/vocabulary/versions/${v.id}/export`}>grammar</a> · <a className="underline" href={`/api/vocabulary/versions/${v.id}/export?file=vocabulary`}>vocabulary.json</a>
+                  <a className="underline" href={`/api/vocabulary/versions/${v.id}/export`}>
+                    grammar
+                  </a>{' '}
+                  ·{' '}
+                  <a className="underline" href={`/api/vocabulary/versions/${v.id}/export?file=vocabulary`}>
+                    vocabulary.json
+                  </a>
                 </td>
               </tr>
             ))}
@@ -66,16 +85,24 @@ export function VersionsClient() {
           {draftSummary ? (
             <div className="space-y-2">
               <p>
-                <span className="font-bold">{draftSummary.label}</span> <span className="text-sm text-muted">last saved {formatDateTime(draftSummary.updatedAt, tz)}</span>
+                <span className="font-bold">{draftSummary.label}</span>{' '}
+                <span className="text-sm text-muted">last saved {formatDateTime(draftSummary.updatedAt, tz)}</span>
               </p>
               <div className="flex flex-wrap gap-2">
-                <Link className={buttonClass('primary')} href="/trainer/editor">Edit the draft</Link>
-                <Link className={buttonClass()} href="/trainer/evaluation">Evaluate &amp; publish</Link>
+                <Link className={buttonClass('primary')} href="/trainer/editor">
+                  Edit the draft
+                </Link>
+                <Link className={buttonClass()} href="/trainer/evaluation">
+                  Evaluate &amp; publish
+                </Link>
               </div>
             </div>
           ) : (
             <div className="space-y-2">
-              <p className="text-muted">No draft is open. A draft starts as a copy of {publishedSummary ? `“${publishedSummary.label}”` : 'the built-in vocabulary'}.</p>
+              <p className="text-muted">
+                No draft is open. A draft starts as a copy of{' '}
+                {publishedSummary ? `“${publishedSummary.label}”` : 'the built-in vocabulary'}.
+              </p>
               <OpenDraftButton />
             </div>
           )}
@@ -83,9 +110,14 @@ export function VersionsClient() {
         <section className={cardClass}>
           <h2 className="mb-2 text-xl font-extrabold">Field utterances</h2>
           <p className="text-lg">
-            <span className="text-3xl font-extrabold tabular-nums" data-testid="inbox-count">{inbox.data?.total ?? '…'}</span> waiting, in {inbox.data?.groups.length ?? '…'} groups
+            <span className="text-3xl font-extrabold tabular-nums" data-testid="inbox-count">
+              {inbox.data?.total ?? '…'}
+            </span>{' '}
+            waiting, in {inbox.data?.groups.length ?? '…'} groups
           </p>
-          <Link className={`${buttonClass()} mt-2`} href="/trainer/inbox">Open the inbox</Link>
+          <Link className={`${buttonClass()} mt-2`} href="/trainer/inbox">
+            Open the inbox
+          </Link>
         </section>
       </aside>
     </div>

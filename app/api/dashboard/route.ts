@@ -1,4 +1,6 @@
 import { defineRoute } from '@/lib/api/define-route';
 import { getOfficeDashboard } from '@/lib/services/get-office-dashboard';
 
-export const GET = defineRoute({ roles: ['supervisor'] }, async ({ user }) => Response.json(await getOfficeDashboard({ fleetId: user.fleetId })));
+export const GET = defineRoute({ roles: ['supervisor'] }, async ({ user }) =>
+  Response.json(await getOfficeDashboard({ fleetId: user.fleetId })),
+);

@@ -10,5 +10,7 @@ export const POST = defineRoute({ roles: ['driver'], body: startInspectionBodySc
 });
 
 export const GET = defineRoute({ roles: ['driver'] }, async ({ user }) =>
-  Response.json({ inspections: await listDriverInspections(getDb(), { fleetId: user.fleetId, driverId: user.id, limit: 20 }) }),
+  Response.json({
+    inspections: await listDriverInspections(getDb(), { fleetId: user.fleetId, driverId: user.id, limit: 20 }),
+  }),
 );

@@ -2,11 +2,46 @@ import 'server-only';
 import { htmlLayout, safetyFooter, type MailDefect, type RenderedMail } from './render-mail';
 
 /** The last open major defect of a unit was certified: the unit is back in service. */
-export function renderBackInServiceMail({ fleetName, unitNumber, defects, certifiedName, certifiedAt, defectUrl }: { fleetName: string; unitNumber: string; defects: readonly MailDefect[]; certifiedName: string; certifiedAt: string; defectUrl: string }): RenderedMail {
+export function renderBackInServiceMail({
+  fleetName,
+  unitNumber,
+  defects,
+  certifiedName,
+  certifiedAt,
+  defectUrl,
+}: {
+  fleetName: string;
+  unitNumber: string;
+  defects: readonly MailDefect[];
+  certifiedName: string;
+  certifiedAt: string;
+  defectUrl: string;
+}): RenderedMail {
   const subject = `Back in service: unit ${unitNumber} (${fleetName})`;
   const lead = `Unit ${unitNumber} is back in service: no major defect is open. Last certification by ${certifiedName} at ${certifiedAt}. The next driver reviews and signs the last report before driving (49 CFR 396.13).`;
-  const items = defects.map((d) => `${d.outcome === 'no_repair_needed' ? 'no repair needed' : 'repaired'}: ${d.description}${d.certifiedName ? ` (certified by ${d.certifiedName})` : ''}`);
-  const text = [subject, '', lead, '', ...items.map((i) => `- ${i}`), '', `Certification: ${defectUrl}`, '', safetyFooter, ''].join('\n');
-  const html = htmlLayout({ band: 'BACK IN SERVICE', bandColour: '#16703e', heading: `Unit ${unitNumber} may be driven again`, paragraphs: [lead], items, link: { href: defectUrl, label: 'Open the certification' } });
+  const items = defects.map(
+    (d) =>
+      `${d.outcome === 'no_repair_needed' ? 'no repair needed' : 'repaired'}: ${d.description}${d.certifiedName ? ` (certified by ${d.certifiedName})` : ''}`,
+  );
+  const text = [
+    subject,
+    '',
+    lead,
+    '',
+    ...items.map((i) => `- ${i}`),
+    '',
+    `Certification: ${defectUrl}`,
+    '',
+    safetyFooter,
+    '',
+  ].join('\n');
+  const html = htmlLayout({
+    band: 'BACK IN SERVICE',
+    bandColour: '#16703e',
+    heading: `Unit ${unitNumber} may be driven again`,
+    paragraphs: [lead],
+    items,
+    link: { href: defectUrl, label: 'Open the certification' },
+  });
   return { subject, text, html };
 }

@@ -2,11 +2,41 @@ import 'server-only';
 import { htmlLayout, safetyFooter, severityWords, type MailDefect, type RenderedMail } from './render-mail';
 
 /** Open defects that still need the shop (minor ones too: repair before the next inspection is due). */
-export function renderRepairNeededMail({ fleetName, unitNumber, defects, inspectionUrl, requestedBy }: { fleetName: string; unitNumber: string; defects: readonly MailDefect[]; inspectionUrl: string; requestedBy?: string }): RenderedMail {
+export function renderRepairNeededMail({
+  fleetName,
+  unitNumber,
+  defects,
+  inspectionUrl,
+  requestedBy,
+}: {
+  fleetName: string;
+  unitNumber: string;
+  defects: readonly MailDefect[];
+  inspectionUrl: string;
+  requestedBy?: string;
+}): RenderedMail {
   const subject = `Repair needed: unit ${unitNumber} (${fleetName})`;
   const lead = `Unit ${unitNumber} has ${defects.length} open defect(s) waiting for a repair and its certification${requestedBy ? ` (sent by ${requestedBy})` : ''}.`;
   const items = defects.map((d) => `${severityWords(d.severity)}: ${d.description}`);
-  const text = [subject, '', lead, '', ...items.map((i) => `- ${i}`), '', `Report: ${inspectionUrl}`, '', safetyFooter, ''].join('\n');
-  const html = htmlLayout({ band: 'REPAIR NEEDED', bandColour: '#965800', heading: `Unit ${unitNumber}: open defects`, paragraphs: [lead], items, link: { href: inspectionUrl, label: 'Open the report' } });
+  const text = [
+    subject,
+    '',
+    lead,
+    '',
+    ...items.map((i) => `- ${i}`),
+    '',
+    `Report: ${inspectionUrl}`,
+    '',
+    safetyFooter,
+    '',
+  ].join('\n');
+  const html = htmlLayout({
+    band: 'REPAIR NEEDED',
+    bandColour: '#965800',
+    heading: `Unit ${unitNumber}: open defects`,
+    paragraphs: [lead],
+    items,
+    link: { href: inspectionUrl, label: 'Open the report' },
+  });
   return { subject, text, html };
 }

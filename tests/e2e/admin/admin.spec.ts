@@ -41,7 +41,14 @@ test('an admin invites a person, and the invitation reaches the mail catcher', a
   const catcher = process.env.MAIL_CATCHER_URL;
   expect(catcher, 'MAIL_CATCHER_URL is set by scripts/stack.mjs').toBeTruthy();
   await expect
-    .poll(async () => ((await (await request.get(`${catcher}/messages?to=${encodeURIComponent(email)}`)).json()) as { messages: unknown[] }).messages.length)
+    .poll(
+      async () =>
+        (
+          (await (await request.get(`${catcher}/messages?to=${encodeURIComponent(email)}`)).json()) as {
+            messages: unknown[];
+          }
+        ).messages.length,
+    )
     .toBe(1);
 
   // The same address a second time is refused beside the field.

@@ -17,7 +17,7 @@ async function signIn(page: Page, email: string) {
 }
 
 for (const h of homes) {
-  test(`${h.role === "admin" ? "an" : "a"} ${h.role} lands on the ${h.role} home`, async ({ page }) => {
+  test(`${h.role === 'admin' ? 'an' : 'a'} ${h.role} lands on the ${h.role} home`, async ({ page }) => {
     const person = demoPerson(h.role);
     await signIn(page, person.email);
     await expect(page).toHaveURL(new RegExp(`${h.path}$`));

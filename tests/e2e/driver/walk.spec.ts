@@ -3,7 +3,17 @@ import os from 'node:os';
 import sharp from 'sharp';
 import { expect, test } from '@playwright/test';
 import { fakeSpeechScript } from '../fixtures/fake-speech';
-import { countSteps, db, expectZone, makeTestRig, say, signIn, signReport, startPreTrip, waitForMail } from '../fixtures/walk-helpers';
+import {
+  countSteps,
+  db,
+  expectZone,
+  makeTestRig,
+  say,
+  signIn,
+  signReport,
+  startPreTrip,
+  waitForMail,
+} from '../fixtures/walk-helpers';
 
 test.describe.configure({ mode: 'serial' });
 test.setTimeout(120_000);
@@ -21,7 +31,9 @@ async function photoFixture() {
   return file;
 }
 
-test('a whole pre-trip by voice: findings, a "no", readings, a photo, undo, sign; database and mail agree', async ({ page }) => {
+test('a whole pre-trip by voice: findings, a "no", readings, a photo, undo, sign; database and mail agree', async ({
+  page,
+}) => {
   const rig = await makeTestRig();
   await signIn(page, 'luis.ferreira@northbank.example');
   const inspectionId = await startPreTrip(page, rig);
@@ -77,23 +89,49 @@ test('a whole pre-trip by voice: findings, a "no", readings, a photo, undo, sign
   await expect(page.getByRole('heading', { name: 'Review and sign' })).toBeVisible();
   await expect(page.getByRole('alert').filter({ hasText: 'OUT OF SERVICE' })).toBeVisible();
   await signReport(page, 'Luis Ferreira');
-  await expect(page.getByTestId('signed-status')).toHaveText('✓ Report locked on RigCall’s server.', { timeout: 20_000 });
+  await expect(page.getByTestId('signed-status')).toHaveText('✓ Report locked on RigCall’s server.', {
+    timeout: 20_000,
+  });
 
   // The database: every step once, the defects (not the one taken back), the unit out of service.
   const counted = await countSteps(inspectionId);
   expect(counted.total).toBe(counted.distinctSeq);
   expect(counted.byKind).toMatchObject({ visit: 10, zone_ok: 10, defect: 3, undo: 1 });
-  const report = await db.selectFrom('inspection').select(['status', 'contentHash', 'signatureName', 'signatureKey']).where('id', '=', inspectionId).executeTakeFirstOrThrow();
-  expect(report).toMatchObject({ status: 'submitted', signatureName: 'Luis Ferreira', signatureKey: `fleet/${rig.tractor.fleetId}/inspections/${inspectionId}/signature.png` });
-  const defects = await db.selectFrom('defect').select(['component', 'condition', 'severity', 'unitId']).where('inspectionId', '=', inspectionId).orderBy('createdAt').execute();
-  expect(defects.map((d) => `${d.component}:${d.condition}`)).toEqual(['steer tire:bulge', 'steer tire:tread depth fails the limit', 'glad hand:audible air leak', 'air system:air leak fails the limit']);
+  const report = await db
+    .selectFrom('inspection')
+    .select(['status', 'contentHash', 'signatureName', 'signatureKey'])
+    .where('id', '=', inspectionId)
+    .executeTakeFirstOrThrow();
+  expect(report).toMatchObject({
+    status: 'submitted',
+    signatureName: 'Luis Ferreira',
+    signatureKey: `fleet/${rig.tractor.fleetId}/inspections/${inspectionId}/signature.png`,
+  });
+  const defects = await db
+    .selectFrom('defect')
+    .select(['component', 'condition', 'severity', 'unitId'])
+    .where('inspectionId', '=', inspectionId)
+    .orderBy('createdAt')
+    .execute();
+  expect(defects.map((d) => `${d.component}:${d.condition}`)).toEqual([
+    'steer tire:bulge',
+    'steer tire:tread depth fails the limit',
+    'glad hand:audible air leak',
+    'air system:air leak fails the limit',
+  ]);
   const unit = await db.selectFrom('unit').select('status').where('id', '=', rig.tractor.id).executeTakeFirstOrThrow();
   expect(unit.status).toBe('out_of_service');
-  const photos = await db.selectFrom('attachment').select(['stepId', 'contentType']).where('inspectionId', '=', inspectionId).execute();
+  const photos = await db
+    .selectFrom('attachment')
+    .select(['stepId', 'contentType'])
+    .where('inspectionId', '=', inspectionId)
+    .execute();
   expect(photos).toHaveLength(1);
   expect(photos[0]!.stepId).not.toBeNull();
   // The mail catcher: maintenance heard about it.
-  expect(await waitForMail('shop@northbank.example', new RegExp(`OUT OF SERVICE: unit ${rig.tractor.unitNumber}`))).not.toBeNull();
+  expect(
+    await waitForMail('shop@northbank.example', new RegExp(`OUT OF SERVICE: unit ${rig.tractor.unitNumber}`)),
+  ).not.toBeNull();
 });
 
 test('offline for the middle zones and back: nothing lost, nothing recorded twice', async ({ page, context }) => {
@@ -120,13 +158,22 @@ test('offline for the middle zones and back: nothing lost, nothing recorded twic
 
   await context.setOffline(false);
   await expect(page.getByTestId('sync-status')).toHaveText('✓ All saved', { timeout: 20_000 });
-  for (const zone of ['Driver side trailer', 'Rear', 'Passenger side trailer', 'Passenger side tractor', 'In cab', 'Air-brake tests']) {
+  for (const zone of [
+    'Driver side trailer',
+    'Rear',
+    'Passenger side trailer',
+    'Passenger side tractor',
+    'In cab',
+    'Air-brake tests',
+  ]) {
     await expectZone(page, zone);
     await say(page, 'all good');
   }
   await say(page, 'finish');
   await signReport(page, 'Wren Castillo');
-  await expect(page.getByTestId('signed-status')).toHaveText('✓ Report locked on RigCall’s server.', { timeout: 20_000 });
+  await expect(page.getByTestId('signed-status')).toHaveText('✓ Report locked on RigCall’s server.', {
+    timeout: 20_000,
+  });
 
   const after = await countSteps(inspectionId);
   // 10 visits, 10 zone OKs, the coolant finding and the pressure reading: each exactly once.
@@ -148,7 +195,10 @@ test('every control on the walk screen is at least 64 px high', async ({ page })
     const small = await page.evaluate(() =>
       [...document.querySelectorAll<HTMLElement>('button, a[href], input, select, textarea, summary, [role=button]')]
         .filter((el) => !el.classList.contains('sr-only') && el.offsetParent !== null)
-        .map((el) => ({ what: `${el.tagName.toLowerCase()} “${(el.innerText || el.getAttribute('aria-label') || el.getAttribute('placeholder') || '').trim().slice(0, 40)}”`, h: el.getBoundingClientRect().height }))
+        .map((el) => ({
+          what: `${el.tagName.toLowerCase()} “${(el.innerText || el.getAttribute('aria-label') || el.getAttribute('placeholder') || '').trim().slice(0, 40)}”`,
+          h: el.getBoundingClientRect().height,
+        }))
         .filter((x) => x.h < 64),
     );
     expect(small, `controls under 64 px in ${zone}`).toEqual([]);

@@ -36,12 +36,22 @@ export class AppServer {
   async start(ms = 60_000) {
     if (await portOpen(this.port)) throw new Error(`port ${this.port} is taken`);
     const log = fs.openSync(path.join(root, '.data', 'logs', `${this.logName}.log`), 'a');
-    this.child = spawn(process.execPath, ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(this.port)], {
-      cwd: root,
-      env: { ...process.env, NODE_ENV: 'production', NEXTAUTH_URL: this.url, APP_PORT: String(this.port), ...this.env },
-      detached: true,
-      stdio: ['ignore', log, log],
-    });
+    this.child = spawn(
+      process.execPath,
+      ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(this.port)],
+      {
+        cwd: root,
+        env: {
+          ...process.env,
+          NODE_ENV: 'production',
+          NEXTAUTH_URL: this.url,
+          APP_PORT: String(this.port),
+          ...this.env,
+        },
+        detached: true,
+        stdio: ['ignore', log, log],
+      },
+    );
     const until = Date.now() + ms;
     while (Date.now() < until) {
       if (this.child.exitCode !== null) throw new Error(`the app exited at start (see .data/logs/${this.logName}.log)`);
@@ -78,14 +88,19 @@ export class AppServer {
 
 function pgBin(): string {
   const base = '/usr/lib/postgresql';
-  const v = fs.readdirSync(base).filter((x) => fs.existsSync(path.join(base, x, 'bin', 'pg_ctl'))).sort((a, b) => Number(b) - Number(a))[0];
+  const v = fs
+    .readdirSync(base)
+    .filter((x) => fs.existsSync(path.join(base, x, 'bin', 'pg_ctl')))
+    .sort((a, b) => Number(b) - Number(a))[0];
   if (!v) throw new Error('no PostgreSQL server binaries under /usr/lib/postgresql');
   return path.join(base, v, 'bin');
 }
 
 function asPg(tool: string, args: string[]) {
   const cmd = path.join(pgBin(), tool);
-  const r = isRoot ? spawnSync('runuser', ['-u', 'postgres', '--', cmd, ...args], { encoding: 'utf8' }) : spawnSync(cmd, args, { encoding: 'utf8' });
+  const r = isRoot
+    ? spawnSync('runuser', ['-u', 'postgres', '--', cmd, ...args], { encoding: 'utf8' })
+    : spawnSync(cmd, args, { encoding: 'utf8' });
   if (r.status !== 0) throw new Error(`${tool} ${args.join(' ')} failed: ${r.stdout}${r.stderr}`);
   return r.stdout;
 }
@@ -111,13 +126,36 @@ export class ThrowawayCluster {
     const pw = path.join(this.dir, 'pw');
     fs.writeFileSync(pw, `${this.password}\n`, { mode: 0o644 });
     if (isRoot) spawnSync('chown', ['postgres:postgres', pw]);
-    asPg('initdb', ['-D', data, '-U', 'rigcall', `--pwfile=${pw}`, '--auth-host=scram-sha-256', '--auth-local=scram-sha-256', '-E', 'UTF8', '--locale=C.UTF-8']);
+    asPg('initdb', [
+      '-D',
+      data,
+      '-U',
+      'rigcall',
+      `--pwfile=${pw}`,
+      '--auth-host=scram-sha-256',
+      '--auth-local=scram-sha-256',
+      '-E',
+      'UTF8',
+      '--locale=C.UTF-8',
+    ]);
     fs.rmSync(pw, { force: true });
-    fs.appendFileSync(path.join(data, 'postgresql.conf'), `\nlisten_addresses = '127.0.0.1'\nport = ${this.port}\nunix_socket_directories = ''\nfsync = off\nmax_connections = 60\n`);
+    fs.appendFileSync(
+      path.join(data, 'postgresql.conf'),
+      `\nlisten_addresses = '127.0.0.1'\nport = ${this.port}\nunix_socket_directories = ''\nfsync = off\nmax_connections = 60\n`,
+    );
   }
 
   start() {
-    asPg('pg_ctl', ['-D', path.join(this.dir, 'data'), '-l', path.join(this.dir, 'postgres.log'), '-w', '-t', '60', 'start']);
+    asPg('pg_ctl', [
+      '-D',
+      path.join(this.dir, 'data'),
+      '-l',
+      path.join(this.dir, 'postgres.log'),
+      '-w',
+      '-t',
+      '60',
+      'start',
+    ]);
   }
 
   stop() {
@@ -135,10 +173,19 @@ export class ThrowawayCluster {
 
   /** Create a database, migrate it and seed the demo fleet, with the project's own scripts. */
   prepare(db: string) {
-    const psql = spawnSync(path.join(pgBin(), 'psql'), ['-h', '127.0.0.1', '-p', String(this.port), '-U', 'rigcall', '-d', 'postgres', '-qAtc', `CREATE DATABASE ${db}`], { env: { ...process.env, PGPASSWORD: this.password }, encoding: 'utf8' });
+    const psql = spawnSync(
+      path.join(pgBin(), 'psql'),
+      ['-h', '127.0.0.1', '-p', String(this.port), '-U', 'rigcall', '-d', 'postgres', '-qAtc', `CREATE DATABASE ${db}`],
+      { env: { ...process.env, PGPASSWORD: this.password }, encoding: 'utf8' },
+    );
     if (psql.status !== 0) throw new Error(`create database failed: ${psql.stderr}`);
     for (const script of ['db/migrate.ts', 'db/seed.ts']) {
-      const r = spawnSync(process.execPath, ['node_modules/tsx/dist/cli.mjs', script], { cwd: root, env: { ...process.env, DATABASE_URL: this.url(db) }, encoding: 'utf8', timeout: 180_000 });
+      const r = spawnSync(process.execPath, ['node_modules/tsx/dist/cli.mjs', script], {
+        cwd: root,
+        env: { ...process.env, DATABASE_URL: this.url(db) },
+        encoding: 'utf8',
+        timeout: 180_000,
+      });
       if (r.status !== 0) throw new Error(`${script} failed: ${r.stdout}${r.stderr}`);
     }
   }

@@ -22,7 +22,10 @@ test('every answer carries the security headers', async ({ request }) => {
 });
 
 test('a write from another site is refused by the running app', async ({ request }) => {
-  const res = await request.post('/api/inspections', { headers: { origin: 'https://evil.example', 'content-type': 'application/json' }, data: {} });
+  const res = await request.post('/api/inspections', {
+    headers: { origin: 'https://evil.example', 'content-type': 'application/json' },
+    data: {},
+  });
   expect(res.status()).toBe(403);
   expect((await res.json()).error.message).toMatch(/another site/);
 });
@@ -40,7 +43,11 @@ test('the pages run under the policy: no violations on sign-in and the driver ho
   await page.goto('/driver');
   await expect(page.getByRole('link', { name: 'Start pre-trip' })).toBeVisible();
   // The font is our own, served from /_next/static.
-  const font = await page.evaluate(() => document.fonts.check('18px "Atkinson Hyperlegible Next Variable"') || document.fonts.check('18px "Atkinson Hyperlegible Next"'));
+  const font = await page.evaluate(
+    () =>
+      document.fonts.check('18px "Atkinson Hyperlegible Next Variable"') ||
+      document.fonts.check('18px "Atkinson Hyperlegible Next"'),
+  );
   expect(font).toBe(true);
   expect(violations).toEqual([]);
 });
@@ -58,8 +65,14 @@ test('the running app locks an account after repeated wrong passwords, even for 
   // every other sign-in of the suite comes from.
   const address = { 'x-forwarded-for': `198.51.100.${Math.floor(Math.random() * 250) + 1}` };
   const attempt = async (password: string) => {
-    const { csrfToken } = (await (await request.get('/api/auth/csrf', { headers: address })).json()) as { csrfToken: string };
-    const res = await request.post('/api/auth/callback/credentials', { form: { email, password, csrfToken, json: 'true' }, headers: address, maxRedirects: 0 });
+    const { csrfToken } = (await (await request.get('/api/auth/csrf', { headers: address })).json()) as {
+      csrfToken: string;
+    };
+    const res = await request.post('/api/auth/callback/credentials', {
+      form: { email, password, csrfToken, json: 'true' },
+      headers: address,
+      maxRedirects: 0,
+    });
     const body = (await res.json().catch(() => ({}))) as { url?: string };
     return new URL(body.url ?? res.headers().location ?? 'http://x/').searchParams.get('error');
   };

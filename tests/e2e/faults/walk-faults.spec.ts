@@ -24,14 +24,39 @@ const axles = {
 async function makeRig(db: DB) {
   const fleet = await db.selectFrom('fleet').select('id').where('slug', '=', 'northbank').executeTakeFirstOrThrow();
   const tag = randomUUID().slice(0, 4).toUpperCase();
-  const tractor = await makeUnit(db, { fleetId: fleet.id, kind: 'tractor', unitNumber: `X${tag}`, make: 'Kestrel', model: 'fault tractor', year: 2022, axles: JSON.stringify(axles.tractor) });
-  const trailer = await makeUnit(db, { fleetId: fleet.id, kind: 'trailer', unitNumber: `Y${tag}`, make: 'Plainsman', model: 'fault trailer', year: 2021, axles: JSON.stringify(axles.trailer) });
+  const tractor = await makeUnit(db, {
+    fleetId: fleet.id,
+    kind: 'tractor',
+    unitNumber: `X${tag}`,
+    make: 'Kestrel',
+    model: 'fault tractor',
+    year: 2022,
+    axles: JSON.stringify(axles.tractor),
+  });
+  const trailer = await makeUnit(db, {
+    fleetId: fleet.id,
+    kind: 'trailer',
+    unitNumber: `Y${tag}`,
+    make: 'Plainsman',
+    model: 'fault trailer',
+    year: 2021,
+    axles: JSON.stringify(axles.trailer),
+  });
   return { fleetId: fleet.id, tractor, trailer };
 }
 
 async function countSteps(db: DB, inspectionId: string) {
-  const rows = await db.selectFrom('inspectionStep').select(['id', 'seq', 'kind']).where('inspectionId', '=', inspectionId).execute();
-  return { total: rows.length, distinctSeq: new Set(rows.map((r) => r.seq)).size, distinctId: new Set(rows.map((r) => r.id)).size, byKind: rows.reduce<Record<string, number>>((m, r) => ((m[r.kind] = (m[r.kind] ?? 0) + 1), m), {}) };
+  const rows = await db
+    .selectFrom('inspectionStep')
+    .select(['id', 'seq', 'kind'])
+    .where('inspectionId', '=', inspectionId)
+    .execute();
+  return {
+    total: rows.length,
+    distinctSeq: new Set(rows.map((r) => r.seq)).size,
+    distinctId: new Set(rows.map((r) => r.id)).size,
+    byKind: rows.reduce<Record<string, number>>((m, r) => ((m[r.kind] = (m[r.kind] ?? 0) + 1), m), {}),
+  };
 }
 
 /** The walk after the fault: the remaining zones, then sign, and wait for the server's lock. */
@@ -42,7 +67,9 @@ async function finishWalk(page: Page, zones: string[], name: string) {
   }
   await say(page, 'finish');
   await signReport(page, name);
-  await expect(page.getByTestId('signed-status')).toHaveText('✓ Report locked on RigCall’s server.', { timeout: 30_000 });
+  await expect(page.getByTestId('signed-status')).toHaveText('✓ Report locked on RigCall’s server.', {
+    timeout: 30_000,
+  });
 }
 
 test.beforeEach(async ({ context }) => {
@@ -62,7 +89,13 @@ test.describe('the app server restarted mid-walk', () => {
   test('the driver keeps walking while it is gone; afterwards nothing is lost or doubled', async ({ page }) => {
     const rig = await makeRig(db);
     const email = `restart-${randomUUID().slice(0, 6)}@northbank.example`;
-    await makeUser(db, { fleetId: rig.fleetId, roles: ['driver'], email, name: 'Remy Restart', password: demoPassword });
+    await makeUser(db, {
+      fleetId: rig.fleetId,
+      roles: ['driver'],
+      email,
+      name: 'Remy Restart',
+      password: demoPassword,
+    });
     await signIn(page, email);
     const inspectionId = await startPreTrip(page, rig);
     await page.getByRole('button', { name: '● Listen' }).click();
@@ -84,12 +117,33 @@ test.describe('the app server restarted mid-walk', () => {
     await app.start();
     await expect(page.getByTestId('sync-status')).toHaveText('✓ All saved', { timeout: 30_000 });
     await expect(page.getByTestId('away-banner')).toBeHidden();
-    await finishWalk(page, ['Coupling', 'Driver side trailer', 'Rear', 'Passenger side trailer', 'Passenger side tractor', 'In cab', 'Air-brake tests'], 'Remy Restart');
+    await finishWalk(
+      page,
+      [
+        'Coupling',
+        'Driver side trailer',
+        'Rear',
+        'Passenger side trailer',
+        'Passenger side tractor',
+        'In cab',
+        'Air-brake tests',
+      ],
+      'Remy Restart',
+    );
 
     const after = await countSteps(db, inspectionId);
-    expect(after).toEqual({ total: 21, distinctSeq: 21, distinctId: 21, byKind: { visit: 10, zone_ok: 10, defect: 1 } });
+    expect(after).toEqual({
+      total: 21,
+      distinctSeq: 21,
+      distinctId: 21,
+      byKind: { visit: 10, zone_ok: 10, defect: 1 },
+    });
     expect(after.total).toBeGreaterThan(whileAway.total);
-    const report = await db.selectFrom('inspection').select('status').where('id', '=', inspectionId).executeTakeFirstOrThrow();
+    const report = await db
+      .selectFrom('inspection')
+      .select('status')
+      .where('id', '=', inspectionId)
+      .executeTakeFirstOrThrow();
     expect(report.status).toBe('submitted');
   });
 });
@@ -113,7 +167,9 @@ test.describe('PostgreSQL stopped for 10 seconds mid-walk', () => {
     cluster.destroy();
   });
 
-  test('the screen says the server is not answering; after it is back the walk finishes, every step once', async ({ page }) => {
+  test('the screen says the server is not answering; after it is back the walk finishes, every step once', async ({
+    page,
+  }) => {
     const rig = await makeRig(db);
     await signIn(page, 'dana.okafor@northbank.example');
     const inspectionId = await startPreTrip(page, rig);
@@ -131,7 +187,9 @@ test.describe('PostgreSQL stopped for 10 seconds mid-walk', () => {
     await say(page, 'drive pressure ninety eight psi');
     await say(page, 'all good');
     await expectZone(page, 'Coupling');
-    await expect(page.getByTestId('away-banner')).toContainText('RigCall’s server is not answering.', { timeout: 8_000 });
+    await expect(page.getByTestId('away-banner')).toContainText('RigCall’s server is not answering.', {
+      timeout: 8_000,
+    });
     await expect(page.getByTestId('sync-status')).toContainText('saved on this phone');
     await page.waitForTimeout(Math.max(0, 10_000 - (Date.now() - stoppedAt)));
     expect(app.running, 'the app server survives the database going away').toBe(true);
@@ -140,11 +198,32 @@ test.describe('PostgreSQL stopped for 10 seconds mid-walk', () => {
 
     await expect(page.getByTestId('sync-status')).toHaveText('✓ All saved', { timeout: 30_000 });
     await expect(page.getByTestId('away-banner')).toBeHidden();
-    await finishWalk(page, ['Coupling', 'Driver side trailer', 'Rear', 'Passenger side trailer', 'Passenger side tractor', 'In cab', 'Air-brake tests'], 'Dana Okafor');
+    await finishWalk(
+      page,
+      [
+        'Coupling',
+        'Driver side trailer',
+        'Rear',
+        'Passenger side trailer',
+        'Passenger side tractor',
+        'In cab',
+        'Air-brake tests',
+      ],
+      'Dana Okafor',
+    );
 
     const after = await countSteps(db, inspectionId);
-    expect(after).toEqual({ total: 22, distinctSeq: 22, distinctId: 22, byKind: { visit: 10, zone_ok: 10, defect: 1, measurement: 1 } });
-    const report = await db.selectFrom('inspection').select('status').where('id', '=', inspectionId).executeTakeFirstOrThrow();
+    expect(after).toEqual({
+      total: 22,
+      distinctSeq: 22,
+      distinctId: 22,
+      byKind: { visit: 10, zone_ok: 10, defect: 1, measurement: 1 },
+    });
+    const report = await db
+      .selectFrom('inspection')
+      .select('status')
+      .where('id', '=', inspectionId)
+      .executeTakeFirstOrThrow();
     expect(report.status).toBe('submitted');
   });
 });
@@ -158,7 +237,13 @@ test.describe('a step the server answered for, then lost before it reached its d
   test('signing finds it missing, the phone sends it again, and the report locks with it', async ({ page }) => {
     const rig = await makeRig(db);
     const email = `lost-${randomUUID().slice(0, 6)}@northbank.example`;
-    await makeUser(db, { fleetId: rig.fleetId, roles: ['driver'], email, name: 'Lou Lostwrite', password: demoPassword });
+    await makeUser(db, {
+      fleetId: rig.fleetId,
+      roles: ['driver'],
+      email,
+      name: 'Lou Lostwrite',
+      password: demoPassword,
+    });
     await signIn(page, email);
     const inspectionId = await startPreTrip(page, rig);
     await page.getByRole('button', { name: '● Listen' }).click();
@@ -167,21 +252,50 @@ test.describe('a step the server answered for, then lost before it reached its d
     await say(page, 'all good');
     await expectZone(page, 'Driver side tractor');
     // The engine bay's "all good" reached the server (the status line may still show the moment before it was sent).
-    const engineBayOk = () => db.selectFrom('inspectionStep').select(['id']).where('inspectionId', '=', inspectionId).where('kind', '=', 'zone_ok').where('zone', '=', 'engine_bay').executeTakeFirst();
+    const engineBayOk = () =>
+      db
+        .selectFrom('inspectionStep')
+        .select(['id'])
+        .where('inspectionId', '=', inspectionId)
+        .where('kind', '=', 'zone_ok')
+        .where('zone', '=', 'engine_bay')
+        .executeTakeFirst();
     await expect.poll(async () => !!(await engineBayOk()), { timeout: 10_000 }).toBe(true);
     await expect(page.getByTestId('sync-status')).toHaveText('✓ All saved');
     const lost = (await engineBayOk())!;
     await db.deleteFrom('inspectionStep').where('id', '=', lost.id).execute();
 
-    await finishWalk(page, ['Driver side tractor', 'Coupling', 'Driver side trailer', 'Rear', 'Passenger side trailer', 'Passenger side tractor', 'In cab', 'Air-brake tests'], 'Lou Lostwrite');
+    await finishWalk(
+      page,
+      [
+        'Driver side tractor',
+        'Coupling',
+        'Driver side trailer',
+        'Rear',
+        'Passenger side trailer',
+        'Passenger side tractor',
+        'In cab',
+        'Air-brake tests',
+      ],
+      'Lou Lostwrite',
+    );
 
     const after = await countSteps(db, inspectionId);
     expect(after).toEqual({ total: 20, distinctSeq: 20, distinctId: 20, byKind: { visit: 10, zone_ok: 10 } });
     const back = await db.selectFrom('inspectionStep').select('id').where('id', '=', lost.id).execute();
     expect(back).toHaveLength(1);
-    const report = await db.selectFrom('inspection').select('status').where('id', '=', inspectionId).executeTakeFirstOrThrow();
+    const report = await db
+      .selectFrom('inspection')
+      .select('status')
+      .where('id', '=', inspectionId)
+      .executeTakeFirstOrThrow();
     expect(report.status).toBe('submitted');
-    const refused = await db.selectFrom('auditLog').select('action').where('entityId', '=', inspectionId).where('action', '=', 'inspection.sign').execute();
+    const refused = await db
+      .selectFrom('auditLog')
+      .select('action')
+      .where('entityId', '=', inspectionId)
+      .where('action', '=', 'inspection.sign')
+      .execute();
     expect(refused).toHaveLength(1);
   });
 });

@@ -7,7 +7,14 @@ import { serializeReport, toCanonicalSteps } from '../../../lib/reports/canonica
 
 export const openDb = (): DB => createDb(databaseUrlFromEnv(), 2);
 
-export type Target = { reportId: string; unitId: string; unitNumber: string; heard: string | null; openMajorIds: string[]; openMinorIds: string[] };
+export type Target = {
+  reportId: string;
+  unitId: string;
+  unitNumber: string;
+  heard: string | null;
+  openMajorIds: string[];
+  openMinorIds: string[];
+};
 
 /**
  * A report of the demo fleet whose major defect is still open and that is the last report of that
@@ -26,9 +33,26 @@ export async function findTarget(db: DB): Promise<Target> {
   // Raw rows come back camelCased by the client's CamelCasePlugin.
   let hit = found.rows[0];
   if (!hit) hit = await writeReportWithMajor(db, fleet.id);
-  const unit = await db.selectFrom('unit').select(['unitNumber']).where('id', '=', hit.unitId).executeTakeFirstOrThrow();
-  const openMajor = await db.selectFrom('defect').select(['id']).where('unitId', '=', hit.unitId).where('status', '=', 'open').where('severity', '=', 'major').execute();
-  const openMinor = await db.selectFrom('defect').select(['id']).where('inspectionId', '=', hit.reportId).where('unitId', '=', hit.unitId).where('status', '=', 'open').where('severity', '=', 'minor').execute();
+  const unit = await db
+    .selectFrom('unit')
+    .select(['unitNumber'])
+    .where('id', '=', hit.unitId)
+    .executeTakeFirstOrThrow();
+  const openMajor = await db
+    .selectFrom('defect')
+    .select(['id'])
+    .where('unitId', '=', hit.unitId)
+    .where('status', '=', 'open')
+    .where('severity', '=', 'major')
+    .execute();
+  const openMinor = await db
+    .selectFrom('defect')
+    .select(['id'])
+    .where('inspectionId', '=', hit.reportId)
+    .where('unitId', '=', hit.unitId)
+    .where('status', '=', 'open')
+    .where('severity', '=', 'minor')
+    .execute();
   const step = await db
     .selectFrom('defect as df')
     .innerJoin('inspectionStep as s', 's.id', 'df.stepId')
@@ -37,26 +61,144 @@ export async function findTarget(db: DB): Promise<Target> {
     .where('df.unitId', '=', hit.unitId)
     .where('df.severity', '=', 'major')
     .executeTakeFirstOrThrow();
-  return { reportId: hit.reportId, unitId: hit.unitId, unitNumber: unit.unitNumber, heard: step.heard, openMajorIds: openMajor.map((d) => d.id), openMinorIds: openMinor.map((d) => d.id) };
+  return {
+    reportId: hit.reportId,
+    unitId: hit.unitId,
+    unitNumber: unit.unitNumber,
+    heard: step.heard,
+    openMajorIds: openMajor.map((d) => d.id),
+    openMinorIds: openMinor.map((d) => d.id),
+  };
 }
 
 async function writeReportWithMajor(db: DB, fleetId: string) {
-  const driver = await db.selectFrom('appUser').select(['id', 'name']).where('fleetId', '=', fleetId).where('email', '=', 'luis.ferreira@northbank.example').executeTakeFirstOrThrow();
-  const tractor = await db.selectFrom('unit').select(['id']).where('fleetId', '=', fleetId).where('unitNumber', '=', '247').executeTakeFirstOrThrow();
+  const driver = await db
+    .selectFrom('appUser')
+    .select(['id', 'name'])
+    .where('fleetId', '=', fleetId)
+    .where('email', '=', 'luis.ferreira@northbank.example')
+    .executeTakeFirstOrThrow();
+  const tractor = await db
+    .selectFrom('unit')
+    .select(['id'])
+    .where('fleetId', '=', fleetId)
+    .where('unitNumber', '=', '247')
+    .executeTakeFirstOrThrow();
   const id = randomUUID();
   const startedAt = new Date(Date.now() - 2 * 3600_000);
   const finishedAt = new Date(startedAt.getTime() + 18 * 60_000);
   const at = (s: number) => new Date(startedAt.getTime() + s * 1000);
   const steps = [
-    { id: randomUUID(), seq: 0, zone: 'front', item: null, kind: 'visit', heard: null, termKey: null, component: null, condition: null, position: null, score: null, resolution: null, undoesStepId: null, measurementKind: null, value: null, unit: null, verdict: null, severity: null, deviceAt: at(10) },
-    { id: randomUUID(), seq: 1, zone: 'front', item: null, kind: 'defect', heard: 'bulge on the left steer tire', termKey: 'steer_tire:bulge', component: 'steer tire', condition: 'bulge', position: 'left', score: 0.93, resolution: 'auto', undoesStepId: null, measurementKind: null, value: null, unit: null, verdict: null, severity: 'major', deviceAt: at(60) },
-    { id: randomUUID(), seq: 2, zone: 'front', item: null, kind: 'zone_ok', heard: 'all good', termKey: null, component: null, condition: null, position: null, score: 1, resolution: 'auto', undoesStepId: null, measurementKind: null, value: null, unit: null, verdict: null, severity: null, deviceAt: at(120) },
+    {
+      id: randomUUID(),
+      seq: 0,
+      zone: 'front',
+      item: null,
+      kind: 'visit',
+      heard: null,
+      termKey: null,
+      component: null,
+      condition: null,
+      position: null,
+      score: null,
+      resolution: null,
+      undoesStepId: null,
+      measurementKind: null,
+      value: null,
+      unit: null,
+      verdict: null,
+      severity: null,
+      deviceAt: at(10),
+    },
+    {
+      id: randomUUID(),
+      seq: 1,
+      zone: 'front',
+      item: null,
+      kind: 'defect',
+      heard: 'bulge on the left steer tire',
+      termKey: 'steer_tire:bulge',
+      component: 'steer tire',
+      condition: 'bulge',
+      position: 'left',
+      score: 0.93,
+      resolution: 'auto',
+      undoesStepId: null,
+      measurementKind: null,
+      value: null,
+      unit: null,
+      verdict: null,
+      severity: 'major',
+      deviceAt: at(60),
+    },
+    {
+      id: randomUUID(),
+      seq: 2,
+      zone: 'front',
+      item: null,
+      kind: 'zone_ok',
+      heard: 'all good',
+      termKey: null,
+      component: null,
+      condition: null,
+      position: null,
+      score: 1,
+      resolution: 'auto',
+      undoesStepId: null,
+      measurementKind: null,
+      value: null,
+      unit: null,
+      verdict: null,
+      severity: null,
+      deviceAt: at(120),
+    },
   ];
-  const header = { id, fleetId, kind: 'pre_trip', driverId: driver.id, tractorId: tractor.id, trailerId: null, odometer: 498_120, location: 'Millbrook Terminal, yard B', billOfLading: null, sealNumber: null, ruleProfile: 'us-federal', vocabularyVersionId: null, startedAt, finishedAt, certificationText: 'I performed this inspection and the report lists every defect I found or that was reported to me.', signatureName: driver.name, signedAt: new Date(finishedAt.getTime() + 20_000) };
-  const contentHash = createHash('sha256').update(serializeReport({ ...header, steps: toCanonicalSteps(steps) })).digest('hex');
-  await db.insertInto('inspection').values({ ...header, status: 'submitted', durationS: 18 * 60, contentHash }).execute();
-  await db.insertInto('inspectionStep').values(steps.map((s) => ({ ...s, fleetId, inspectionId: id, alternatives: '[]', inputMode: 'voice' }))).execute();
-  await db.insertInto('defect').values({ fleetId, inspectionId: id, stepId: steps[1]!.id, unitId: tractor.id, zone: 'front', component: 'steer tire', condition: 'bulge', position: 'left', severity: 'major', description: 'steer tire, bulge, left' }).execute();
+  const header = {
+    id,
+    fleetId,
+    kind: 'pre_trip',
+    driverId: driver.id,
+    tractorId: tractor.id,
+    trailerId: null,
+    odometer: 498_120,
+    location: 'Millbrook Terminal, yard B',
+    billOfLading: null,
+    sealNumber: null,
+    ruleProfile: 'us-federal',
+    vocabularyVersionId: null,
+    startedAt,
+    finishedAt,
+    certificationText:
+      'I performed this inspection and the report lists every defect I found or that was reported to me.',
+    signatureName: driver.name,
+    signedAt: new Date(finishedAt.getTime() + 20_000),
+  };
+  const contentHash = createHash('sha256')
+    .update(serializeReport({ ...header, steps: toCanonicalSteps(steps) }))
+    .digest('hex');
+  await db
+    .insertInto('inspection')
+    .values({ ...header, status: 'submitted', durationS: 18 * 60, contentHash })
+    .execute();
+  await db
+    .insertInto('inspectionStep')
+    .values(steps.map((s) => ({ ...s, fleetId, inspectionId: id, alternatives: '[]', inputMode: 'voice' })))
+    .execute();
+  await db
+    .insertInto('defect')
+    .values({
+      fleetId,
+      inspectionId: id,
+      stepId: steps[1]!.id,
+      unitId: tractor.id,
+      zone: 'front',
+      component: 'steer tire',
+      condition: 'bulge',
+      position: 'left',
+      severity: 'major',
+      description: 'steer tire, bulge, left',
+    })
+    .execute();
   await db.updateTable('unit').set({ status: 'out_of_service' }).where('id', '=', tractor.id).execute();
   return { reportId: id, unitId: tractor.id };
 }

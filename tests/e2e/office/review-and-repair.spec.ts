@@ -18,9 +18,16 @@ async function signedIn(browser: Browser, email: string): Promise<Page> {
   return page;
 }
 
-const caught = async (page: Page, to: string) => ((await (await page.request.get(`${catcher}/messages?to=${encodeURIComponent(to)}`)).json()) as { messages: { subject: string; receivedAt: string }[] }).messages;
+const caught = async (page: Page, to: string) =>
+  (
+    (await (await page.request.get(`${catcher}/messages?to=${encodeURIComponent(to)}`)).json()) as {
+      messages: { subject: string; receivedAt: string }[];
+    }
+  ).messages;
 
-test('supervisor reviews, mechanic certifies, unit back in service, mails caught, next driver asked to acknowledge', async ({ browser }) => {
+test('supervisor reviews, mechanic certifies, unit back in service, mails caught, next driver asked to acknowledge', async ({
+  browser,
+}) => {
   test.setTimeout(120_000);
   const db = openDb();
   let target: Target;
@@ -49,7 +56,9 @@ test('supervisor reviews, mechanic certifies, unit back in service, mails caught
   await expect(sup.getByRole('heading', { name: 'Transcript of findings' })).toBeVisible();
   await expect(sup.getByTestId('hash-match')).toBeVisible();
   // The step that raised the major defect: a spoken finding or a reading over its limit.
-  const finding = target.heard ? sup.getByRole('row').filter({ hasText: target.heard }).first() : sup.getByTestId('step-defect').first();
+  const finding = target.heard
+    ? sup.getByRole('row').filter({ hasText: target.heard }).first()
+    : sup.getByTestId('step-defect').first();
   await expect(finding).toContainText('MAJOR');
   await expect(sup.getByTestId('transcript-zone').first()).toContainText('in zone');
 
@@ -63,7 +72,9 @@ test('supervisor reviews, mechanic certifies, unit back in service, mails caught
   expect(pdf.headers()['content-type']).toBe('application/pdf');
   expect((await pdf.body()).subarray(0, 5).toString()).toBe('%PDF-');
   await sup.getByRole('button', { name: 'Mail the shop about open defects' }).click();
-  await expect(sup.getByRole('status').filter({ hasText: 'Out-of-service notice' })).toContainText(`unit ${target.unitNumber} sent`);
+  await expect(sup.getByRole('status').filter({ hasText: 'Out-of-service notice' })).toContainText(
+    `unit ${target.unitNumber} sent`,
+  );
 
   // Mechanic: every open major defect of the unit, then the report's minor ones on it, from the queue.
   const mech = await signedIn(browser, demoPerson('mechanic').email);
@@ -73,7 +84,9 @@ test('supervisor reviews, mechanic certifies, unit back in service, mails caught
     const row = mech.getByTestId(`queue-unit-${target.unitNumber}`).locator(`a[href="/mechanic/defects/${defectId}"]`);
     await expect(row).toContainText(major ? 'MAJOR' : 'Minor');
     await row.click();
-    await expect(mech.getByRole('complementary', { name: 'Before you work on the unit' })).toContainText('air suspension');
+    await expect(mech.getByRole('complementary', { name: 'Before you work on the unit' })).toContainText(
+      'air suspension',
+    );
     const sign = mech.getByRole('button', { name: 'Sign the certification' });
     await expect(sign).toBeEnabled();
     if (major) {
@@ -98,13 +111,24 @@ test('supervisor reviews, mechanic certifies, unit back in service, mails caught
   // Both mails reached the catcher.
   await expect
     .poll(async () => (await caught(sup, shop)).filter((m) => m.receivedAt >= startedAt).map((m) => m.subject))
-    .toEqual(expect.arrayContaining([`OUT OF SERVICE: unit ${target.unitNumber} (Northbank Freight Co.)`, `Back in service: unit ${target.unitNumber} (Northbank Freight Co.)`]));
+    .toEqual(
+      expect.arrayContaining([
+        `OUT OF SERVICE: unit ${target.unitNumber} (Northbank Freight Co.)`,
+        `Back in service: unit ${target.unitNumber} (Northbank Freight Co.)`,
+      ]),
+    );
 
   // The next driver must acknowledge the report, and now may operate: every defect is certified.
   const driver = await signedIn(browser, demoPerson('driver').email);
   const res = await driver.request.get(`/api/reports/acknowledgements?units=${target.unitId}`);
   expect(res.status()).toBe(200);
-  const { pending } = (await res.json()) as { pending: { report: { id: string }; due: { signatureRequired: boolean; mayOperate: boolean }; defects: { status: string; certifiedName: string | null }[] }[] };
+  const { pending } = (await res.json()) as {
+    pending: {
+      report: { id: string };
+      due: { signatureRequired: boolean; mayOperate: boolean };
+      defects: { status: string; certifiedName: string | null }[];
+    }[];
+  };
   const due = pending.find((p) => p.report.id === target.reportId);
   expect(due?.due).toMatchObject({ signatureRequired: true, mayOperate: true });
   expect(due?.defects.filter((d) => d.status === 'repaired').map((d) => d.certifiedName)).toContain('Priya Raman');

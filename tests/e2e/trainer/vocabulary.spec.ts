@@ -20,13 +20,27 @@ async function signInTrainer(page: Page) {
   await page.waitForURL(/\/trainer$/);
 }
 
-test('a trainer turns a field utterance into a synonym, evaluates, publishes; the next walk matches it', async ({ page, browser }) => {
+test('a trainer turns a field utterance into a synonym, evaluates, publishes; the next walk matches it', async ({
+  page,
+  browser,
+}) => {
   // A word no vocabulary knows, so that the utterance is new on every run.
   const word = `xq${[...randomBytes(4)].map((b) => 'bcdfghjklmnprstvwz'[b % 18]).join('')}`;
   const heard = `mud flap doing the ${word}`;
   const fleet = await db.selectFrom('fleet').select('id').where('slug', '=', 'northbank').executeTakeFirstOrThrow();
   // As the walk writes it when a voice step matches nothing.
-  await db.insertInto('fieldUtterance').values([heard, `the mud flaps doing the ${word}`].map((text) => ({ fleetId: fleet.id, zone: 'driver_side_tractor', text, normalized: text, outcome: 'unmatched' as const }))).execute();
+  await db
+    .insertInto('fieldUtterance')
+    .values(
+      [heard, `the mud flaps doing the ${word}`].map((text) => ({
+        fleetId: fleet.id,
+        zone: 'driver_side_tractor',
+        text,
+        normalized: text,
+        outcome: 'unmatched' as const,
+      })),
+    )
+    .execute();
 
   await signInTrainer(page);
   await page.setViewportSize({ width: 1280, height: 800 });
@@ -46,7 +60,9 @@ test('a trainer turns a field utterance into a synonym, evaluates, publishes; th
   await group.getByLabel(/Term for/).fill('mud flap, loose');
   await shot(page, 'trainer-inbox');
   await group.getByRole('button', { name: 'Add as phrase of mud flap, loose' }).click();
-  await expect(page.getByTestId('phrase-added')).toContainText('The draft now reads it as mud flap, loose', { timeout: 15_000 });
+  await expect(page.getByTestId('phrase-added')).toContainText('The draft now reads it as mud flap, loose', {
+    timeout: 15_000,
+  });
   await expect(page.getByTestId('inbox-group').filter({ hasText: heard })).toHaveCount(0);
 
   // Test bench: the draft reads it, the published version does not.
@@ -76,8 +92,21 @@ test('a trainer turns a field utterance into a synonym, evaluates, publishes; th
   await shot(page, 'trainer-evaluation');
   await page.getByRole('button', { name: 'Publish the draft' }).click();
   await expect(page.getByTestId('published-notice')).toContainText('Published', { timeout: 30_000 });
-  const published = await db.selectFrom('vocabularyVersion').select(['id', 'label']).where('fleetId', '=', fleet.id).where('status', '=', 'published').orderBy('publishedAt', 'desc').executeTakeFirstOrThrow();
-  expect(await db.selectFrom('vocabularyVersion').select('id').where('fleetId', '=', fleet.id).where('status', '=', 'draft').execute()).toEqual([]);
+  const published = await db
+    .selectFrom('vocabularyVersion')
+    .select(['id', 'label'])
+    .where('fleetId', '=', fleet.id)
+    .where('status', '=', 'published')
+    .orderBy('publishedAt', 'desc')
+    .executeTakeFirstOrThrow();
+  expect(
+    await db
+      .selectFrom('vocabularyVersion')
+      .select('id')
+      .where('fleetId', '=', fleet.id)
+      .where('status', '=', 'draft')
+      .execute(),
+  ).toEqual([]);
 
   // The phone width still reads.
   await page.setViewportSize({ width: 390, height: 844 });
@@ -94,7 +123,15 @@ test('a trainer turns a field utterance into a synonym, evaluates, publishes; th
   const rig = await makeTestRig();
   await signIn(driver, 'dana.okafor@northbank.example');
   const inspectionId = await startPreTrip(driver, rig);
-  expect((await db.selectFrom('inspection').select('vocabularyVersionId').where('id', '=', inspectionId).executeTakeFirstOrThrow()).vocabularyVersionId).toBe(published.id);
+  expect(
+    (
+      await db
+        .selectFrom('inspection')
+        .select('vocabularyVersionId')
+        .where('id', '=', inspectionId)
+        .executeTakeFirstOrThrow()
+    ).vocabularyVersionId,
+  ).toBe(published.id);
   await driver.getByRole('button', { name: '● Listen' }).click();
   await say(driver, 'next');
   await expectZone(driver, 'Engine bay');
@@ -103,7 +140,16 @@ test('a trainer turns a field utterance into a synonym, evaluates, publishes; th
   await say(driver, heard);
   await expect(driver.getByTestId('readback')).toContainText('Mud flap, loose');
   await expect
-    .poll(async () => (await db.selectFrom('inspectionStep').select(['termKey', 'heard']).where('inspectionId', '=', inspectionId).where('kind', '=', 'defect').execute()).map((s) => s.termKey))
+    .poll(async () =>
+      (
+        await db
+          .selectFrom('inspectionStep')
+          .select(['termKey', 'heard'])
+          .where('inspectionId', '=', inspectionId)
+          .where('kind', '=', 'defect')
+          .execute()
+      ).map((s) => s.termKey),
+    )
     .toEqual(['mud_flap:loose']);
   await driverContext.close();
 });

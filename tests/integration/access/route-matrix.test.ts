@@ -47,28 +47,66 @@ type Case = {
 };
 
 const cases: Case[] = [
-  { route: 'health', method: 'GET', allowed: 'public', call: (_f, cookie) => callRoute(health.GET, makeRequest('/api/health', { cookie })) },
-  { route: 'me', method: 'GET', allowed: roles, call: (_f, cookie) => callRoute(me.GET, makeRequest('/api/me', { cookie })) },
+  {
+    route: 'health',
+    method: 'GET',
+    allowed: 'public',
+    call: (_f, cookie) => callRoute(health.GET, makeRequest('/api/health', { cookie })),
+  },
+  {
+    route: 'me',
+    method: 'GET',
+    allowed: roles,
+    call: (_f, cookie) => callRoute(me.GET, makeRequest('/api/me', { cookie })),
+  },
   {
     route: 'inspections/[id]',
     method: 'GET',
     allowed: ['driver', 'mechanic', 'supervisor'],
-    call: (f, cookie) => callRoute(inspection.GET, makeRequest(`/api/inspections/${f.inspection.id}`, { cookie }), { id: f.inspection.id }),
+    call: (f, cookie) =>
+      callRoute(inspection.GET, makeRequest(`/api/inspections/${f.inspection.id}`, { cookie }), {
+        id: f.inspection.id,
+      }),
   },
-  { route: 'units', method: 'GET', allowed: roles, call: (_f, cookie) => callRoute(units.GET, makeRequest('/api/units', { cookie })) },
+  {
+    route: 'units',
+    method: 'GET',
+    allowed: roles,
+    call: (_f, cookie) => callRoute(units.GET, makeRequest('/api/units', { cookie })),
+  },
   {
     route: 'units/[id]/review',
     method: 'GET',
     allowed: ['driver', 'mechanic', 'supervisor'],
-    call: (f, cookie) => callRoute(unitReview.GET, makeRequest(`/api/units/${f.tractor.id}/review`, { cookie }), { id: f.tractor.id }),
+    call: (f, cookie) =>
+      callRoute(unitReview.GET, makeRequest(`/api/units/${f.tractor.id}/review`, { cookie }), { id: f.tractor.id }),
   },
-  { route: 'inspections', method: 'GET', allowed: ['driver'], call: (_f, cookie) => callRoute(inspections.GET, makeRequest('/api/inspections', { cookie })) },
+  {
+    route: 'inspections',
+    method: 'GET',
+    allowed: ['driver'],
+    call: (_f, cookie) => callRoute(inspections.GET, makeRequest('/api/inspections', { cookie })),
+  },
   {
     route: 'inspections',
     method: 'POST',
     allowed: ['driver'],
     call: (f, cookie) =>
-      callRoute(inspections.POST, makeRequest('/api/inspections', { method: 'POST', cookie, json: { id: randomUUID(), kind: 'post_trip', tractorId: f.tractor.id, trailerId: null, odometer: 1000, startedAt: new Date().toISOString() } })),
+      callRoute(
+        inspections.POST,
+        makeRequest('/api/inspections', {
+          method: 'POST',
+          cookie,
+          json: {
+            id: randomUUID(),
+            kind: 'post_trip',
+            tractorId: f.tractor.id,
+            trailerId: null,
+            odometer: 1000,
+            startedAt: new Date().toISOString(),
+          },
+        }),
+      ),
   },
   {
     route: 'inspections/[id]/steps',
@@ -76,7 +114,22 @@ const cases: Case[] = [
     allowed: ['driver'],
     call: async (f, cookie) => {
       const draft = await freshDraft(f);
-      return callRoute(steps.POST, makeRequest(`/api/inspections/${draft}/steps`, { method: 'POST', cookie, json: { id: randomUUID(), seq: 0, zone: 'front', kind: 'visit', inputMode: 'tap', deviceAt: new Date().toISOString() } }), { id: draft });
+      return callRoute(
+        steps.POST,
+        makeRequest(`/api/inspections/${draft}/steps`, {
+          method: 'POST',
+          cookie,
+          json: {
+            id: randomUUID(),
+            seq: 0,
+            zone: 'front',
+            kind: 'visit',
+            inputMode: 'tap',
+            deviceAt: new Date().toISOString(),
+          },
+        }),
+        { id: draft },
+      );
     },
   },
   {
@@ -85,7 +138,15 @@ const cases: Case[] = [
     allowed: ['driver'],
     call: async (f, cookie) => {
       const draft = await freshDraft(f);
-      return callRoute(finish.POST, makeRequest(`/api/inspections/${draft}/finish`, { method: 'POST', cookie, json: { signatureName: f.users.driver.name, certify: true, finishedAt: new Date().toISOString() } }), { id: draft });
+      return callRoute(
+        finish.POST,
+        makeRequest(`/api/inspections/${draft}/finish`, {
+          method: 'POST',
+          cookie,
+          json: { signatureName: f.users.driver.name, certify: true, finishedAt: new Date().toISOString() },
+        }),
+        { id: draft },
+      );
     },
   },
   {
@@ -95,7 +156,11 @@ const cases: Case[] = [
     call: async (f, cookie) => {
       const draft = await freshDraft(f);
       const photoId = randomUUID();
-      return callRoute(photos.PUT, makeRequest(`/api/inspections/${draft}/photos/${photoId}`, { method: 'PUT', cookie, body: await tinyJpeg() }), { id: draft, photoId });
+      return callRoute(
+        photos.PUT,
+        makeRequest(`/api/inspections/${draft}/photos/${photoId}`, { method: 'PUT', cookie, body: await tinyJpeg() }),
+        { id: draft, photoId },
+      );
     },
   },
   {
@@ -104,8 +169,14 @@ const cases: Case[] = [
     allowed: ['driver'],
     call: async (f, cookie) => {
       const draft = await freshDraft(f);
-      const png = await sharp({ create: { width: 300, height: 100, channels: 4, background: '#ffffff' } }).png().toBuffer();
-      return callRoute(signature.PUT, makeRequest(`/api/inspections/${draft}/signature`, { method: 'PUT', cookie, body: png }), { id: draft });
+      const png = await sharp({ create: { width: 300, height: 100, channels: 4, background: '#ffffff' } })
+        .png()
+        .toBuffer();
+      return callRoute(
+        signature.PUT,
+        makeRequest(`/api/inspections/${draft}/signature`, { method: 'PUT', cookie, body: png }),
+        { id: draft },
+      );
     },
   },
   {
@@ -114,9 +185,17 @@ const cases: Case[] = [
     allowed: ['mechanic'],
     call: async (f, cookie) => {
       const { reportId } = await reportWithDefect(f);
-      const defect = await db.selectFrom('defect').select('id').where('inspectionId', '=', reportId).executeTakeFirstOrThrow();
+      const defect = await db
+        .selectFrom('defect')
+        .select('id')
+        .where('inspectionId', '=', reportId)
+        .executeTakeFirstOrThrow();
       const photoId = randomUUID();
-      return callRoute(repairPhotos.PUT, makeRequest(`/api/defects/${defect.id}/photos/${photoId}`, { method: 'PUT', cookie, body: await tinyJpeg() }), { id: defect.id, photoId });
+      return callRoute(
+        repairPhotos.PUT,
+        makeRequest(`/api/defects/${defect.id}/photos/${photoId}`, { method: 'PUT', cookie, body: await tinyJpeg() }),
+        { id: defect.id, photoId },
+      );
     },
   },
   {
@@ -134,24 +213,49 @@ const cases: Case[] = [
     allowed: ['driver'],
     call: async (f, cookie) => {
       const { unitId, reportId } = await reportWithDefect(f);
-      return callRoute(acknowledgements.POST, makeRequest('/api/acknowledgements', { method: 'POST', cookie, json: { id: randomUUID(), unitId, reviewedInspectionId: reportId, signatureName: f.users.driver.name } }));
+      return callRoute(
+        acknowledgements.POST,
+        makeRequest('/api/acknowledgements', {
+          method: 'POST',
+          cookie,
+          json: { id: randomUUID(), unitId, reviewedInspectionId: reportId, signatureName: f.users.driver.name },
+        }),
+      );
     },
   },
   // The office side: reports, defects, dashboard, caught mail.
-  { route: 'reports', method: 'GET', allowed: ['supervisor'], call: (_f, cookie) => callRoute(reports.GET, makeRequest('/api/reports?pageSize=5', { cookie })) },
-  { route: 'reports/export', method: 'GET', allowed: ['supervisor'], call: (_f, cookie) => callRoute(reportsExport.GET, makeRequest('/api/reports/export', { cookie })) },
+  {
+    route: 'reports',
+    method: 'GET',
+    allowed: ['supervisor'],
+    call: (_f, cookie) => callRoute(reports.GET, makeRequest('/api/reports?pageSize=5', { cookie })),
+  },
+  {
+    route: 'reports/export',
+    method: 'GET',
+    allowed: ['supervisor'],
+    call: (_f, cookie) => callRoute(reportsExport.GET, makeRequest('/api/reports/export', { cookie })),
+  },
   {
     route: 'reports/acknowledgements',
     method: 'GET',
     allowed: ['driver', 'mechanic', 'supervisor'],
-    call: (f, cookie) => callRoute(reportsPending.GET, makeRequest(`/api/reports/acknowledgements?units=${f.tractor.id}`, { cookie })),
+    call: (f, cookie) =>
+      callRoute(reportsPending.GET, makeRequest(`/api/reports/acknowledgements?units=${f.tractor.id}`, { cookie })),
   },
-  { route: 'reports/[id]', method: 'GET', allowed: ['supervisor'], call: (f, cookie) => callRoute(report.GET, makeRequest(`/api/reports/${f.inspection.id}`, { cookie }), { id: f.inspection.id }) },
+  {
+    route: 'reports/[id]',
+    method: 'GET',
+    allowed: ['supervisor'],
+    call: (f, cookie) =>
+      callRoute(report.GET, makeRequest(`/api/reports/${f.inspection.id}`, { cookie }), { id: f.inspection.id }),
+  },
   {
     route: 'reports/[id]/pdf',
     method: 'GET',
     allowed: ['driver', 'mechanic', 'supervisor'],
-    call: (f, cookie) => callRoute(reportPdf.GET, makeRequest(`/api/reports/${f.inspection.id}/pdf`, { cookie }), { id: f.inspection.id }),
+    call: (f, cookie) =>
+      callRoute(reportPdf.GET, makeRequest(`/api/reports/${f.inspection.id}/pdf`, { cookie }), { id: f.inspection.id }),
   },
   {
     route: 'reports/[id]/review',
@@ -159,7 +263,11 @@ const cases: Case[] = [
     allowed: ['supervisor'],
     call: async (f, cookie) => {
       const { reportId } = await reportWithDefect(f);
-      return callRoute(reportReview.POST, makeRequest(`/api/reports/${reportId}/review`, { method: 'POST', cookie, json: { note: 'checked' } }), { id: reportId });
+      return callRoute(
+        reportReview.POST,
+        makeRequest(`/api/reports/${reportId}/review`, { method: 'POST', cookie, json: { note: 'checked' } }),
+        { id: reportId },
+      );
     },
   },
   {
@@ -168,10 +276,17 @@ const cases: Case[] = [
     allowed: ['supervisor'],
     call: async (f, cookie) => {
       const { reportId } = await reportWithDefect(f);
-      return callRoute(reportNotify.POST, makeRequest(`/api/reports/${reportId}/notify`, { method: 'POST', cookie }), { id: reportId });
+      return callRoute(reportNotify.POST, makeRequest(`/api/reports/${reportId}/notify`, { method: 'POST', cookie }), {
+        id: reportId,
+      });
     },
   },
-  { route: 'defects', method: 'GET', allowed: ['mechanic', 'supervisor'], call: (_f, cookie) => callRoute(defects.GET, makeRequest('/api/defects', { cookie })) },
+  {
+    route: 'defects',
+    method: 'GET',
+    allowed: ['mechanic', 'supervisor'],
+    call: (_f, cookie) => callRoute(defects.GET, makeRequest('/api/defects', { cookie })),
+  },
   {
     route: 'defects/[id]',
     method: 'GET',
@@ -187,20 +302,54 @@ const cases: Case[] = [
     allowed: ['mechanic'],
     call: async (f, cookie) => {
       const id = await openDefectOf(f, true);
-      return callRoute(defectCertification.POST, makeRequest(`/api/defects/${id}/certification`, { method: 'POST', cookie, json: { outcome: 'repaired', work: 'Replaced the horn relay', certifiedName: 'Matrix Mechanic', confirm: true } }), { id });
+      return callRoute(
+        defectCertification.POST,
+        makeRequest(`/api/defects/${id}/certification`, {
+          method: 'POST',
+          cookie,
+          json: {
+            outcome: 'repaired',
+            work: 'Replaced the horn relay',
+            certifiedName: 'Matrix Mechanic',
+            confirm: true,
+          },
+        }),
+        { id },
+      );
     },
   },
-  { route: 'dashboard', method: 'GET', allowed: ['supervisor'], call: (_f, cookie) => callRoute(dashboard.GET, makeRequest('/api/dashboard', { cookie })) },
-  { route: 'dashboard/board', method: 'GET', allowed: ['supervisor'], call: (_f, cookie) => callRoute(dashboardBoard.GET, makeRequest('/api/dashboard/board', { cookie })) },
-  { route: 'mail', method: 'GET', allowed: ['admin'], call: (_f, cookie) => callRoute(caughtMail.GET, makeRequest('/api/mail', { cookie })) },
+  {
+    route: 'dashboard',
+    method: 'GET',
+    allowed: ['supervisor'],
+    call: (_f, cookie) => callRoute(dashboard.GET, makeRequest('/api/dashboard', { cookie })),
+  },
+  {
+    route: 'dashboard/board',
+    method: 'GET',
+    allowed: ['supervisor'],
+    call: (_f, cookie) => callRoute(dashboardBoard.GET, makeRequest('/api/dashboard/board', { cookie })),
+  },
+  {
+    route: 'mail',
+    method: 'GET',
+    allowed: ['admin'],
+    call: (_f, cookie) => callRoute(caughtMail.GET, makeRequest('/api/mail', { cookie })),
+  },
   // The trainer's vocabulary routes.
   ...vocabularyRouteCases,
-  ...adminRouteCases.map(
-    (a): Case => ({ route: a.path.replace(/^\/api\//, ''), method: a.method as Case['method'], allowed: ['admin'], call: (_f, cookie) => a.call(cookie) }),
-  ),
+  ...adminRouteCases.map((a): Case => ({
+    route: a.path.replace(/^\/api\//, ''),
+    method: a.method as Case['method'],
+    allowed: ['admin'],
+    call: (_f, cookie) => a.call(cookie),
+  })),
 ];
 
-const tinyJpeg = () => sharp({ create: { width: 40, height: 30, channels: 3, background: '#446688' } }).jpeg().toBuffer();
+const tinyJpeg = () =>
+  sharp({ create: { width: 40, height: 30, channels: 3, background: '#446688' } })
+    .jpeg()
+    .toBuffer();
 
 /** A draft inspection of the fixture's driver, so that a successful call changes nothing shared. */
 async function freshDraft(f: FleetFixture): Promise<string> {
@@ -212,7 +361,15 @@ function sharedPhoto(f: FleetFixture): Promise<string> {
   photo ??= (async () => {
     const draft = await freshDraft(f);
     const id = randomUUID();
-    const res = await callRoute(photos.PUT, makeRequest(`/api/inspections/${draft}/photos/${id}`, { method: 'PUT', cookie: f.cookies.driver, body: await tinyJpeg() }), { id: draft, photoId: id });
+    const res = await callRoute(
+      photos.PUT,
+      makeRequest(`/api/inspections/${draft}/photos/${id}`, {
+        method: 'PUT',
+        cookie: f.cookies.driver,
+        body: await tinyJpeg(),
+      }),
+      { id: draft, photoId: id },
+    );
     if (res.status !== 201) throw new Error(`photo setup failed: ${await res.text()}`);
     return id;
   })();
@@ -224,7 +381,8 @@ let sharedDefect: Promise<string> | undefined;
 function openDefectOf(f: FleetFixture, fresh = false): Promise<string> {
   const make = async () => {
     const { reportId } = await reportWithDefect(f);
-    return (await db.selectFrom('defect').select('id').where('inspectionId', '=', reportId).executeTakeFirstOrThrow()).id;
+    return (await db.selectFrom('defect').select('id').where('inspectionId', '=', reportId).executeTakeFirstOrThrow())
+      .id;
   };
   if (fresh) return make();
   sharedDefect ??= make();
@@ -237,9 +395,40 @@ async function reportWithDefect(f: FleetFixture) {
   const reportId = randomUUID();
   const cookie = f.cookies.driver;
   const at = () => new Date().toISOString();
-  await callRoute(inspections.POST, makeRequest('/api/inspections', { method: 'POST', cookie, json: { id: reportId, kind: 'pre_trip', tractorId: unit.id, trailerId: null, odometer: 5, startedAt: at() } }));
-  await callRoute(steps.POST, makeRequest(`/api/inspections/${reportId}/steps`, { method: 'POST', cookie, json: { id: randomUUID(), seq: 1, zone: 'in_cab', kind: 'defect', termKey: 'horn:inoperative', inputMode: 'tap', deviceAt: at() } }), { id: reportId });
-  const signed = await callRoute(finish.POST, makeRequest(`/api/inspections/${reportId}/finish`, { method: 'POST', cookie, json: { signatureName: f.users.driver.name, certify: true, finishedAt: at() } }), { id: reportId });
+  await callRoute(
+    inspections.POST,
+    makeRequest('/api/inspections', {
+      method: 'POST',
+      cookie,
+      json: { id: reportId, kind: 'pre_trip', tractorId: unit.id, trailerId: null, odometer: 5, startedAt: at() },
+    }),
+  );
+  await callRoute(
+    steps.POST,
+    makeRequest(`/api/inspections/${reportId}/steps`, {
+      method: 'POST',
+      cookie,
+      json: {
+        id: randomUUID(),
+        seq: 1,
+        zone: 'in_cab',
+        kind: 'defect',
+        termKey: 'horn:inoperative',
+        inputMode: 'tap',
+        deviceAt: at(),
+      },
+    }),
+    { id: reportId },
+  );
+  const signed = await callRoute(
+    finish.POST,
+    makeRequest(`/api/inspections/${reportId}/finish`, {
+      method: 'POST',
+      cookie,
+      json: { signatureName: f.users.driver.name, certify: true, finishedAt: at() },
+    }),
+    { id: reportId },
+  );
   if (signed.status !== 200) throw new Error(`report setup failed: ${await signed.text()}`);
   return { unitId: unit.id, reportId };
 }
@@ -281,16 +470,26 @@ describe.each(cases)('$method /api/$route', (c) => {
 describe('fleet isolation', () => {
   it("another fleet's report by id is 404, exactly like an id that does not exist", async () => {
     const other = await makeFleetFixture(db, 'Other fleet');
-    const theirs = await callRoute(inspection.GET, makeRequest(`/api/inspections/${other.inspection.id}`, { cookie: f.cookies.supervisor }), { id: other.inspection.id });
+    const theirs = await callRoute(
+      inspection.GET,
+      makeRequest(`/api/inspections/${other.inspection.id}`, { cookie: f.cookies.supervisor }),
+      { id: other.inspection.id },
+    );
     const ghost = randomUUID();
-    const nobody = await callRoute(inspection.GET, makeRequest(`/api/inspections/${ghost}`, { cookie: f.cookies.supervisor }), { id: ghost });
+    const nobody = await callRoute(
+      inspection.GET,
+      makeRequest(`/api/inspections/${ghost}`, { cookie: f.cookies.supervisor }),
+      { id: ghost },
+    );
     expect(theirs.status).toBe(404);
     expect(nobody.status).toBe(404);
     expect(await theirs.json()).toEqual(await nobody.json());
   });
 
   it('a malformed id is a clear 422, not a server error', async () => {
-    const res = await callRoute(inspection.GET, makeRequest('/api/inspections/42', { cookie: f.cookies.supervisor }), { id: '42' });
+    const res = await callRoute(inspection.GET, makeRequest('/api/inspections/42', { cookie: f.cookies.supervisor }), {
+      id: '42',
+    });
     expect(res.status).toBe(422);
     expect((await res.json()).error.message).toMatch(/record id/);
   });
@@ -307,7 +506,10 @@ describe('the table lists every route', () => {
         else if (e.name === 'route.ts') {
           const route = path.relative(apiDir, dir).split(path.sep).join('/');
           const text = fs.readFileSync(abs, 'utf8');
-          for (const m of text.matchAll(/export const (GET|POST|PATCH|PUT|DELETE)\b|export \{[^}]*\bas (GET|POST|PATCH|PUT|DELETE)\b/g)) found.push(`${route} ${m[1] ?? m[2]}`);
+          for (const m of text.matchAll(
+            /export const (GET|POST|PATCH|PUT|DELETE)\b|export \{[^}]*\bas (GET|POST|PATCH|PUT|DELETE)\b/g,
+          ))
+            found.push(`${route} ${m[1] ?? m[2]}`);
           for (const m of text.matchAll(/\bas (GET|POST|PATCH|PUT|DELETE)\b/g)) found.push(`${route} ${m[1]}`);
         }
       }

@@ -14,7 +14,12 @@ import { callRoute, makeRequest } from '../../setup/session';
 import { getTestDb } from '../../setup/test-db';
 import { makeVin, tractorAxles } from './helpers';
 
-export type AdminRouteCase = { name: string; method: string; path: string; call: (cookie?: string) => Promise<Response> };
+export type AdminRouteCase = {
+  name: string;
+  method: string;
+  path: string;
+  call: (cookie?: string) => Promise<Response>;
+};
 
 /** The fleet of the user a session cookie belongs to, or null without a cookie. */
 async function fleetOfCookie(cookie?: string): Promise<string | null> {
@@ -32,7 +37,14 @@ async function throwawayUserId(cookie?: string): Promise<string> {
 async function throwawayUnitId(cookie?: string): Promise<string> {
   const fleetId = await fleetOfCookie(cookie);
   if (!fleetId) return randomUUID();
-  return (await makeUnit(getTestDb(), { fleetId, kind: 'tractor', unitNumber: `M${randomUUID().slice(0, 7).toUpperCase()}`, axles: JSON.stringify(tractorAxles) })).id;
+  return (
+    await makeUnit(getTestDb(), {
+      fleetId,
+      kind: 'tractor',
+      unitNumber: `M${randomUUID().slice(0, 7).toUpperCase()}`,
+      axles: JSON.stringify(tractorAxles),
+    })
+  ).id;
 }
 
 const newUnitBody = () => ({
@@ -48,13 +60,25 @@ const newUnitBody = () => ({
 });
 
 export const adminRouteCases: AdminRouteCase[] = [
-  { name: 'list users', method: 'GET', path: '/api/admin/users', call: (cookie) => callRoute(listUsers, makeRequest('/api/admin/users', { cookie })) },
+  {
+    name: 'list users',
+    method: 'GET',
+    path: '/api/admin/users',
+    call: (cookie) => callRoute(listUsers, makeRequest('/api/admin/users', { cookie })),
+  },
   {
     name: 'invite a user',
     method: 'POST',
     path: '/api/admin/users',
     call: (cookie) =>
-      callRoute(inviteUser, makeRequest('/api/admin/users', { method: 'POST', cookie, json: { name: 'Matrix Invitee', email: `matrix-${randomUUID().slice(0, 8)}@test.example`, roles: ['driver'] } })),
+      callRoute(
+        inviteUser,
+        makeRequest('/api/admin/users', {
+          method: 'POST',
+          cookie,
+          json: { name: 'Matrix Invitee', email: `matrix-${randomUUID().slice(0, 8)}@test.example`, roles: ['driver'] },
+        }),
+      ),
   },
   {
     name: 'read a user',
@@ -71,11 +95,26 @@ export const adminRouteCases: AdminRouteCase[] = [
     path: '/api/admin/users/[id]',
     call: async (cookie) => {
       const id = await throwawayUserId(cookie);
-      return callRoute(patchUser, makeRequest(`/api/admin/users/${id}`, { method: 'PATCH', cookie, json: { roles: ['driver', 'mechanic'] } }), { id });
+      return callRoute(
+        patchUser,
+        makeRequest(`/api/admin/users/${id}`, { method: 'PATCH', cookie, json: { roles: ['driver', 'mechanic'] } }),
+        { id },
+      );
     },
   },
-  { name: 'list units', method: 'GET', path: '/api/admin/units', call: (cookie) => callRoute(listUnits, makeRequest('/api/admin/units', { cookie })) },
-  { name: 'add a unit', method: 'POST', path: '/api/admin/units', call: (cookie) => callRoute(createUnit, makeRequest('/api/admin/units', { method: 'POST', cookie, json: newUnitBody() })) },
+  {
+    name: 'list units',
+    method: 'GET',
+    path: '/api/admin/units',
+    call: (cookie) => callRoute(listUnits, makeRequest('/api/admin/units', { cookie })),
+  },
+  {
+    name: 'add a unit',
+    method: 'POST',
+    path: '/api/admin/units',
+    call: (cookie) =>
+      callRoute(createUnit, makeRequest('/api/admin/units', { method: 'POST', cookie, json: newUnitBody() })),
+  },
   {
     name: 'read a unit',
     method: 'GET',
@@ -91,7 +130,11 @@ export const adminRouteCases: AdminRouteCase[] = [
     path: '/api/admin/units/[id]',
     call: async (cookie) => {
       const id = await throwawayUnitId(cookie);
-      return callRoute(patchUnit, makeRequest(`/api/admin/units/${id}`, { method: 'PATCH', cookie, json: { make: 'Ardent', year: 2020 } }), { id });
+      return callRoute(
+        patchUnit,
+        makeRequest(`/api/admin/units/${id}`, { method: 'PATCH', cookie, json: { make: 'Ardent', year: 2020 } }),
+        { id },
+      );
     },
   },
   {
@@ -100,10 +143,19 @@ export const adminRouteCases: AdminRouteCase[] = [
     path: '/api/admin/units/[id]/retire',
     call: async (cookie) => {
       const id = await throwawayUnitId(cookie);
-      return callRoute(retireUnit, makeRequest(`/api/admin/units/${id}/retire`, { method: 'POST', cookie, json: { reason: 'sold' } }), { id });
+      return callRoute(
+        retireUnit,
+        makeRequest(`/api/admin/units/${id}/retire`, { method: 'POST', cookie, json: { reason: 'sold' } }),
+        { id },
+      );
     },
   },
-  { name: 'read fleet settings', method: 'GET', path: '/api/admin/fleet', call: (cookie) => callRoute(getFleet, makeRequest('/api/admin/fleet', { cookie })) },
+  {
+    name: 'read fleet settings',
+    method: 'GET',
+    path: '/api/admin/fleet',
+    call: (cookie) => callRoute(getFleet, makeRequest('/api/admin/fleet', { cookie })),
+  },
   {
     name: 'change fleet settings',
     method: 'PATCH',
@@ -111,8 +163,21 @@ export const adminRouteCases: AdminRouteCase[] = [
     call: async (cookie) => {
       // Sends the fleet's current post-trip minimum back: a valid change that changes nothing.
       const fleetId = await fleetOfCookie(cookie);
-      const current = fleetId ? await getTestDb().selectFrom('fleet').select('minPosttripMinutes').where('id', '=', fleetId).executeTakeFirst() : undefined;
-      return callRoute(patchFleet, makeRequest('/api/admin/fleet', { method: 'PATCH', cookie, json: { minPosttripMinutes: current?.minPosttripMinutes ?? 5 } }));
+      const current = fleetId
+        ? await getTestDb()
+            .selectFrom('fleet')
+            .select('minPosttripMinutes')
+            .where('id', '=', fleetId)
+            .executeTakeFirst()
+        : undefined;
+      return callRoute(
+        patchFleet,
+        makeRequest('/api/admin/fleet', {
+          method: 'PATCH',
+          cookie,
+          json: { minPosttripMinutes: current?.minPosttripMinutes ?? 5 },
+        }),
+      );
     },
   },
 ];

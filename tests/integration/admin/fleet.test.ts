@@ -12,7 +12,8 @@ beforeEach(async () => {
   ctx = await makeAdminFleet();
 });
 
-const patch = (json: unknown, cookie = ctx.adminCookie) => callRoute(patchFleet, makeRequest('/api/admin/fleet', { method: 'PATCH', cookie, json }));
+const patch = (json: unknown, cookie = ctx.adminCookie) =>
+  callRoute(patchFleet, makeRequest('/api/admin/fleet', { method: 'PATCH', cookie, json }));
 
 describe('fleet settings', () => {
   it('reads the defaults of a new fleet', async () => {
@@ -38,7 +39,12 @@ describe('fleet settings', () => {
       supervisorEmail: '',
     });
     expect(res.status).toBe(200);
-    expect((await res.json()).fleet).toMatchObject({ minPretripMinutes: 20, ruleProfile: 'ca-nsc13', maintenanceEmail: 'shop@test.example', supervisorEmail: null });
+    expect((await res.json()).fleet).toMatchObject({
+      minPretripMinutes: 20,
+      ruleProfile: 'ca-nsc13',
+      maintenanceEmail: 'shop@test.example',
+      supervisorEmail: null,
+    });
     const [row, ...more] = await auditRows(ctx.fleet.id);
     expect(more).toEqual([]);
     expect(row).toMatchObject({
@@ -48,7 +54,10 @@ describe('fleet settings', () => {
       detail: {
         changes: {
           minPretripMinutes: { from: 15, to: 20 },
-          tirePressureTargets: { from: { steer: 110, drive: 100, trailer: 100 }, to: { steer: 115, drive: 100, trailer: 95 } },
+          tirePressureTargets: {
+            from: { steer: 110, drive: 100, trailer: 100 },
+            to: { steer: 115, drive: 100, trailer: 95 },
+          },
           ruleProfile: { from: 'us-federal', to: 'ca-nsc13' },
           maintenanceEmail: { from: null, to: 'shop@test.example' },
         },
@@ -57,7 +66,13 @@ describe('fleet settings', () => {
   });
 
   it('explains out-of-range values beside each field (422) and keeps the old ones', async () => {
-    const res = await patch({ minPretripMinutes: 300, minPosttripMinutes: -1, tirePressureTargets: { steer: 20, drive: 100.5, trailer: 200 }, ruleProfile: 'mars', maintenanceEmail: 'shop' });
+    const res = await patch({
+      minPretripMinutes: 300,
+      minPosttripMinutes: -1,
+      tirePressureTargets: { steer: 20, drive: 100.5, trailer: 200 },
+      ruleProfile: 'mars',
+      maintenanceEmail: 'shop',
+    });
     expect(res.status).toBe(422);
     const { fields } = (await res.json()).error;
     expect(fields).toMatchObject({
@@ -69,7 +84,11 @@ describe('fleet settings', () => {
       ruleProfile: ['Pick one of the rule profiles in the list.'],
       maintenanceEmail: expect.arrayContaining(['Enter an e-mail address like name@company.com.']),
     });
-    const row = await db.selectFrom('fleet').select(['minPretripMinutes', 'ruleProfile']).where('id', '=', ctx.fleet.id).executeTakeFirstOrThrow();
+    const row = await db
+      .selectFrom('fleet')
+      .select(['minPretripMinutes', 'ruleProfile'])
+      .where('id', '=', ctx.fleet.id)
+      .executeTakeFirstOrThrow();
     expect(row).toEqual({ minPretripMinutes: 15, ruleProfile: 'us-federal' });
     expect(await auditRows(ctx.fleet.id)).toEqual([]);
   });
@@ -77,7 +96,11 @@ describe('fleet settings', () => {
   it("touches only the admin's own fleet", async () => {
     const other = await makeAdminFleet();
     await patch({ minPretripMinutes: 30 });
-    const theirs = await db.selectFrom('fleet').select('minPretripMinutes').where('id', '=', other.fleet.id).executeTakeFirstOrThrow();
+    const theirs = await db
+      .selectFrom('fleet')
+      .select('minPretripMinutes')
+      .where('id', '=', other.fleet.id)
+      .executeTakeFirstOrThrow();
     expect(theirs.minPretripMinutes).toBe(15);
   });
 });

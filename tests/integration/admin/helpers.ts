@@ -20,7 +20,12 @@ export async function makeAdminFleet() {
 }
 
 export const makeTractor = (fleetId: string, over: { unitNumber?: string } = {}) =>
-  makeUnit(getTestDb(), { fleetId, kind: 'tractor', unitNumber: over.unitNumber ?? `T${randomUUID().slice(0, 6).toUpperCase()}`, axles: JSON.stringify(tractorAxles) });
+  makeUnit(getTestDb(), {
+    fleetId,
+    kind: 'tractor',
+    unitNumber: over.unitNumber ?? `T${randomUUID().slice(0, 6).toUpperCase()}`,
+    axles: JSON.stringify(tractorAxles),
+  });
 
 export const tractorAxles = [
   { position: 'steer', tires: ['LF', 'RF'], coldPsi: 110, chamber: '24' },
@@ -35,7 +40,10 @@ export const trailerAxles = [
 
 /** A VIN with a correct check digit in position 9, built from 16 other characters. */
 export function makeVin(seed = randomUUID().replace(/-/g, '').toUpperCase()): string {
-  const chars = seed.replace(/[^A-HJ-NPR-Z0-9]/g, '').padEnd(16, '7').slice(0, 16);
+  const chars = seed
+    .replace(/[^A-HJ-NPR-Z0-9]/g, '')
+    .padEnd(16, '7')
+    .slice(0, 16);
   const draft = `${chars.slice(0, 8)}0${chars.slice(8)}`;
   return `${draft.slice(0, 8)}${computeVinCheckDigit(draft)}${draft.slice(9)}`;
 }
@@ -61,5 +69,10 @@ export async function waitForMailTo(to: string, ms = 5000): Promise<CaughtMessag
 }
 
 export async function auditRows(entityId: string) {
-  return getTestDb().selectFrom('auditLog').select(['action', 'entity', 'entityId', 'actorId', 'fleetId', 'detail']).where('entityId', '=', entityId).orderBy('id').execute();
+  return getTestDb()
+    .selectFrom('auditLog')
+    .select(['action', 'entity', 'entityId', 'actorId', 'fleetId', 'detail'])
+    .where('entityId', '=', entityId)
+    .orderBy('id')
+    .execute();
 }

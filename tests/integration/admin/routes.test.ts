@@ -25,6 +25,8 @@ describe.each(adminRouteCases)('$method $path ($name)', (route) => {
   it('answers 2xx to an admin', async () => {
     const res = await route.call(ctx.adminCookie);
     const body = await res.json();
-    expect(res.status, JSON.stringify(body)).toBe(route.method === 'POST' && !route.path.endsWith('/retire') ? 201 : 200);
+    expect(res.status, JSON.stringify(body)).toBe(
+      route.method === 'POST' && !route.path.endsWith('/retire') ? 201 : 200,
+    );
   });
 });

@@ -16,9 +16,18 @@ beforeEach(async () => {
   ctx = await makeAdminFleet();
 });
 
-const create = (json: unknown) => callRoute(createUnit, makeRequest('/api/admin/units', { method: 'POST', cookie: ctx.adminCookie, json }));
-const patch = (id: string, json: unknown) => callRoute(patchUnit, makeRequest(`/api/admin/units/${id}`, { method: 'PATCH', cookie: ctx.adminCookie, json }), { id });
-const retire = (id: string, json: unknown = {}) => callRoute(retireRoute, makeRequest(`/api/admin/units/${id}/retire`, { method: 'POST', cookie: ctx.adminCookie, json }), { id });
+const create = (json: unknown) =>
+  callRoute(createUnit, makeRequest('/api/admin/units', { method: 'POST', cookie: ctx.adminCookie, json }));
+const patch = (id: string, json: unknown) =>
+  callRoute(patchUnit, makeRequest(`/api/admin/units/${id}`, { method: 'PATCH', cookie: ctx.adminCookie, json }), {
+    id,
+  });
+const retire = (id: string, json: unknown = {}) =>
+  callRoute(
+    retireRoute,
+    makeRequest(`/api/admin/units/${id}/retire`, { method: 'POST', cookie: ctx.adminCookie, json }),
+    { id },
+  );
 
 const trailer = (over: Record<string, unknown> = {}) => ({
   kind: 'trailer',
@@ -51,12 +60,30 @@ describe('adding a unit', () => {
     const res = await create(trailer({ vin: `${vin.slice(0, 8).toLowerCase()} ${vin.slice(8)}` }));
     expect(res.status).toBe(201);
     const { unit } = await res.json();
-    expect(unit).toMatchObject({ kind: 'trailer', unitNumber: '5390', plate: 'TRL 1200', plateJurisdiction: 'ON', vin, year: 2021, status: 'in_service', retiredAt: null });
+    expect(unit).toMatchObject({
+      kind: 'trailer',
+      unitNumber: '5390',
+      plate: 'TRL 1200',
+      plateJurisdiction: 'ON',
+      vin,
+      year: 2021,
+      status: 'in_service',
+      retiredAt: null,
+    });
     expect(unit.axles).toEqual(trailerAxles);
-    const stored = await db.selectFrom('unit').select(['fleetId', 'axles']).where('id', '=', unit.id).executeTakeFirstOrThrow();
+    const stored = await db
+      .selectFrom('unit')
+      .select(['fleetId', 'axles'])
+      .where('id', '=', unit.id)
+      .executeTakeFirstOrThrow();
     expect(stored).toEqual({ fleetId: ctx.fleet.id, axles: trailerAxles });
     expect(await auditRows(unit.id)).toEqual([
-      expect.objectContaining({ action: 'unit.created', entity: 'unit', actorId: ctx.admin.id, detail: { kind: 'trailer', unitNumber: '5390', vin, axles: 2 } }),
+      expect.objectContaining({
+        action: 'unit.created',
+        entity: 'unit',
+        actorId: ctx.admin.id,
+        detail: { kind: 'trailer', unitNumber: '5390', vin, axles: 2 },
+      }),
     ]);
   });
 
@@ -64,7 +91,9 @@ describe('adding a unit', () => {
     const res = await create(trailer({ vin: 'IOQ45678901234567' }));
     expect(res.status).toBe(422);
     const { error } = await res.json();
-    expect(error.fields.vin).toEqual(['A VIN never uses the letters I, O or Q (they read like 1 and 0). Check those characters.']);
+    expect(error.fields.vin).toEqual([
+      'A VIN never uses the letters I, O or Q (they read like 1 and 0). Check those characters.',
+    ]);
     const res2 = await create(trailer({ vin: '1M8GDM9A1KP042788' }));
     expect((await res2.json()).error.fields.vin[0]).toMatch(/check digit/);
   });
@@ -89,32 +118,47 @@ describe('adding a unit', () => {
     expect(res.status).toBe(422);
     expect((await res.json()).error.fields['axles.0.position']).toEqual(['A trailer has trailer axles only.']);
 
-    const res2 = await create({ ...trailer(), kind: 'tractor', axles: [{ position: 'drive', tires: ['A', 'B'], coldPsi: 200, chamber: '31' }] });
+    const res2 = await create({
+      ...trailer(),
+      kind: 'tractor',
+      axles: [{ position: 'drive', tires: ['A', 'B'], coldPsi: 200, chamber: '31' }],
+    });
     const fields = (await res2.json()).error.fields;
     expect(fields['axles.0.coldPsi']).toEqual(['A cold-inflation target is at most 150 psi.']);
     expect(fields['axles.0.chamber'][0]).toMatch(/brake chamber type/);
 
     const res3 = await create({ ...trailer(), kind: 'tractor', axles: [tractorAxles[1], tractorAxles[0]] });
-    expect((await res3.json()).error.fields['axles.0.position']).toEqual(['The first axle of a tractor is its steer axle.']);
+    expect((await res3.json()).error.fields['axles.0.position']).toEqual([
+      'The first axle of a tractor is its steer axle.',
+    ]);
   });
 
   it('wants a jurisdiction with a plate', async () => {
     const res = await create(trailer({ plateJurisdiction: '' }));
     expect(res.status).toBe(422);
-    expect((await res.json()).error.fields.plateJurisdiction).toEqual(['Pick the state or province that issued this plate.']);
+    expect((await res.json()).error.fields.plateJurisdiction).toEqual([
+      'Pick the state or province that issued this plate.',
+    ]);
   });
 });
 
 describe('editing and retiring a unit', () => {
   it('edits fields and records what changed', async () => {
     const t = await makeTractor(ctx.fleet.id, { unitNumber: '301' });
-    const res = await patch(t.id, { make: 'Ardent', year: 2020, axles: [{ ...tractorAxles[0], coldPsi: 115 }, tractorAxles[1]] });
+    const res = await patch(t.id, {
+      make: 'Ardent',
+      year: 2020,
+      axles: [{ ...tractorAxles[0], coldPsi: 115 }, tractorAxles[1]],
+    });
     expect(res.status).toBe(200);
     const { unit } = await res.json();
     expect(unit).toMatchObject({ make: 'Ardent', year: 2020 });
     expect(unit.axles).toHaveLength(2);
     const [row] = await auditRows(t.id);
-    expect(row).toMatchObject({ action: 'unit.updated', detail: { unitNumber: '301', changes: { make: { from: null, to: 'Ardent' }, year: { from: null, to: 2020 } } } });
+    expect(row).toMatchObject({
+      action: 'unit.updated',
+      detail: { unitNumber: '301', changes: { make: { from: null, to: 'Ardent' }, year: { from: null, to: 2020 } } },
+    });
     expect(Object.keys((row!.detail as { changes: object }).changes).sort()).toEqual(['axles', 'make', 'year']);
   });
 
@@ -132,7 +176,9 @@ describe('editing and retiring a unit', () => {
     const res = await retire(t.id, { reason: 'sold at auction' });
     expect(res.status).toBe(200);
     expect((await res.json()).unit.retiredAt).toEqual(expect.any(String));
-    expect((await auditRows(t.id)).map((r) => [r.action, r.detail])).toEqual([['unit.retired', { unitNumber: '304', kind: 'tractor', reason: 'sold at auction' }]]);
+    expect((await auditRows(t.id)).map((r) => [r.action, r.detail])).toEqual([
+      ['unit.retired', { unitNumber: '304', kind: 'tractor', reason: 'sold at auction' }],
+    ]);
 
     expect(await findUsableUnit(db, { fleetId: ctx.fleet.id, id: t.id })).toBeUndefined();
     expect((await listUsableUnits(db, { fleetId: ctx.fleet.id })).map((u) => u.id)).not.toContain(t.id);
@@ -151,7 +197,10 @@ describe('editing and retiring a unit', () => {
     const b = await makeTractor(ctx.fleet.id, { unitNumber: '311' });
     await retire(b.id);
     const list = async (q: string) =>
-      ((await (await callRoute(listUnits, makeRequest(`/api/admin/units${q}`, { cookie: ctx.adminCookie }))).json()).units as { id: string }[]).map((u) => u.id);
+      (
+        (await (await callRoute(listUnits, makeRequest(`/api/admin/units${q}`, { cookie: ctx.adminCookie }))).json())
+          .units as { id: string }[]
+      ).map((u) => u.id);
     expect(await list('')).toEqual([a.id, b.id]);
     expect(await list('?retired=exclude')).toEqual([a.id]);
     expect(await list('?retired=only&kind=tractor')).toEqual([b.id]);
@@ -163,10 +212,20 @@ describe('another fleet', () => {
   it("gets 404 for another fleet's unit by id, and changes nothing", async () => {
     const other = await makeAdminFleet();
     const theirs = await makeTractor(other.fleet.id, { unitNumber: '999' });
-    expect((await callRoute(getUnit, makeRequest(`/api/admin/units/${theirs.id}`, { cookie: ctx.adminCookie }), { id: theirs.id })).status).toBe(404);
+    expect(
+      (
+        await callRoute(getUnit, makeRequest(`/api/admin/units/${theirs.id}`, { cookie: ctx.adminCookie }), {
+          id: theirs.id,
+        })
+      ).status,
+    ).toBe(404);
     expect((await patch(theirs.id, { make: 'Hijacked' })).status).toBe(404);
     expect((await retire(theirs.id)).status).toBe(404);
-    const row = await db.selectFrom('unit').select(['make', 'retiredAt']).where('id', '=', theirs.id).executeTakeFirstOrThrow();
+    const row = await db
+      .selectFrom('unit')
+      .select(['make', 'retiredAt'])
+      .where('id', '=', theirs.id)
+      .executeTakeFirstOrThrow();
     expect(row).toEqual({ make: null, retiredAt: null });
     expect(await auditRows(theirs.id)).toEqual([]);
     expect(await findUsableUnit(db, { fleetId: ctx.fleet.id, id: theirs.id })).toBeUndefined();

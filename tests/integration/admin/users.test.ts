@@ -17,17 +17,29 @@ beforeEach(async () => {
   ctx = await makeAdminFleet();
 });
 
-const invite = (json: unknown, cookie = ctx.adminCookie) => callRoute(inviteUser, makeRequest('/api/admin/users', { method: 'POST', cookie, json }));
+const invite = (json: unknown, cookie = ctx.adminCookie) =>
+  callRoute(inviteUser, makeRequest('/api/admin/users', { method: 'POST', cookie, json }));
 const patch = (id: string, json: unknown, cookie = ctx.adminCookie) =>
   callRoute(patchUser, makeRequest(`/api/admin/users/${id}`, { method: 'PATCH', cookie, json }), { id });
 
 describe('inviting a user', () => {
   it('creates the account, mails a temporary password that then signs in, and audits it', async () => {
     const email = `new-${randomUUID().slice(0, 8)}@test.example`;
-    const res = await invite({ name: '  Rosa Kettering ', email: email.toUpperCase(), roles: ['mechanic', 'driver', 'driver'] });
+    const res = await invite({
+      name: '  Rosa Kettering ',
+      email: email.toUpperCase(),
+      roles: ['mechanic', 'driver', 'driver'],
+    });
     expect(res.status).toBe(201);
     const { user } = await res.json();
-    expect(user).toMatchObject({ name: 'Rosa Kettering', email, roles: ['driver', 'mechanic'], active: true, mustChangePassword: true, lastSignInAt: null });
+    expect(user).toMatchObject({
+      name: 'Rosa Kettering',
+      email,
+      roles: ['driver', 'mechanic'],
+      active: true,
+      mustChangePassword: true,
+      lastSignInAt: null,
+    });
 
     const mail = await waitForMailTo(email);
     expect(mail, 'the invitation reached the catcher').not.toBeNull();
@@ -37,7 +49,11 @@ describe('inviting a user', () => {
     expect(mail!.html).toContain(password);
     expect(mail!.text).toContain('/sign-in');
 
-    const row = await db.selectFrom('appUser').select(['passwordHash', 'mustChangePassword', 'fleetId']).where('id', '=', user.id).executeTakeFirstOrThrow();
+    const row = await db
+      .selectFrom('appUser')
+      .select(['passwordHash', 'mustChangePassword', 'fleetId'])
+      .where('id', '=', user.id)
+      .executeTakeFirstOrThrow();
     expect(row.fleetId).toBe(ctx.fleet.id);
     expect(row.mustChangePassword).toBe(true);
     expect(await bcrypt.compare(password!, row.passwordHash)).toBe(true);
@@ -45,7 +61,13 @@ describe('inviting a user', () => {
 
     const audit = await auditRows(user.id);
     expect(audit).toEqual([
-      expect.objectContaining({ action: 'user.invited', entity: 'app_user', actorId: ctx.admin.id, fleetId: ctx.fleet.id, detail: { email, name: 'Rosa Kettering', roles: ['driver', 'mechanic'] } }),
+      expect.objectContaining({
+        action: 'user.invited',
+        entity: 'app_user',
+        actorId: ctx.admin.id,
+        fleetId: ctx.fleet.id,
+        detail: { email, name: 'Rosa Kettering', roles: ['driver', 'mechanic'] },
+      }),
     ]);
     expect(JSON.stringify(audit)).not.toContain(password);
   });
@@ -81,12 +103,18 @@ describe('changing a user', () => {
   it('changes roles and deactivates, one audit row per change, and never deletes', async () => {
     const res = await patch(ctx.driver.id, { roles: ['driver', 'supervisor'], active: false, name: 'Driver Renamed' });
     expect(res.status).toBe(200);
-    expect((await res.json()).user).toMatchObject({ roles: ['driver', 'supervisor'], active: false, name: 'Driver Renamed' });
+    expect((await res.json()).user).toMatchObject({
+      roles: ['driver', 'supervisor'],
+      active: false,
+      name: 'Driver Renamed',
+    });
     const actions = (await auditRows(ctx.driver.id)).map((r) => r.action);
     expect(actions).toEqual(['user.renamed', 'user.roles_changed', 'user.deactivated']);
 
     // The row is still there, and the deactivated user's session no longer opens the API.
-    expect(await db.selectFrom('appUser').select('active').where('id', '=', ctx.driver.id).executeTakeFirstOrThrow()).toEqual({ active: false });
+    expect(
+      await db.selectFrom('appUser').select('active').where('id', '=', ctx.driver.id).executeTakeFirstOrThrow(),
+    ).toEqual({ active: false });
     const stale = await sessionCookieFor({ ...ctx.driver, roles: ['driver', 'supervisor'] });
     expect((await callRoute(listUnits, makeRequest('/api/admin/units', { cookie: stale }))).status).toBe(401);
 
@@ -111,7 +139,11 @@ describe('changing a user', () => {
     // Adding a role to yourself is fine.
     const res3 = await patch(ctx.admin.id, { roles: ['admin', 'supervisor'] });
     expect(res3.status).toBe(200);
-    const row = await db.selectFrom('appUser').select(['active', 'roles']).where('id', '=', ctx.admin.id).executeTakeFirstOrThrow();
+    const row = await db
+      .selectFrom('appUser')
+      .select(['active', 'roles'])
+      .where('id', '=', ctx.admin.id)
+      .executeTakeFirstOrThrow();
     expect(row).toEqual({ active: true, roles: ['supervisor', 'admin'] });
   });
 
@@ -134,12 +166,18 @@ describe('another fleet', () => {
   it("gets 404 for another fleet's user by id, and changes nothing", async () => {
     const other = await makeAdminFleet();
     const victim = await makeUser(db, { fleetId: other.fleet.id, roles: ['driver'], name: 'Other Fleet Driver' });
-    const read = await callRoute(getUser, makeRequest(`/api/admin/users/${victim.id}`, { cookie: ctx.adminCookie }), { id: victim.id });
+    const read = await callRoute(getUser, makeRequest(`/api/admin/users/${victim.id}`, { cookie: ctx.adminCookie }), {
+      id: victim.id,
+    });
     expect(read.status).toBe(404);
     const res = await patch(victim.id, { active: false, roles: ['admin'] });
     expect(res.status).toBe(404);
     expect((await res.json()).error.message).not.toContain(victim.name);
-    const row = await db.selectFrom('appUser').select(['active', 'roles', 'fleetId']).where('id', '=', victim.id).executeTakeFirstOrThrow();
+    const row = await db
+      .selectFrom('appUser')
+      .select(['active', 'roles', 'fleetId'])
+      .where('id', '=', victim.id)
+      .executeTakeFirstOrThrow();
     expect(row).toEqual({ active: true, roles: ['driver'], fleetId: other.fleet.id });
     expect(await auditRows(victim.id)).toEqual([]);
   });

@@ -37,12 +37,19 @@ async function dropScratch() {
 }
 
 const tsx = (script: string, args: string[]) =>
-  spawnSync(process.execPath, [path.join(root, 'node_modules/tsx/dist/cli.mjs'), path.join(root, script), ...args], { cwd: root, env: { ...process.env, DATABASE_URL: url }, encoding: 'utf8', timeout: 120_000 });
+  spawnSync(process.execPath, [path.join(root, 'node_modules/tsx/dist/cli.mjs'), path.join(root, script), ...args], {
+    cwd: root,
+    env: { ...process.env, DATABASE_URL: url },
+    encoding: 'utf8',
+    timeout: 120_000,
+  });
 
 async function fleetRows(d: DB, fleetId: string) {
   const out: Record<string, number> = {};
   for (const t of ['inspection', 'inspection_step', 'defect', 'attachment', 'app_user', 'unit', 'audit_log']) {
-    const r = await sql<{ n: number }>`select count(*)::int as n from ${sql.table(t)} where fleet_id = ${fleetId}`.execute(d);
+    const r = await sql<{
+      n: number;
+    }>`select count(*)::int as n from ${sql.table(t)} where fleet_id = ${fleetId}`.execute(d);
     out[t] = r.rows[0]!.n;
   }
   return out;
@@ -52,7 +59,13 @@ async function hashHolds(d: DB, id: string) {
   const h = await d.selectFrom('inspection').selectAll().where('id', '=', id).executeTakeFirstOrThrow();
   const steps = await d.selectFrom('inspectionStep').selectAll().where('inspectionId', '=', id).execute();
   const text = serializeReport({
-    ...pickReportHeader({ ...h, finishedAt: h.finishedAt!, certificationText: h.certificationText!, signatureName: h.signatureName!, signedAt: h.signedAt! }),
+    ...pickReportHeader({
+      ...h,
+      finishedAt: h.finishedAt!,
+      certificationText: h.certificationText!,
+      signatureName: h.signatureName!,
+      signedAt: h.signedAt!,
+    }),
     steps: toCanonicalSteps(steps),
   });
   return createHash('sha256').update(text).digest('hex') === h.contentHash;
@@ -76,7 +89,10 @@ describe('backup and restore', () => {
   it('backs up, restores into a scratch database, and the rows and hashes are the same', async () => {
     const backup = tsx('scripts/db-backup.ts', ['--out', file]);
     expect(backup.status, backup.stderr).toBe(0);
-    expect(JSON.parse(backup.stdout.trim().split('\n').pop()!)).toMatchObject({ file, database: new URL(url).pathname.slice(1) });
+    expect(JSON.parse(backup.stdout.trim().split('\n').pop()!)).toMatchObject({
+      file,
+      database: new URL(url).pathname.slice(1),
+    });
     expect(fs.statSync(file).size).toBeGreaterThan(1000);
     expect(fs.existsSync(`${file}.partial`)).toBe(false);
     // The password never appears on a command line.

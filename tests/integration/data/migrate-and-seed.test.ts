@@ -34,11 +34,27 @@ afterAll(async () => {
 });
 
 const tables = async () =>
-  (await sql<{ t: string }>`select table_name as t from information_schema.tables where table_schema = 'public' and table_name not like 'kysely_%' order by 1`.execute(db)).rows.map((r) => r.t);
+  (
+    await sql<{
+      t: string;
+    }>`select table_name as t from information_schema.tables where table_schema = 'public' and table_name not like 'kysely_%' order by 1`.execute(
+      db,
+    )
+  ).rows.map((r) => r.t);
 
 const counts = async () => {
   const out: Record<string, number> = {};
-  for (const t of ['fleet', 'app_user', 'unit', 'inspection', 'inspection_step', 'defect', 'acknowledgement', 'vocabulary_version', 'field_utterance']) {
+  for (const t of [
+    'fleet',
+    'app_user',
+    'unit',
+    'inspection',
+    'inspection_step',
+    'defect',
+    'acknowledgement',
+    'vocabulary_version',
+    'field_utterance',
+  ]) {
     const { rows } = await sql<{ n: number }>`select count(*)::int as n from ${sql.table(t)}`.execute(db);
     out[t] = rows[0]!.n;
   }
@@ -50,7 +66,22 @@ describe('migrations and seed', () => {
     expect(await tables()).toEqual([]);
     await migrateToLatest(db);
     const up = await tables();
-    expect(up).toEqual(expect.arrayContaining(['fleet', 'app_user', 'unit', 'inspection', 'inspection_step', 'defect', 'acknowledgement', 'attachment', 'audit_log', 'mail_outbox', 'vocabulary_version', 'field_utterance']));
+    expect(up).toEqual(
+      expect.arrayContaining([
+        'fleet',
+        'app_user',
+        'unit',
+        'inspection',
+        'inspection_step',
+        'defect',
+        'acknowledgement',
+        'attachment',
+        'audit_log',
+        'mail_outbox',
+        'vocabulary_version',
+        'field_utterance',
+      ]),
+    );
     await migrateToEmpty(db);
     expect(await tables()).toEqual([]);
     await migrateToLatest(db);
@@ -71,15 +102,23 @@ describe('migrations and seed', () => {
     expect(once.inspection).toBeGreaterThan(200);
     expect(once.defect).toBeGreaterThan(20);
     expect(once.acknowledgement).toBeGreaterThan(10);
-    const span = await sql<{ days: number }>`select extract(day from max(started_at) - min(started_at))::int as days from inspection`.execute(db);
+    const span = await sql<{
+      days: number;
+    }>`select extract(day from max(started_at) - min(started_at))::int as days from inspection`.execute(db);
     expect(span.rows[0]!.days).toBeGreaterThanOrEqual(59);
     // Every submitted report is signed and carries its content hash.
-    const unsigned = await sql<{ n: number }>`select count(*)::int as n from inspection where status = 'submitted' and (content_hash is null or signed_at is null)`.execute(db);
+    const unsigned = await sql<{
+      n: number;
+    }>`select count(*)::int as n from inspection where status = 'submitted' and (content_hash is null or signed_at is null)`.execute(
+      db,
+    );
     expect(unsigned.rows[0]!.n).toBe(0);
     // Out of service exactly where a major defect is open.
     const mismatch = await sql<{ n: number }>`
       select count(*)::int as n from unit u
-      where (u.status = 'out_of_service') <> exists (select 1 from defect d where d.unit_id = u.id and d.status = 'open' and d.severity = 'major')`.execute(db);
+      where (u.status = 'out_of_service') <> exists (select 1 from defect d where d.unit_id = u.id and d.status = 'open' and d.severity = 'major')`.execute(
+      db,
+    );
     expect(mismatch.rows[0]!.n).toBe(0);
   });
 });

@@ -15,7 +15,17 @@ let jpeg: Buffer;
 beforeAll(async () => {
   f = await makeFleetFixture(db, 'Upload fault fleet');
   // A photo with some detail, so that half of it is really half an image.
-  jpeg = await sharp({ create: { width: 1600, height: 1200, channels: 3, background: '#777777', noise: { type: 'gaussian', mean: 120, sigma: 40 } } }).jpeg({ quality: 85 }).toBuffer();
+  jpeg = await sharp({
+    create: {
+      width: 1600,
+      height: 1200,
+      channels: 3,
+      background: '#777777',
+      noise: { type: 'gaussian', mean: 120, sigma: 40 },
+    },
+  })
+    .jpeg({ quality: 85 })
+    .toBuffer();
 });
 afterAll(() => db.destroy());
 
@@ -35,7 +45,12 @@ function brokenUpload(inspectionId: string, photoId: string, stepId: string) {
   });
   const req = new Request(`http://127.0.0.1:3100/api/inspections/${inspectionId}/photos/${photoId}?stepId=${stepId}`, {
     method: 'PUT',
-    headers: { cookie: f.cookies.driver, origin: 'http://127.0.0.1:3100', 'content-type': 'image/jpeg', 'content-length': String(jpeg.length) },
+    headers: {
+      cookie: f.cookies.driver,
+      origin: 'http://127.0.0.1:3100',
+      'content-type': 'image/jpeg',
+      'content-length': String(jpeg.length),
+    },
     body,
     duplex: 'half',
   } as RequestInit);
@@ -43,25 +58,52 @@ function brokenUpload(inspectionId: string, photoId: string, stepId: string) {
 }
 
 const upload = (inspectionId: string, photoId: string, stepId: string, bytes: Uint8Array<ArrayBuffer>) =>
-  callRoute(photos.PUT, makeRequest(`/api/inspections/${inspectionId}/photos/${photoId}?stepId=${stepId}`, { method: 'PUT', cookie: f.cookies.driver, headers: { 'content-type': 'image/jpeg' }, body: bytes }), { id: inspectionId, photoId });
+  callRoute(
+    photos.PUT,
+    makeRequest(`/api/inspections/${inspectionId}/photos/${photoId}?stepId=${stepId}`, {
+      method: 'PUT',
+      cookie: f.cookies.driver,
+      headers: { 'content-type': 'image/jpeg' },
+      body: bytes,
+    }),
+    { id: inspectionId, photoId },
+  );
 
-const attachmentsOf = (inspectionId: string) => db.selectFrom('attachment').select(['id', 'stepId', 'sizeBytes']).where('inspectionId', '=', inspectionId).execute();
+const attachmentsOf = (inspectionId: string) =>
+  db.selectFrom('attachment').select(['id', 'stepId', 'sizeBytes']).where('inspectionId', '=', inspectionId).execute();
 
 describe('an upload cut off half-way', () => {
   it('is refused with a clear message, stores nothing, and the retry stores the photo once', async () => {
     const inspectionId = randomUUID();
     expect((await startWalk(f, inspectionId)).status).toBe(201);
     const stepId = randomUUID();
-    expect((await postStep(f, inspectionId, { id: stepId, seq: 1, zone: 'in_cab', kind: 'defect', termKey: 'horn:inoperative' })).status).toBe(201);
+    expect(
+      (
+        await postStep(f, inspectionId, {
+          id: stepId,
+          seq: 1,
+          zone: 'in_cab',
+          kind: 'defect',
+          termKey: 'horn:inoperative',
+        })
+      ).status,
+    ).toBe(201);
     const photoId = randomUUID();
 
     const broken = await brokenUpload(inspectionId, photoId, stepId);
     expect(broken.status).toBe(422);
-    expect((await broken.json()).error.message).toBe('The upload was cut off before it finished. Nothing was saved; send the photo again.');
+    expect((await broken.json()).error.message).toBe(
+      'The upload was cut off before it finished. Nothing was saved; send the photo again.',
+    );
     expect(await attachmentsOf(inspectionId)).toEqual([]);
 
     // Only the first half of the file arrived, as a complete request.
-    const halfFile = await upload(inspectionId, photoId, stepId, new Uint8Array(jpeg.subarray(0, Math.floor(jpeg.length / 2))));
+    const halfFile = await upload(
+      inspectionId,
+      photoId,
+      stepId,
+      new Uint8Array(jpeg.subarray(0, Math.floor(jpeg.length / 2))),
+    );
     expect(halfFile.status).toBeGreaterThanOrEqual(400);
     expect(halfFile.status).toBeLessThan(500);
     expect((await halfFile.json()).error.message).toMatch(/photo|image/i);
@@ -75,11 +117,22 @@ describe('an upload cut off half-way', () => {
     expect(stored[0]).toMatchObject({ id: photoId, stepId });
 
     // The walk finishes: one step, one photo, signed.
-    expect((await postStep(f, inspectionId, { id: randomUUID(), seq: 2, zone: 'in_cab', kind: 'zone_ok' })).status).toBe(201);
+    expect(
+      (await postStep(f, inspectionId, { id: randomUUID(), seq: 2, zone: 'in_cab', kind: 'zone_ok' })).status,
+    ).toBe(201);
     expect((await signWalk(f, inspectionId)).status).toBe(200);
-    const steps = await db.selectFrom('inspectionStep').select('seq').where('inspectionId', '=', inspectionId).orderBy('seq').execute();
+    const steps = await db
+      .selectFrom('inspectionStep')
+      .select('seq')
+      .where('inspectionId', '=', inspectionId)
+      .orderBy('seq')
+      .execute();
     expect(steps.map((s) => s.seq)).toEqual([1, 2]);
-    const report = await db.selectFrom('inspection').select('status').where('id', '=', inspectionId).executeTakeFirstOrThrow();
+    const report = await db
+      .selectFrom('inspection')
+      .select('status')
+      .where('id', '=', inspectionId)
+      .executeTakeFirstOrThrow();
     expect(report.status).toBe('submitted');
   });
 });

@@ -32,10 +32,36 @@ describe('GET /api/reports/[id]/pdf', () => {
         { unit: 'trailer', severity: 'minor', description: 'clearance lamp, inoperative' },
       ],
     });
-    await certifyRepair({ fleetId: f.fleet.id, actorId: f.mechanic.id, id: report.defects[0]!.id, body: { outcome: 'repaired', work: 'Replaced left steer tire', parts: 'steer tire 295/75R22.5', notes: '', certifiedName: 'Morgan Shop', confirm: true } });
-    await f.db.insertInto('acknowledgement').values({ fleetId: f.fleet.id, unitId: report.tractor.id, reviewedInspectionId: report.id, driverId: f.drivers[1]!.id, signatureName: 'Blake Ortiz', statement: 'I reviewed the last report and its repair certification.' }).execute();
+    await certifyRepair({
+      fleetId: f.fleet.id,
+      actorId: f.mechanic.id,
+      id: report.defects[0]!.id,
+      body: {
+        outcome: 'repaired',
+        work: 'Replaced left steer tire',
+        parts: 'steer tire 295/75R22.5',
+        notes: '',
+        certifiedName: 'Morgan Shop',
+        confirm: true,
+      },
+    });
+    await f.db
+      .insertInto('acknowledgement')
+      .values({
+        fleetId: f.fleet.id,
+        unitId: report.tractor.id,
+        reviewedInspectionId: report.id,
+        driverId: f.drivers[1]!.id,
+        signatureName: 'Blake Ortiz',
+        statement: 'I reviewed the last report and its repair certification.',
+      })
+      .execute();
 
-    const res = await callRoute(pdfRoute.GET, makeRequest(`/api/reports/${report.id}/pdf`, { cookie: f.cookies.supervisor }), { id: report.id });
+    const res = await callRoute(
+      pdfRoute.GET,
+      makeRequest(`/api/reports/${report.id}/pdf`, { cookie: f.cookies.supervisor }),
+      { id: report.id },
+    );
     expect(res.status).toBe(200);
     expect(res.headers.get('content-type')).toBe('application/pdf');
     const text = await pdfText(res);
@@ -66,7 +92,11 @@ describe('GET /api/reports/[id]/pdf', () => {
 
   it('says plainly when no defect was listed and that no review signature is needed', async () => {
     const report = await makeSignedReport(f, { tractorIndex: 1, trailerIndex: null });
-    const text = await pdfText(await callRoute(pdfRoute.GET, makeRequest(`/api/reports/${report.id}/pdf`, { cookie: f.cookies.mechanic }), { id: report.id }));
+    const text = await pdfText(
+      await callRoute(pdfRoute.GET, makeRequest(`/api/reports/${report.id}/pdf`, { cookie: f.cookies.mechanic }), {
+        id: report.id,
+      }),
+    );
     expect(text).toContain('No defect found or reported.');
     expect(text).toContain('Trailer: none (bobtail)');
     expect(text).toContain('No defect listed: no review signature needed.');
@@ -75,7 +105,11 @@ describe('GET /api/reports/[id]/pdf', () => {
   it("is 404 for another fleet's report", async () => {
     const other = await makeOfficeFleet({ name: 'Other export fleet' });
     const theirs = await makeSignedReport(other);
-    const res = await callRoute(pdfRoute.GET, makeRequest(`/api/reports/${theirs.id}/pdf`, { cookie: f.cookies.supervisor }), { id: theirs.id });
+    const res = await callRoute(
+      pdfRoute.GET,
+      makeRequest(`/api/reports/${theirs.id}/pdf`, { cookie: f.cookies.supervisor }),
+      { id: theirs.id },
+    );
     expect(res.status).toBe(404);
   });
 });
@@ -89,16 +123,16 @@ function parseCsv(text: string): string[][] {
   for (let i = 0; i < text.length; i++) {
     const c = text[i]!;
     if (quoted) {
-      if (c === '"' && text[i + 1] === '"') (cell += '"'), i++;
+      if (c === '"' && text[i + 1] === '"') ((cell += '"'), i++);
       else if (c === '"') quoted = false;
       else cell += c;
     } else if (c === '"') quoted = true;
-    else if (c === ',') row.push(cell), (cell = '');
+    else if (c === ',') (row.push(cell), (cell = ''));
     else if (c === '\r' && text[i + 1] === '\n') {
-      row.push(cell), rows.push(row), (row = []), (cell = ''), i++;
+      (row.push(cell), rows.push(row), (row = []), (cell = ''), i++);
     } else cell += c;
   }
-  if (cell || row.length) row.push(cell), rows.push(row);
+  if (cell || row.length) (row.push(cell), rows.push(row));
   return rows;
 }
 
@@ -119,22 +153,58 @@ describe('CSV export', () => {
     const g = await makeOfficeFleet({ name: 'CSV fleet' });
     const nasty = ['=cmd|" /C calc"!A0', 'Dock 7, "north", gate\nlane 2', '@risk', '-1 lane', '+east'];
     const made = [];
-    for (const [i, location] of nasty.entries()) made.push(await makeSignedReport(g, { location, startedAt: new Date(Date.now() - (i + 1) * 3600_000), defects: i === 0 ? [{ unit: 'tractor', severity: 'major', description: 'x' }] : [] }));
+    for (const [i, location] of nasty.entries())
+      made.push(
+        await makeSignedReport(g, {
+          location,
+          startedAt: new Date(Date.now() - (i + 1) * 3600_000),
+          defects: i === 0 ? [{ unit: 'tractor', severity: 'major', description: 'x' }] : [],
+        }),
+      );
     await makeSignedReport(g, { kind: 'post_trip', startedAt: new Date(Date.now() - 10 * 3600_000) });
 
-    const res = await callRoute(exportRoute.GET, makeRequest('/api/reports/export?kind=pre_trip&sort=startedAt&dir=desc', { cookie: g.cookies.supervisor }));
+    const res = await callRoute(
+      exportRoute.GET,
+      makeRequest('/api/reports/export?kind=pre_trip&sort=startedAt&dir=desc', { cookie: g.cookies.supervisor }),
+    );
     expect(res.status).toBe(200);
     expect(res.headers.get('content-type')).toBe('text/csv; charset=utf-8');
-    expect(res.headers.get('content-disposition')).toMatch(/attachment; filename="inspection-reports-\d{4}-\d{2}-\d{2}\.csv"/);
+    expect(res.headers.get('content-disposition')).toMatch(
+      /attachment; filename="inspection-reports-\d{4}-\d{2}-\d{2}\.csv"/,
+    );
     const bytes = new Uint8Array(await res.arrayBuffer());
     expect([...bytes.slice(0, 3)]).toEqual([0xef, 0xbb, 0xbf]); // a UTF-8 mark, so spreadsheets read names right
     const rows = parseCsv(new TextDecoder().decode(bytes));
     expect(rows[0]).toEqual(reportCsvColumns.map(([name]) => name));
-    expect(rows[0]).toEqual(['report_id', 'type', 'status', 'started_at', 'finished_at', 'duration_min', 'minimum_min', 'short', 'driver', 'tractor', 'trailer', 'odometer', 'location', 'major_defects', 'minor_defects', 'open_defects', 'reviewed_at']);
+    expect(rows[0]).toEqual([
+      'report_id',
+      'type',
+      'status',
+      'started_at',
+      'finished_at',
+      'duration_min',
+      'minimum_min',
+      'short',
+      'driver',
+      'tractor',
+      'trailer',
+      'odometer',
+      'location',
+      'major_defects',
+      'minor_defects',
+      'open_defects',
+      'reviewed_at',
+    ]);
     expect(rows).toHaveLength(1 + nasty.length); // the post-trip is filtered out
     const col = (name: string) => rows[0]!.indexOf(name);
     expect(rows.slice(1).map((r) => r[col('report_id')])).toEqual(made.map((m) => m.id));
-    expect(rows.slice(1).map((r) => r[col('location')])).toEqual([`'=cmd|" /C calc"!A0`, 'Dock 7, "north", gate\nlane 2', "'@risk", "'-1 lane", "'+east"]);
+    expect(rows.slice(1).map((r) => r[col('location')])).toEqual([
+      `'=cmd|" /C calc"!A0`,
+      'Dock 7, "north", gate\nlane 2',
+      "'@risk",
+      "'-1 lane",
+      "'+east",
+    ]);
     expect(rows[1]![col('major_defects')]).toBe('1');
     expect(rows[1]![col('open_defects')]).toBe('1');
     expect(rows[1]![col('type')]).toBe('pre-trip');

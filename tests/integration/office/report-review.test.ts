@@ -16,11 +16,17 @@ beforeAll(async () => {
 });
 afterAll(() => f.db.destroy());
 
-const detail = async (id: string) => (await callRoute(detailRoute.GET, makeRequest(`/api/reports/${id}`, { cookie: f.cookies.supervisor }), { id })).json();
+const detail = async (id: string) =>
+  (
+    await callRoute(detailRoute.GET, makeRequest(`/api/reports/${id}`, { cookie: f.cookies.supervisor }), { id })
+  ).json();
 
 describe('report detail', () => {
   it('shows the transcript zone by zone with time in each, the duration against the minimum and a matching hash', async () => {
-    const report = await makeSignedReport(f, { minutes: 9, defects: [{ unit: 'tractor', severity: 'major', description: 'steer tire, bulge' }] });
+    const report = await makeSignedReport(f, {
+      minutes: 9,
+      defects: [{ unit: 'tractor', severity: 'major', description: 'steer tire, bulge' }],
+    });
     const d = await detail(report.id);
     expect(d.hash.state).toBe('match');
     expect(d.hash.computed).toBe(report.hash);
@@ -28,14 +34,23 @@ describe('report detail', () => {
     expect(d.zones.map((z: { id: string }) => z.id)).toEqual(['front', 'engine_bay']);
     expect(d.zones[0].seconds).toBe(90); // three steps 30 s apart before the next zone
     const finding = d.zones[0].steps.find((s: { kind: string }) => s.kind === 'defect');
-    expect(finding).toMatchObject({ heard: 'steer tire, bulge', score: 0.91, resolution: 'auto', alternatives: ['bulge on the right steer tire'] });
+    expect(finding).toMatchObject({
+      heard: 'steer tire, bulge',
+      score: 0.91,
+      resolution: 'auto',
+      alternatives: ['bulge on the right steer tire'],
+    });
     expect(d.skippedZones.length).toBeGreaterThan(0);
     expect(d.defects[0]).toMatchObject({ severity: 'major', status: 'open' });
   });
 
   it('shows loudly when the rows no longer match the signed hash', async () => {
     const report = await makeSignedReport(f, { tractorIndex: 1 });
-    await f.db.updateTable('inspectionStep').set({ heard: 'all good (edited later)' }).where('id', '=', report.steps[1]!.id).execute();
+    await f.db
+      .updateTable('inspectionStep')
+      .set({ heard: 'all good (edited later)' })
+      .where('id', '=', report.steps[1]!.id)
+      .execute();
     const d = await detail(report.id);
     expect(d.hash.state).toBe('mismatch');
     expect(d.hash.stored).toBe(report.hash);
@@ -46,34 +61,78 @@ describe('report detail', () => {
 describe('POST /api/reports/[id]/review', () => {
   it('marks the report reviewed with the note, by whom and when, and audits it', async () => {
     const report = await makeSignedReport(f, { tractorIndex: 2 });
-    const res = await callRoute(reviewRoute.POST, makeRequest(`/api/reports/${report.id}/review`, { method: 'POST', cookie: f.cookies.supervisor, json: { note: 'Short walk; talked with the driver.' } }), { id: report.id });
+    const res = await callRoute(
+      reviewRoute.POST,
+      makeRequest(`/api/reports/${report.id}/review`, {
+        method: 'POST',
+        cookie: f.cookies.supervisor,
+        json: { note: 'Short walk; talked with the driver.' },
+      }),
+      { id: report.id },
+    );
     expect(res.status).toBe(200);
     const d = await detail(report.id);
     expect(d.review).toMatchObject({ reviewerName: 'Sam Lead', note: 'Short walk; talked with the driver.' });
     expect(d.review.reviewedAt).toBeTruthy();
-    const audit = await f.db.selectFrom('auditLog').select(['action', 'entityId']).where('fleetId', '=', f.fleet.id).where('action', '=', 'report.reviewed').execute();
+    const audit = await f.db
+      .selectFrom('auditLog')
+      .select(['action', 'entityId'])
+      .where('fleetId', '=', f.fleet.id)
+      .where('action', '=', 'report.reviewed')
+      .execute();
     expect(audit).toEqual([{ action: 'report.reviewed', entityId: report.id }]);
   });
 
   it('refuses a draft (409)', async () => {
-    const draft = await f.db.insertInto('inspection').values({ id: crypto.randomUUID(), fleetId: f.fleet.id, driverId: f.drivers[0]!.id, tractorId: f.tractors[0]!.id, kind: 'pre_trip' }).returning('id').executeTakeFirstOrThrow();
-    const res = await callRoute(reviewRoute.POST, makeRequest(`/api/reports/${draft.id}/review`, { method: 'POST', cookie: f.cookies.supervisor, json: {} }), { id: draft.id });
+    const draft = await f.db
+      .insertInto('inspection')
+      .values({
+        id: crypto.randomUUID(),
+        fleetId: f.fleet.id,
+        driverId: f.drivers[0]!.id,
+        tractorId: f.tractors[0]!.id,
+        kind: 'pre_trip',
+      })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    const res = await callRoute(
+      reviewRoute.POST,
+      makeRequest(`/api/reports/${draft.id}/review`, { method: 'POST', cookie: f.cookies.supervisor, json: {} }),
+      { id: draft.id },
+    );
     expect(res.status).toBe(409);
   });
 });
 
 describe('the shop notice and the caught-mail list', () => {
   it('mails the shop an out-of-service notice for a report with an open major defect; the admin sees it caught', async () => {
-    const report = await makeSignedReport(f, { defects: [{ unit: 'tractor', severity: 'major', description: 'air leak at the glad hands' }, { unit: 'trailer', severity: 'minor', description: 'mud flap torn' }] });
-    const res = await callRoute(notifyRoute.POST, makeRequest(`/api/reports/${report.id}/notify`, { method: 'POST', cookie: f.cookies.supervisor }), { id: report.id });
+    const report = await makeSignedReport(f, {
+      defects: [
+        { unit: 'tractor', severity: 'major', description: 'air leak at the glad hands' },
+        { unit: 'trailer', severity: 'minor', description: 'mud flap torn' },
+      ],
+    });
+    const res = await callRoute(
+      notifyRoute.POST,
+      makeRequest(`/api/reports/${report.id}/notify`, { method: 'POST', cookie: f.cookies.supervisor }),
+      { id: report.id },
+    );
     expect(res.status).toBe(200);
     expect((await res.json()).sent).toEqual([
       { unitNumber: '101', kind: 'out_of_service', sent: true },
       { unitNumber: '5001', kind: 'repair_needed', sent: true },
     ]);
     const subjects = (await caughtMailTo(f.fleet.maintenanceEmail)).map((m) => m.subject).sort();
-    expect(subjects).toEqual([`OUT OF SERVICE: unit 101 (${f.fleet.name})`, `Repair needed: unit 5001 (${f.fleet.name})`]);
-    const caught = await (await callRoute(mailRoute.GET, makeRequest(`/api/mail?to=${encodeURIComponent(f.fleet.maintenanceEmail)}`, { cookie: f.cookies.admin }))).json();
+    expect(subjects).toEqual([
+      `OUT OF SERVICE: unit 101 (${f.fleet.name})`,
+      `Repair needed: unit 5001 (${f.fleet.name})`,
+    ]);
+    const caught = await (
+      await callRoute(
+        mailRoute.GET,
+        makeRequest(`/api/mail?to=${encodeURIComponent(f.fleet.maintenanceEmail)}`, { cookie: f.cookies.admin }),
+      )
+    ).json();
     expect(caught.configured).toBe(true);
     expect(caught.messages).toHaveLength(2);
   });
@@ -86,17 +145,30 @@ describe('supervisor board and dashboard', () => {
     expect(res.status).toBe(200);
     const board = await res.json();
     expect(board.units).toHaveLength(7);
-    const openMajor = await g.db.selectFrom('defect').select(['unitId']).where('fleetId', '=', g.fleet.id).where('status', '=', 'open').where('severity', '=', 'major').execute();
+    const openMajor = await g.db
+      .selectFrom('defect')
+      .select(['unitId'])
+      .where('fleetId', '=', g.fleet.id)
+      .where('status', '=', 'open')
+      .where('severity', '=', 'major')
+      .execute();
     for (const u of board.units) expect(u.status === 'out_of_service').toBe(openMajor.some((d) => d.unitId === u.id));
     expect(board.units.filter((u: { last: unknown }) => u.last).length).toBeGreaterThan(3);
     const reasons = new Set(board.attention.flatMap((a: { reasons: string[] }) => a.reasons));
     expect(reasons.has('short')).toBe(true);
     expect(reasons.has('no_post_trip')).toBe(true);
 
-    const dash = await (await callRoute(dashboardRoute.GET, makeRequest('/api/dashboard', { cookie: g.cookies.supervisor }))).json();
+    const dash = await (
+      await callRoute(dashboardRoute.GET, makeRequest('/api/dashboard', { cookie: g.cookies.supervisor }))
+    ).json();
     expect(dash.defectsBySystem.length).toBeGreaterThan(0);
     expect(dash.openMajorByDay.length).toBe(61);
-    expect(dash.durationBuckets.reduce((n: number, b: { preTrip: number; postTrip: number }) => n + b.preTrip + b.postTrip, 0)).toBe(g.history && !g.history.skipped ? g.history.inspections : -1);
+    expect(
+      dash.durationBuckets.reduce(
+        (n: number, b: { preTrip: number; postTrip: number }) => n + b.preTrip + b.postTrip,
+        0,
+      ),
+    ).toBe(g.history && !g.history.skipped ? g.history.inspections : -1);
     expect(dash.recognition.every((r: { share: number }) => r.share >= 0 && r.share <= 100)).toBe(true);
   });
 });

@@ -8,7 +8,18 @@ import { callRoute, makeRequest } from '../../setup/session';
 import { makeOfficeFleet, type OfficeFleet } from './office-fixtures';
 
 let f: OfficeFleet;
-let all: { id: string; kind: string; driverId: string; tractorId: string; trailerId: string | null; startedAt: Date; durationS: number | null; reviewedAt: Date | null; defects: number; majors: number }[];
+let all: {
+  id: string;
+  kind: string;
+  driverId: string;
+  tractorId: string;
+  trailerId: string | null;
+  startedAt: Date;
+  durationS: number | null;
+  reviewedAt: Date | null;
+  defects: number;
+  majors: number;
+}[];
 
 const q = (over: Record<string, unknown> = {}): ListReportsQuery => listReportsQuerySchema.parse(over);
 
@@ -18,9 +29,25 @@ beforeAll(async () => {
   const rows = await f.db
     .selectFrom('inspection as i')
     .select((eb) => [
-      'i.id', 'i.kind', 'i.driverId', 'i.tractorId', 'i.trailerId', 'i.startedAt', 'i.durationS', 'i.reviewedAt',
-      eb.selectFrom('defect').select((e) => e.fn.countAll<number>().as('n')).whereRef('defect.inspectionId', '=', 'i.id').as('defects'),
-      eb.selectFrom('defect').select((e) => e.fn.countAll<number>().as('n')).whereRef('defect.inspectionId', '=', 'i.id').where('defect.severity', '=', 'major').as('majors'),
+      'i.id',
+      'i.kind',
+      'i.driverId',
+      'i.tractorId',
+      'i.trailerId',
+      'i.startedAt',
+      'i.durationS',
+      'i.reviewedAt',
+      eb
+        .selectFrom('defect')
+        .select((e) => e.fn.countAll<number>().as('n'))
+        .whereRef('defect.inspectionId', '=', 'i.id')
+        .as('defects'),
+      eb
+        .selectFrom('defect')
+        .select((e) => e.fn.countAll<number>().as('n'))
+        .whereRef('defect.inspectionId', '=', 'i.id')
+        .where('defect.severity', '=', 'major')
+        .as('majors'),
     ])
     .where('i.fleetId', '=', f.fleet.id)
     .execute();
@@ -45,7 +72,9 @@ describe('listReports on seeded history', () => {
       seen.push(...p.rows.map((r) => r.id));
     }
     expect(new Set(seen).size).toBe(all.length);
-    const expected = [...all].sort((a, b) => b.startedAt.getTime() - a.startedAt.getTime() || b.id.localeCompare(a.id)).map((r) => r.id);
+    const expected = [...all]
+      .sort((a, b) => b.startedAt.getTime() - a.startedAt.getTime() || b.id.localeCompare(a.id))
+      .map((r) => r.id);
     expect(seen).toEqual(expected);
   });
 
@@ -103,7 +132,10 @@ describe('listReports on seeded history', () => {
 
   it('combines filters (driver + has defects + pre-trip)', async () => {
     const driverId = f.drivers[0]!.id;
-    const r = await listReports({ fleetId: f.fleet.id, query: q({ driverId, hasDefects: 'yes', kind: 'pre_trip', pageSize: 200 }) });
+    const r = await listReports({
+      fleetId: f.fleet.id,
+      query: q({ driverId, hasDefects: 'yes', kind: 'pre_trip', pageSize: 200 }),
+    });
     expect(r.total).toBe(all.filter((x) => x.driverId === driverId && x.defects > 0 && x.kind === 'pre_trip').length);
   });
 
@@ -114,18 +146,29 @@ describe('listReports on seeded history', () => {
     const desc = await listReports({ fleetId: f.fleet.id, query: q({ sort: 'durationS', dir: 'desc', pageSize: 5 }) });
     expect(desc.rows[0]!.durationS).toBe(Math.max(...all.map((r) => r.durationS ?? 0)));
 
-    const byName = await listReports({ fleetId: f.fleet.id, query: q({ sort: 'driverName', dir: 'asc', pageSize: 200 }) });
+    const byName = await listReports({
+      fleetId: f.fleet.id,
+      query: q({ sort: 'driverName', dir: 'asc', pageSize: 200 }),
+    });
     const names = byName.rows.map((r) => r.driverName);
     expect(names).toEqual([...names].sort());
 
-    const byDefects = await listReports({ fleetId: f.fleet.id, query: q({ sort: 'defects', dir: 'desc', pageSize: 5 }) });
+    const byDefects = await listReports({
+      fleetId: f.fleet.id,
+      query: q({ sort: 'defects', dir: 'desc', pageSize: 5 }),
+    });
     expect(byDefects.rows[0]!.majorCount).toBe(Math.max(...all.map((r) => r.majors)));
   });
 });
 
 describe('GET /api/reports', () => {
   it('reads the filters from the query string', async () => {
-    const res = await callRoute(reportsRoute.GET, makeRequest(`/api/reports?pageSize=5&page=2&kind=pre_trip&sort=durationS&dir=asc`, { cookie: f.cookies.supervisor }));
+    const res = await callRoute(
+      reportsRoute.GET,
+      makeRequest(`/api/reports?pageSize=5&page=2&kind=pre_trip&sort=durationS&dir=asc`, {
+        cookie: f.cookies.supervisor,
+      }),
+    );
     expect(res.status).toBe(200);
     const body = await res.json();
     expect(body.page).toBe(2);
@@ -134,7 +177,10 @@ describe('GET /api/reports', () => {
   });
 
   it('answers a bad filter with 422 and the field', async () => {
-    const res = await callRoute(reportsRoute.GET, makeRequest(`/api/reports?sort=password&from=yesterday`, { cookie: f.cookies.supervisor }));
+    const res = await callRoute(
+      reportsRoute.GET,
+      makeRequest(`/api/reports?sort=password&from=yesterday`, { cookie: f.cookies.supervisor }),
+    );
     expect(res.status).toBe(422);
     const body = await res.json();
     expect(Object.keys(body.error.fields)).toEqual(expect.arrayContaining(['sort', 'from']));
@@ -142,7 +188,10 @@ describe('GET /api/reports', () => {
 
   it("never lists another fleet's reports, even by a filter on its unit", async () => {
     const other = await makeOfficeFleet({ history: 2, name: 'Third fleet' });
-    const res = await callRoute(reportsRoute.GET, makeRequest(`/api/reports?unitId=${other.tractors[0]!.id}`, { cookie: f.cookies.supervisor }));
+    const res = await callRoute(
+      reportsRoute.GET,
+      makeRequest(`/api/reports?unitId=${other.tractors[0]!.id}`, { cookie: f.cookies.supervisor }),
+    );
     expect((await res.json()).total).toBe(0);
   });
 });

@@ -26,12 +26,21 @@ describe('local services', () => {
     const res = await health(new Request('http://127.0.0.1/api/health'), { params: Promise.resolve({}) });
     expect(res.status).toBe(200);
     const body = await res.json();
-    expect(body).toMatchObject({ ok: true, version: expect.stringMatching(/^\d+\.\d+\.\d+/), services: { database: 'ok', mail: 'ok', storage: 'ok' } });
+    expect(body).toMatchObject({
+      ok: true,
+      version: expect.stringMatching(/^\d+\.\d+\.\d+/),
+      services: { database: 'ok', mail: 'ok', storage: 'ok' },
+    });
   });
 
   it('a mail sent by the app reaches the catcher, with text and HTML', async () => {
     const to = `shop-${randomUUID().slice(0, 8)}@test.example`;
-    await sendMail({ to: [to], subject: 'Unit 214 out of service', text: 'Steer tire bulge, major.', html: '<p>Steer tire <b>bulge</b>, major.</p>' });
+    await sendMail({
+      to: [to],
+      subject: 'Unit 214 out of service',
+      text: 'Steer tire bulge, major.',
+      html: '<p>Steer tire <b>bulge</b>, major.</p>',
+    });
     const messages = await waitForMail(to);
     expect(messages).toHaveLength(1);
     const full = await (await fetch(`${catcher()}/messages/${messages[0]!.id}`)).json();
@@ -45,7 +54,9 @@ describe('local services', () => {
     const bytes = new Uint8Array(70_000).map((_, i) => (i * 31) % 251);
     await putObject(key, bytes, 'application/octet-stream');
     const back = await getObjectBytes(key);
-    expect(createHash('sha256').update(back.bytes).digest('hex')).toBe(createHash('sha256').update(bytes).digest('hex'));
+    expect(createHash('sha256').update(back.bytes).digest('hex')).toBe(
+      createHash('sha256').update(bytes).digest('hex'),
+    );
   });
 
   it('a presigned PUT URL accepts an upload that the SDK then reads', async () => {

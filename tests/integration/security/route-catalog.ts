@@ -4,7 +4,10 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { readRouteSpec, type RouteSpec } from '@/lib/api/define-route';
 
-export type RouteFn = (req: Request, ctx: { params: Promise<Record<string, string | string[] | undefined>> }) => Promise<Response>;
+export type RouteFn = (
+  req: Request,
+  ctx: { params: Promise<Record<string, string | string[] | undefined>> },
+) => Promise<Response>;
 export type CatalogRoute = { route: string; method: string; fn: RouteFn; spec: RouteSpec; paramNames: string[] };
 
 const apiDir = path.resolve(__dirname, '../../../app/api');

@@ -24,17 +24,25 @@ afterAll(() => db.destroy());
 
 type Authorize = (c: Record<string, string>, req: { headers: Record<string, string> }) => Promise<unknown>;
 const authorize = (authOptions.providers[0] as unknown as { options: { authorize: Authorize } }).options.authorize;
-const address = () => `10.${Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250)}`;
-const tryPassword = (email: string, password: string, ip: string) => authorize({ email, password }, { headers: { 'x-forwarded-for': `203.0.113.9, ${ip}` } });
+const address = () =>
+  `10.${Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250)}`;
+const tryPassword = (email: string, password: string, ip: string) =>
+  authorize({ email, password }, { headers: { 'x-forwarded-for': `203.0.113.9, ${ip}` } });
 
 describe('sign-in throttling', () => {
   it('locks an account after repeated wrong passwords, even with the right one, from any address', async () => {
     const email = `throttle-${randomUUID().slice(0, 8)}@test.example`;
     await makeUser(db, { fleetId: f.fleet.id, roles: ['driver'], email, password: 'right-password' });
     for (let i = 0; i < signInLimits.account.max; i++) expect(await tryPassword(email, 'wrong', address())).toBeNull();
-    await expect(tryPassword(email, 'right-password', address())).rejects.toThrow(/too many failed sign-ins.*wait \d+ minutes/i);
+    await expect(tryPassword(email, 'right-password', address())).rejects.toThrow(
+      /too many failed sign-ins.*wait \d+ minutes/i,
+    );
     // The count lives in the database, so every app instance sees it.
-    const row = await db.selectFrom('signInThrottle').select('failures').where('key', '=', `account:${email}`).executeTakeFirstOrThrow();
+    const row = await db
+      .selectFrom('signInThrottle')
+      .select('failures')
+      .where('key', '=', `account:${email}`)
+      .executeTakeFirstOrThrow();
     expect(row.failures).toBe(signInLimits.account.max);
   });
 
@@ -50,7 +58,8 @@ describe('sign-in throttling', () => {
 
   it('locks an address that tries many accounts', async () => {
     const ip = address();
-    for (let i = 0; i < signInLimits.address.max; i++) await tryPassword(`nobody-${i}-${randomUUID().slice(0, 4)}@test.example`, 'guess', ip);
+    for (let i = 0; i < signInLimits.address.max; i++)
+      await tryPassword(`nobody-${i}-${randomUUID().slice(0, 4)}@test.example`, 'guess', ip);
     const email = `victim-${randomUUID().slice(0, 8)}@test.example`;
     await makeUser(db, { fleetId: f.fleet.id, roles: ['driver'], email, password: 'right-password' });
     await expect(tryPassword(email, 'right-password', ip)).rejects.toThrow(/too many failed sign-ins/i);
@@ -62,7 +71,9 @@ describe('sign-in throttling', () => {
     const email = `window-${randomUUID().slice(0, 8)}@test.example`;
     await makeUser(db, { fleetId: f.fleet.id, roles: ['driver'], email, password: 'right-password' });
     for (let i = 0; i < signInLimits.account.max; i++) await tryPassword(email, 'wrong', address());
-    await sql`update sign_in_throttle set window_started_at = now() - interval '16 minutes' where key = ${`account:${email}`}`.execute(db);
+    await sql`update sign_in_throttle set window_started_at = now() - interval '16 minutes' where key = ${`account:${email}`}`.execute(
+      db,
+    );
     expect(await tryPassword(email, 'right-password', address())).toMatchObject({ email });
   });
 });
@@ -72,7 +83,11 @@ describe('sessions', () => {
     expect(authOptions.session?.maxAge).toBe(sessionMaxAgeSeconds);
     expect(sessionMaxAgeSeconds).toBe(14 * 3600);
     const u = f.users.driver;
-    const expired = await encode({ secret: process.env.NEXTAUTH_SECRET!, maxAge: -60, token: { uid: u.id, fleetId: u.fleetId, roles: ['driver'], sub: u.id } as never });
+    const expired = await encode({
+      secret: process.env.NEXTAUTH_SECRET!,
+      maxAge: -60,
+      token: { uid: u.id, fleetId: u.fleetId, roles: ['driver'], sub: u.id } as never,
+    });
     const res = await callRoute(me.GET, makeRequest('/api/me', { cookie: `next-auth.session-token=${expired}` }));
     expect(res.status).toBe(401);
     const fresh = await callRoute(me.GET, makeRequest('/api/me', { cookie: f.cookies.driver }));
@@ -90,29 +105,64 @@ describe('sessions', () => {
 });
 
 describe('cross-site writes', () => {
-  const startBody = () => ({ id: randomUUID(), kind: 'pre_trip', tractorId: f.tractor.id, trailerId: null, odometer: 1, startedAt: new Date().toISOString() });
-  const post = (headers: Record<string, string>) => callRoute(inspections.POST, makeRequest('/api/inspections', { method: 'POST', cookie: f.cookies.driver, json: startBody(), headers }));
+  const startBody = () => ({
+    id: randomUUID(),
+    kind: 'pre_trip',
+    tractorId: f.tractor.id,
+    trailerId: null,
+    odometer: 1,
+    startedAt: new Date().toISOString(),
+  });
+  const post = (headers: Record<string, string>) =>
+    callRoute(
+      inspections.POST,
+      makeRequest('/api/inspections', { method: 'POST', cookie: f.cookies.driver, json: startBody(), headers }),
+    );
 
   it('refuses a write from another origin, with a message, and writes nothing', async () => {
-    const before = await db.selectFrom('inspection').select((eb) => eb.fn.countAll<number>().as('n')).where('fleetId', '=', f.fleet.id).executeTakeFirstOrThrow();
-    const attempts: Record<string, string>[] = [{ origin: 'https://evil.example' }, { origin: 'null' }, { 'sec-fetch-site': 'cross-site', origin: 'http://127.0.0.1:3100' }, { 'sec-fetch-site': 'same-site' }];
+    const before = await db
+      .selectFrom('inspection')
+      .select((eb) => eb.fn.countAll<number>().as('n'))
+      .where('fleetId', '=', f.fleet.id)
+      .executeTakeFirstOrThrow();
+    const attempts: Record<string, string>[] = [
+      { origin: 'https://evil.example' },
+      { origin: 'null' },
+      { 'sec-fetch-site': 'cross-site', origin: 'http://127.0.0.1:3100' },
+      { 'sec-fetch-site': 'same-site' },
+    ];
     for (const headers of attempts) {
       const res = await post(headers);
       expect(res.status, JSON.stringify(headers)).toBe(403);
       expect((await res.json()).error.message).toMatch(/another site/);
     }
-    const after = await db.selectFrom('inspection').select((eb) => eb.fn.countAll<number>().as('n')).where('fleetId', '=', f.fleet.id).executeTakeFirstOrThrow();
+    const after = await db
+      .selectFrom('inspection')
+      .select((eb) => eb.fn.countAll<number>().as('n'))
+      .where('fleetId', '=', f.fleet.id)
+      .executeTakeFirstOrThrow();
     expect(Number(after.n)).toBe(Number(before.n));
   });
 
   it('accepts a write from our own pages, and a client that is not a browser', async () => {
     expect((await post({ origin: 'http://127.0.0.1:3100', 'sec-fetch-site': 'same-origin' })).status).toBe(201);
-    const bare = new Request('http://127.0.0.1:3100/api/inspections', { method: 'POST', headers: { cookie: f.cookies.driver, 'content-type': 'application/json' }, body: JSON.stringify(startBody()) });
+    const bare = new Request('http://127.0.0.1:3100/api/inspections', {
+      method: 'POST',
+      headers: { cookie: f.cookies.driver, 'content-type': 'application/json' },
+      body: JSON.stringify(startBody()),
+    });
     expect((await callRoute(inspections.POST, bare)).status).toBe(201);
   });
 
   it('reads are not affected', async () => {
-    expect((await callRoute(me.GET, makeRequest('/api/me', { cookie: f.cookies.driver, headers: { 'sec-fetch-site': 'cross-site' } }))).status).toBe(200);
+    expect(
+      (
+        await callRoute(
+          me.GET,
+          makeRequest('/api/me', { cookie: f.cookies.driver, headers: { 'sec-fetch-site': 'cross-site' } }),
+        )
+      ).status,
+    ).toBe(200);
   });
 });
 
@@ -120,13 +170,26 @@ describe('a signed report', () => {
   it('refuses any new step with 409 and logs the attempt', async () => {
     const { id } = await makeSignedReport(db, f);
     const stepId = randomUUID();
-    const res = await postStep(f, id, { id: stepId, seq: 9, zone: 'rear', kind: 'defect', termKey: 'horn:inoperative' });
+    const res = await postStep(f, id, {
+      id: stepId,
+      seq: 9,
+      zone: 'rear',
+      kind: 'defect',
+      termKey: 'horn:inoperative',
+    });
     expect(res.status).toBe(409);
     expect((await res.json()).error.message).toMatch(/signed and locked/);
-    const logged = await db.selectFrom('auditLog').select(['action', 'actorId', 'detail']).where('entityId', '=', id).where('action', '=', 'inspection.change_refused').execute();
+    const logged = await db
+      .selectFrom('auditLog')
+      .select(['action', 'actorId', 'detail'])
+      .where('entityId', '=', id)
+      .where('action', '=', 'inspection.change_refused')
+      .execute();
     expect(logged).toHaveLength(1);
     expect(logged[0]!.actorId).toBe(f.users.driver.id);
-    expect(await db.selectFrom('inspectionStep').select('id').where('id', '=', stepId).executeTakeFirst()).toBeUndefined();
+    expect(
+      await db.selectFrom('inspectionStep').select('id').where('id', '=', stepId).executeTakeFirst(),
+    ).toBeUndefined();
   });
 
   it('checks out when untouched, and says so loudly when a row was changed behind its back', async () => {
@@ -158,6 +221,8 @@ describe('a signed report', () => {
   it("another fleet's report is not found", async () => {
     const { id } = await makeSignedReport(db, f);
     const other = await makeFleetFixture(db, 'Other security fleet');
-    await expect(checkReportIntegrity({ fleetId: other.fleet.id, inspectionId: id })).rejects.toMatchObject({ code: 'not_found' });
+    await expect(checkReportIntegrity({ fleetId: other.fleet.id, inspectionId: id })).rejects.toMatchObject({
+      code: 'not_found',
+    });
   });
 });

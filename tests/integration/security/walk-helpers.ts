@@ -11,15 +11,38 @@ import { callRoute, makeRequest } from '../../setup/session';
 const now = () => new Date().toISOString();
 
 export function startWalk(f: FleetFixture, id = randomUUID(), tractorId = f.tractor.id) {
-  return callRoute(inspections.POST, makeRequest('/api/inspections', { method: 'POST', cookie: f.cookies.driver, json: { id, kind: 'pre_trip', tractorId, trailerId: null, odometer: 1000, startedAt: now() } }));
+  return callRoute(
+    inspections.POST,
+    makeRequest('/api/inspections', {
+      method: 'POST',
+      cookie: f.cookies.driver,
+      json: { id, kind: 'pre_trip', tractorId, trailerId: null, odometer: 1000, startedAt: now() },
+    }),
+  );
 }
 
 export function postStep(f: FleetFixture, inspectionId: string, body: Record<string, unknown>) {
-  return callRoute(steps.POST, makeRequest(`/api/inspections/${inspectionId}/steps`, { method: 'POST', cookie: f.cookies.driver, json: { inputMode: 'tap', deviceAt: now(), ...body } }), { id: inspectionId });
+  return callRoute(
+    steps.POST,
+    makeRequest(`/api/inspections/${inspectionId}/steps`, {
+      method: 'POST',
+      cookie: f.cookies.driver,
+      json: { inputMode: 'tap', deviceAt: now(), ...body },
+    }),
+    { id: inspectionId },
+  );
 }
 
 export function signWalk(f: FleetFixture, inspectionId: string) {
-  return callRoute(finish.POST, makeRequest(`/api/inspections/${inspectionId}/finish`, { method: 'POST', cookie: f.cookies.driver, json: { signatureName: f.users.driver.name, certify: true, finishedAt: now() } }), { id: inspectionId });
+  return callRoute(
+    finish.POST,
+    makeRequest(`/api/inspections/${inspectionId}/finish`, {
+      method: 'POST',
+      cookie: f.cookies.driver,
+      json: { signatureName: f.users.driver.name, certify: true, finishedAt: now() },
+    }),
+    { id: inspectionId },
+  );
 }
 
 /** A signed report with a few steps (one of them a defect), on a tractor of its own. */

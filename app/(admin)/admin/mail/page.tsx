@@ -4,7 +4,10 @@ import { listCaughtMessages } from '@/lib/services/list-caught-messages';
 export const metadata = { title: 'Caught mail' };
 export const dynamic = 'force-dynamic';
 
-const when = (iso: string) => new Intl.DateTimeFormat('en-US', { dateStyle: 'medium', timeStyle: 'medium', hourCycle: 'h23' }).format(new Date(iso));
+const when = (iso: string) =>
+  new Intl.DateTimeFormat('en-US', { dateStyle: 'medium', timeStyle: 'medium', hourCycle: 'h23' }).format(
+    new Date(iso),
+  );
 
 function kindOf(subject: string) {
   if (subject.startsWith('OUT OF SERVICE')) return { label: 'OUT OF SERVICE', cls: 'bg-major text-on-major' };
@@ -21,24 +24,33 @@ export default async function CaughtMailPage({ searchParams }: { searchParams: P
   return (
     <section className="space-y-4">
       <h1 className="text-3xl font-extrabold">Caught mail</h1>
-      <p className="text-base text-muted">Messages the local mail catcher received instead of sending them out. Newest first.</p>
+      <p className="text-base text-muted">
+        Messages the local mail catcher received instead of sending them out. Newest first.
+      </p>
       <form className="flex flex-wrap items-end gap-2" method="get">
         <label className="flex flex-col text-sm font-bold">
           To address
-          <input name="to" type="email" defaultValue={to ?? ''} className="rounded-md border-2 border-edge/50 bg-panel px-2 py-1.5 text-base" />
+          <input
+            name="to"
+            type="email"
+            defaultValue={to ?? ''}
+            className="rounded-md border-2 border-edge/50 bg-panel px-2 py-1.5 text-base"
+          />
         </label>
         <button type="submit" className="rounded-lg border-slab border-edge bg-panel px-4 py-1.5 font-bold">
           Filter
         </button>
       </form>
       {!configured ? (
-        <p className="rounded-lg border-slab border-edge bg-panel p-4">No mail catcher is configured: mail goes to the real provider, and its inbox is not read here.</p>
+        <p className="rounded-lg border-slab border-edge bg-panel p-4">
+          No mail catcher is configured: mail goes to the real provider, and its inbox is not read here.
+        </p>
       ) : messages.length === 0 ? (
         <p className="rounded-lg border-slab border-edge bg-panel p-4">No message caught{to ? ` for ${to}` : ''}.</p>
       ) : (
         <div className="overflow-x-auto rounded-lg border-slab border-edge bg-panel">
           <table className="w-full min-w-[760px] text-base">
-            <thead className="text-left text-sm uppercase tracking-wide text-muted">
+            <thead className="text-left text-sm tracking-wide text-muted uppercase">
               <tr>
                 <th className="px-3 py-2">Received</th>
                 <th className="px-3 py-2">Kind</th>
@@ -51,9 +63,11 @@ export default async function CaughtMailPage({ searchParams }: { searchParams: P
                 const k = kindOf(m.subject);
                 return (
                   <tr key={m.id} className="border-t border-edge/15 align-top" data-testid="caught-mail">
-                    <td className="whitespace-nowrap px-3 py-2 tabular-nums">{when(m.receivedAt)}</td>
+                    <td className="px-3 py-2 whitespace-nowrap tabular-nums">{when(m.receivedAt)}</td>
                     <td className="px-3 py-2">
-                      <span className={`inline-block whitespace-nowrap rounded px-2 text-sm font-extrabold ${k.cls}`}>{k.label}</span>
+                      <span className={`inline-block rounded px-2 text-sm font-extrabold whitespace-nowrap ${k.cls}`}>
+                        {k.label}
+                      </span>
                     </td>
                     <td className="px-3 py-2 font-bold">{m.subject}</td>
                     <td className="px-3 py-2 text-sm">{m.to.join(', ')}</td>

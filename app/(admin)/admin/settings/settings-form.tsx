@@ -6,7 +6,13 @@ import { useHydrated } from '@/components/ui/use-hydrated';
 import { fieldsOfZod, firstError, numberOrNull, readFailure, type FieldErrors } from '@/components/admin/form-errors';
 import { inputClass, officeButtonClass, panelClass } from '@/components/admin/office-controls';
 import { useUpdateFleetSettingsMutation } from '@/lib/queries/admin';
-import { ruleProfileLabel, ruleProfiles, updateFleetSettingsBodySchema, type FleetSettings, type RuleProfile } from '@/lib/schemas/fleet';
+import {
+  ruleProfileLabel,
+  ruleProfiles,
+  updateFleetSettingsBodySchema,
+  type FleetSettings,
+  type RuleProfile,
+} from '@/lib/schemas/fleet';
 
 const timeFormat = new Intl.DateTimeFormat('en-US', { hour: 'numeric', minute: '2-digit' });
 
@@ -71,19 +77,37 @@ export function SettingsForm({ fleet }: { fleet: FleetSettings }) {
           Minimum inspection time
         </h2>
         <p className="text-base text-muted">
-          A walk-around finished faster than this is flagged as short on the report and for the supervisor. No regulation sets a number; 15 minutes for a pre-trip is common practice.
+          A walk-around finished faster than this is flagged as short on the report and for the supervisor. No
+          regulation sets a number; 15 minutes for a pre-trip is common practice.
         </p>
-        <Field id="min-pretrip" label="Pre-trip" error={err('minPretripMinutes')} hint="0 to 240 minutes; 0 turns the check off.">
+        <Field
+          id="min-pretrip"
+          label="Pre-trip"
+          error={err('minPretripMinutes')}
+          hint="0 to 240 minutes; 0 turns the check off."
+        >
           {(c) => (
             <Suffixed suffix="minutes">
-              <input {...c} className={inputClass} inputMode="numeric" value={pre} onChange={(e) => setPre(e.target.value)} />
+              <input
+                {...c}
+                className={inputClass}
+                inputMode="numeric"
+                value={pre}
+                onChange={(e) => setPre(e.target.value)}
+              />
             </Suffixed>
           )}
         </Field>
         <Field id="min-posttrip" label="Post-trip" error={err('minPosttripMinutes')} hint="0 to 240 minutes.">
           {(c) => (
             <Suffixed suffix="minutes">
-              <input {...c} className={inputClass} inputMode="numeric" value={post} onChange={(e) => setPost(e.target.value)} />
+              <input
+                {...c}
+                className={inputClass}
+                inputMode="numeric"
+                value={post}
+                onChange={(e) => setPost(e.target.value)}
+              />
             </Suffixed>
           )}
         </Field>
@@ -93,26 +117,46 @@ export function SettingsForm({ fleet }: { fleet: FleetSettings }) {
         <h2 id="tires-heading" className="text-xl font-extrabold">
           Default cold-inflation targets
         </h2>
-        <p className="text-base text-muted">The starting target for each axle of a new unit. A unit&apos;s own axle targets win over these.</p>
+        <p className="text-base text-muted">
+          The starting target for each axle of a new unit. A unit&apos;s own axle targets win over these.
+        </p>
         <div className="grid gap-4 sm:grid-cols-3">
           <Field id="psi-steer" label="Steer" error={err('tirePressureTargets.steer')}>
             {(c) => (
               <Suffixed suffix="psi">
-                <input {...c} className={inputClass} inputMode="numeric" value={steer} onChange={(e) => setSteer(e.target.value)} />
+                <input
+                  {...c}
+                  className={inputClass}
+                  inputMode="numeric"
+                  value={steer}
+                  onChange={(e) => setSteer(e.target.value)}
+                />
               </Suffixed>
             )}
           </Field>
           <Field id="psi-drive" label="Drive" error={err('tirePressureTargets.drive')}>
             {(c) => (
               <Suffixed suffix="psi">
-                <input {...c} className={inputClass} inputMode="numeric" value={drive} onChange={(e) => setDrive(e.target.value)} />
+                <input
+                  {...c}
+                  className={inputClass}
+                  inputMode="numeric"
+                  value={drive}
+                  onChange={(e) => setDrive(e.target.value)}
+                />
               </Suffixed>
             )}
           </Field>
           <Field id="psi-trailer" label="Trailer" error={err('tirePressureTargets.trailer')}>
             {(c) => (
               <Suffixed suffix="psi">
-                <input {...c} className={inputClass} inputMode="numeric" value={trailer} onChange={(e) => setTrailer(e.target.value)} />
+                <input
+                  {...c}
+                  className={inputClass}
+                  inputMode="numeric"
+                  value={trailer}
+                  onChange={(e) => setTrailer(e.target.value)}
+                />
               </Suffixed>
             )}
           </Field>
@@ -123,12 +167,24 @@ export function SettingsForm({ fleet }: { fleet: FleetSettings }) {
         <h2 id="profile-heading" className="text-xl font-extrabold">
           Rule profile
         </h2>
-        <p className="text-base text-muted">The published limits measurements are judged against, and which defects put a unit out of service.</p>
+        <p className="text-base text-muted">
+          The published limits measurements are judged against, and which defects put a unit out of service.
+        </p>
         <fieldset className="flex flex-col gap-2" aria-describedby={err('ruleProfile') ? 'profile-error' : undefined}>
           <legend className="sr-only">Rule profile</legend>
           {ruleProfiles.map((p) => (
-            <label key={p} className={`flex min-h-12 cursor-pointer items-center gap-3 rounded-md border-slab px-3 py-2 text-lg ${profile === p ? 'border-edge bg-ground font-bold' : 'border-edge/30'}`}>
-              <input type="radio" name="rule-profile" value={p} checked={profile === p} onChange={() => setProfile(p)} className="size-5 accent-[rgb(var(--ink))]" />
+            <label
+              key={p}
+              className={`flex min-h-12 cursor-pointer items-center gap-3 rounded-md border-slab px-3 py-2 text-lg ${profile === p ? 'border-edge bg-ground font-bold' : 'border-edge/30'}`}
+            >
+              <input
+                type="radio"
+                name="rule-profile"
+                value={p}
+                checked={profile === p}
+                onChange={() => setProfile(p)}
+                className="size-5 accent-[rgb(var(--ink))]"
+              />
               {ruleProfileLabel[p]}
             </label>
           ))}
@@ -144,12 +200,32 @@ export function SettingsForm({ fleet }: { fleet: FleetSettings }) {
         <h2 id="mail-heading" className="text-xl font-extrabold">
           Where alerts go
         </h2>
-        <p className="text-base text-muted">A major defect e-mails both addresses. Leave one empty to send nothing there.</p>
+        <p className="text-base text-muted">
+          A major defect e-mails both addresses. Leave one empty to send nothing there.
+        </p>
         <Field id="maintenance-email" label="Maintenance e-mail" error={err('maintenanceEmail')}>
-          {(c) => <input {...c} type="email" inputMode="email" className={inputClass} value={maintenanceEmail} onChange={(e) => setMaintenanceEmail(e.target.value)} />}
+          {(c) => (
+            <input
+              {...c}
+              type="email"
+              inputMode="email"
+              className={inputClass}
+              value={maintenanceEmail}
+              onChange={(e) => setMaintenanceEmail(e.target.value)}
+            />
+          )}
         </Field>
         <Field id="supervisor-email" label="Supervisor e-mail" error={err('supervisorEmail')}>
-          {(c) => <input {...c} type="email" inputMode="email" className={inputClass} value={supervisorEmail} onChange={(e) => setSupervisorEmail(e.target.value)} />}
+          {(c) => (
+            <input
+              {...c}
+              type="email"
+              inputMode="email"
+              className={inputClass}
+              value={supervisorEmail}
+              onChange={(e) => setSupervisorEmail(e.target.value)}
+            />
+          )}
         </Field>
       </section>
 
@@ -157,7 +233,11 @@ export function SettingsForm({ fleet }: { fleet: FleetSettings }) {
         {failure ? <FormNotice kind="error">{failure}</FormNotice> : null}
         {savedAt ? <FormNotice kind="saved">Settings saved at {timeFormat.format(savedAt)}.</FormNotice> : null}
         <div>
-          <button type="submit" className={`${officeButtonClass('primary')} min-w-60`} disabled={save.isPending || !hydrated}>
+          <button
+            type="submit"
+            className={`${officeButtonClass('primary')} min-w-60`}
+            disabled={save.isPending || !hydrated}
+          >
             {save.isPending ? 'Saving…' : 'Save settings'}
           </button>
         </div>

@@ -8,11 +8,18 @@ import { UnitsClient } from './units-client';
 
 export const metadata: Metadata = { title: 'Units' };
 
-export default async function AdminUnitsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function AdminUnitsPage({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const user = await requireRole('admin');
   const { added } = await searchParams;
   const qc = new QueryClient();
-  await qc.prefetchQuery({ queryKey: adminUnitKeys.list(), queryFn: () => listFleetUnits(getDb(), { fleetId: user.fleetId }) });
+  await qc.prefetchQuery({
+    queryKey: adminUnitKeys.list(),
+    queryFn: () => listFleetUnits(getDb(), { fleetId: user.fleetId }),
+  });
   return (
     <HydrationBoundary state={dehydrate(qc)}>
       <UnitsClient added={typeof added === 'string' ? added : null} />

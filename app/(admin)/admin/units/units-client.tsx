@@ -37,14 +37,28 @@ export function UnitsClient({ added }: { added: string | null }) {
         <fieldset className="flex flex-wrap gap-2">
           <legend className="sr-only">Show</legend>
           {(['all', 'tractor', 'trailer'] as const).map((k) => (
-            <label key={k} className={`${officeButtonClass(kind === k ? 'primary' : 'plain')} cursor-pointer has-[:focus-visible]:outline-4 has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-vest`}>
-              <input type="radio" name="kind-filter" className="sr-only" checked={kind === k} onChange={() => setKind(k)} />
+            <label
+              key={k}
+              className={`${officeButtonClass(kind === k ? 'primary' : 'plain')} cursor-pointer has-[:focus-visible]:outline-4 has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-vest`}
+            >
+              <input
+                type="radio"
+                name="kind-filter"
+                className="sr-only"
+                checked={kind === k}
+                onChange={() => setKind(k)}
+              />
               {k === 'all' ? 'All' : k === 'tractor' ? 'Tractors' : 'Trailers'}
             </label>
           ))}
         </fieldset>
         <label className="flex min-h-12 items-center gap-2 text-lg">
-          <input type="checkbox" className="size-6 accent-[rgb(var(--ink))]" checked={showRetired} onChange={(e) => setShowRetired(e.target.checked)} />
+          <input
+            type="checkbox"
+            className="size-6 accent-[rgb(var(--ink))]"
+            checked={showRetired}
+            onChange={(e) => setShowRetired(e.target.checked)}
+          />
           Show retired ({retiredCount})
         </label>
       </div>
@@ -55,12 +69,24 @@ export function UnitsClient({ added }: { added: string | null }) {
         <table className="hidden w-full border-collapse text-left text-lg md:table">
           <thead className="border-b-slab border-edge text-base">
             <tr>
-              <th scope="col" className="px-3 py-2">Unit</th>
-              <th scope="col" className="px-3 py-2">Make, model, year</th>
-              <th scope="col" className="px-3 py-2">Plate</th>
-              <th scope="col" className="px-3 py-2">VIN</th>
-              <th scope="col" className="px-3 py-2">Axles</th>
-              <th scope="col" className="px-3 py-2">State</th>
+              <th scope="col" className="px-3 py-2">
+                Unit
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Make, model, year
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Plate
+              </th>
+              <th scope="col" className="px-3 py-2">
+                VIN
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Axles
+              </th>
+              <th scope="col" className="px-3 py-2">
+                State
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -68,13 +94,27 @@ export function UnitsClient({ added }: { added: string | null }) {
               <tr key={u.id} className="border-b-2 border-edge/20 last:border-b-0 hover:bg-ground">
                 <th scope="row" className="px-3 py-2">
                   <Link href={`/admin/units/${u.id}`} className="inline-flex min-h-11 flex-col justify-center">
-                    <span className="text-xl font-extrabold underline decoration-2 underline-offset-4">{u.unitNumber}</span>
-                    <span className="text-sm font-normal text-muted">{u.kind === 'tractor' ? 'Tractor' : 'Trailer'}</span>
+                    <span className="text-xl font-extrabold underline decoration-2 underline-offset-4">
+                      {u.unitNumber}
+                    </span>
+                    <span className="text-sm font-normal text-muted">
+                      {u.kind === 'tractor' ? 'Tractor' : 'Trailer'}
+                    </span>
                   </Link>
                 </th>
-                <td className="px-3 py-2">{[u.make, u.model, u.year].filter(Boolean).join(' · ') || <span className="text-muted">—</span>}</td>
-                <td className="px-3 py-2">{u.plate ? `${u.plate}${u.plateJurisdiction ? ` (${u.plateJurisdiction})` : ''}` : <span className="text-muted">—</span>}</td>
-                <td className="px-3 py-2 font-mono text-base">{u.vin ?? <span className="font-sans text-muted">—</span>}</td>
+                <td className="px-3 py-2">
+                  {[u.make, u.model, u.year].filter(Boolean).join(' · ') || <span className="text-muted">—</span>}
+                </td>
+                <td className="px-3 py-2">
+                  {u.plate ? (
+                    `${u.plate}${u.plateJurisdiction ? ` (${u.plateJurisdiction})` : ''}`
+                  ) : (
+                    <span className="text-muted">—</span>
+                  )}
+                </td>
+                <td className="px-3 py-2 font-mono text-base">
+                  {u.vin ?? <span className="font-sans text-muted">—</span>}
+                </td>
                 <td className="px-3 py-2">
                   {u.axles.length} axles · {tireCount(u)} tires
                 </td>
@@ -91,7 +131,9 @@ export function UnitsClient({ added }: { added: string | null }) {
               <Link href={`/admin/units/${u.id}`} className="flex flex-col gap-1 p-3">
                 <span className="flex flex-wrap items-center justify-between gap-2">
                   <span>
-                    <span className="text-xl font-extrabold underline decoration-2 underline-offset-4">{u.unitNumber}</span>{' '}
+                    <span className="text-xl font-extrabold underline decoration-2 underline-offset-4">
+                      {u.unitNumber}
+                    </span>{' '}
                     <span className="text-base text-muted">{u.kind === 'tractor' ? 'Tractor' : 'Trailer'}</span>
                   </span>
                   <UnitStatusBadge unit={u} />
@@ -105,7 +147,9 @@ export function UnitsClient({ added }: { added: string | null }) {
             </li>
           ))}
         </ul>
-        {units && shown.length === 0 ? <p className="p-4 text-lg">No units match. Change the filter above or add one.</p> : null}
+        {units && shown.length === 0 ? (
+          <p className="p-4 text-lg">No units match. Change the filter above or add one.</p>
+        ) : null}
       </section>
     </div>
   );

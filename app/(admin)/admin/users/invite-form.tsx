@@ -53,12 +53,35 @@ export function InviteForm() {
       </div>
       <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
         <Field id="invite-name" label="Full name" error={firstError(errors, 'name')}>
-          {(c) => <input {...c} className={inputClass} value={name} onChange={(e) => setName(e.target.value)} autoComplete="off" />}
+          {(c) => (
+            <input
+              {...c}
+              className={inputClass}
+              value={name}
+              onChange={(e) => setName(e.target.value)}
+              autoComplete="off"
+            />
+          )}
         </Field>
         <Field id="invite-email" label="E-mail" error={firstError(errors, 'email')}>
-          {(c) => <input {...c} type="email" inputMode="email" className={inputClass} value={email} onChange={(e) => setEmail(e.target.value)} autoComplete="off" />}
+          {(c) => (
+            <input
+              {...c}
+              type="email"
+              inputMode="email"
+              className={inputClass}
+              value={email}
+              onChange={(e) => setEmail(e.target.value)}
+              autoComplete="off"
+            />
+          )}
         </Field>
-        <RoleChoices idPrefix="invite" value={roles} onChange={setRoles} error={firstError(errors, 'roles') ?? firstError(errors, 'roles.0')} />
+        <RoleChoices
+          idPrefix="invite"
+          value={roles}
+          onChange={setRoles}
+          error={firstError(errors, 'roles') ?? firstError(errors, 'roles.0')}
+        />
         {failure ? <FormNotice kind="error">{failure}</FormNotice> : null}
         {sentTo ? <FormNotice kind="saved">Invitation sent to {sentTo}.</FormNotice> : null}
         <button type="submit" className={officeButtonClass('primary')} disabled={invite.isPending || !hydrated}>

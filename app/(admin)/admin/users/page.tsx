@@ -11,7 +11,10 @@ export const metadata: Metadata = { title: 'People' };
 export default async function AdminUsersPage() {
   const user = await requireRole('admin');
   const qc = new QueryClient();
-  await qc.prefetchQuery({ queryKey: adminUserKeys.list(), queryFn: () => listFleetUsers(getDb(), { fleetId: user.fleetId }) });
+  await qc.prefetchQuery({
+    queryKey: adminUserKeys.list(),
+    queryFn: () => listFleetUsers(getDb(), { fleetId: user.fleetId }),
+  });
   return (
     <HydrationBoundary state={dehydrate(qc)}>
       <UsersClient selfId={user.id} />

@@ -44,7 +44,7 @@ export function PersonRow({ person, isSelf }: { person: AdminUser; isSelf: boole
             {person.name}
             {isSelf ? <span className="ml-2 text-base font-normal text-muted">(you)</span> : null}
           </p>
-          <p className="text-base text-muted [overflow-wrap:anywhere]">{person.email}</p>
+          <p className="text-base [overflow-wrap:anywhere] text-muted">{person.email}</p>
         </div>
         <ul className="flex flex-wrap gap-1" aria-label={`Roles of ${person.name}`}>
           {person.roles.map((r) => (
@@ -59,14 +59,19 @@ export function PersonRow({ person, isSelf }: { person: AdminUser; isSelf: boole
               <span className="font-bold">Invited</span>
             ) : (
               <span>
-                <span aria-hidden="true" className="text-pass">✓ </span>Active
+                <span aria-hidden="true" className="text-pass">
+                  ✓{' '}
+                </span>
+                Active
               </span>
             )
           ) : (
             <span className="font-bold text-muted">Deactivated</span>
           )}
           <span className="block text-sm text-muted" suppressHydrationWarning>
-            {person.lastSignInAt ? `Last signed in ${dateFormat.format(new Date(person.lastSignInAt))}` : 'Never signed in'}
+            {person.lastSignInAt
+              ? `Last signed in ${dateFormat.format(new Date(person.lastSignInAt))}`
+              : 'Never signed in'}
           </span>
         </div>
         <button
@@ -90,7 +95,13 @@ export function PersonRow({ person, isSelf }: { person: AdminUser; isSelf: boole
       {open ? (
         <div id={editorId} className="mt-3 grid gap-4 rounded-md border-2 border-edge bg-ground p-3 md:grid-cols-2">
           <div className="flex flex-col gap-3">
-            <RoleChoices idPrefix={`person-${person.id}`} value={roles} onChange={setRoles} locked={isSelf ? ['admin'] : []} error={firstError(errors, 'roles')} />
+            <RoleChoices
+              idPrefix={`person-${person.id}`}
+              value={roles}
+              onChange={setRoles}
+              locked={isSelf ? ['admin'] : []}
+              error={firstError(errors, 'roles')}
+            />
             <button
               type="button"
               className={officeButtonClass('primary')}
@@ -111,7 +122,12 @@ export function PersonRow({ person, isSelf }: { person: AdminUser; isSelf: boole
                     Deactivate <b>{person.name}</b>? They can no longer sign in. Their inspections and records stay.
                   </p>
                   <div className="flex flex-wrap gap-2">
-                    <button type="button" className={officeButtonClass('danger')} disabled={update.isPending} onClick={() => void save({ active: false }, 'Deactivated.')}>
+                    <button
+                      type="button"
+                      className={officeButtonClass('danger')}
+                      disabled={update.isPending}
+                      onClick={() => void save({ active: false }, 'Deactivated.')}
+                    >
                       Yes, deactivate
                     </button>
                     <button type="button" className={officeButtonClass('plain')} onClick={() => setConfirming(false)}>
@@ -125,7 +141,12 @@ export function PersonRow({ person, isSelf }: { person: AdminUser; isSelf: boole
                 </button>
               )
             ) : (
-              <button type="button" className={officeButtonClass('plain')} disabled={update.isPending} onClick={() => void save({ active: true }, 'Reactivated.')}>
+              <button
+                type="button"
+                className={officeButtonClass('plain')}
+                disabled={update.isPending}
+                onClick={() => void save({ active: true }, 'Reactivated.')}
+              >
                 Reactivate
               </button>
             )}

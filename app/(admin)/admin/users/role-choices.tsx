@@ -35,11 +35,18 @@ export function RoleChoices({
               className="mt-0.5 size-6 shrink-0 accent-[rgb(var(--ink))]"
               checked={value.includes(r)}
               disabled={isLocked}
-              onChange={(e) => onChange(e.target.checked ? roles.filter((x) => x === r || value.includes(x)) : value.filter((x) => x !== r))}
+              onChange={(e) =>
+                onChange(
+                  e.target.checked ? roles.filter((x) => x === r || value.includes(x)) : value.filter((x) => x !== r),
+                )
+              }
             />
             <span>
-              <span className="font-bold">{roleLabel[r]}</span> <span className="text-base text-muted">· {roleDuty[r]}</span>
-              {isLocked ? <span className="block text-sm text-muted">You cannot remove your own admin role.</span> : null}
+              <span className="font-bold">{roleLabel[r]}</span>{' '}
+              <span className="text-base text-muted">· {roleDuty[r]}</span>
+              {isLocked ? (
+                <span className="block text-sm text-muted">You cannot remove your own admin role.</span>
+              ) : null}
             </span>
           </label>
         );

@@ -23,7 +23,11 @@ export function UsersClient({ selfId }: { selfId: string }) {
         <section aria-label="Everyone in the fleet" className={`${panelClass} px-4 lg:col-start-1 lg:row-start-1`}>
           {error ? <FormNotice kind="error">{error.message}</FormNotice> : null}
           {isPending ? <p className="py-4 text-lg">Loading people…</p> : null}
-          <ul>{users?.map((u) => <PersonRow key={u.id} person={u} isSelf={u.id === selfId} />)}</ul>
+          <ul>
+            {users?.map((u) => (
+              <PersonRow key={u.id} person={u} isSelf={u.id === selfId} />
+            ))}
+          </ul>
         </section>
       </div>
     </div>

@@ -6,7 +6,18 @@ import { SlabButton, slabClass } from '@/components/ui/slab-button';
 import { ApiError, fetchJson } from '@/lib/http/fetch-json';
 
 type UnitChoice = { id: string; unitNumber: string; status: string; label: string };
-type ReviewDefect = { id: string; component: string; condition: string; position: string | null; severity: string; description: string; status: string; repairWork: string | null; certifiedName: string | null; certifiedAt: string | null };
+type ReviewDefect = {
+  id: string;
+  component: string;
+  condition: string;
+  position: string | null;
+  severity: string;
+  description: string;
+  status: string;
+  repairWork: string | null;
+  certifiedName: string | null;
+  certifiedAt: string | null;
+};
 type Review = {
   unitId: string;
   mustAcknowledge: boolean;
@@ -19,19 +30,42 @@ const field = 'min-h-target w-full rounded-lg border-slab border-edge bg-panel p
 const choice = (on: boolean) =>
   `flex min-h-target flex-col items-start justify-center rounded-lg border-slab px-4 py-2 text-left ${on ? 'border-edge bg-vest text-on-vest' : 'border-edge bg-panel text-ink'}`;
 
-function UnitPicker({ legend, units, value, onPick, allowNone }: { legend: string; units: UnitChoice[]; value: string | null; onPick: (id: string | null) => void; allowNone?: boolean }) {
+function UnitPicker({
+  legend,
+  units,
+  value,
+  onPick,
+  allowNone,
+}: {
+  legend: string;
+  units: UnitChoice[];
+  value: string | null;
+  onPick: (id: string | null) => void;
+  allowNone?: boolean;
+}) {
   return (
     <fieldset className="space-y-2">
       <legend className="text-xl font-bold">{legend}</legend>
       <div className="grid grid-cols-2 gap-2 sm:grid-cols-4">
         {units.map((u) => (
-          <button key={u.id} type="button" aria-pressed={value === u.id} className={choice(value === u.id)} onClick={() => onPick(u.id)}>
+          <button
+            key={u.id}
+            type="button"
+            aria-pressed={value === u.id}
+            className={choice(value === u.id)}
+            onClick={() => onPick(u.id)}
+          >
             <span className="text-2xl font-extrabold">{u.unitNumber}</span>
             <span className="text-base">{u.status === 'out_of_service' ? '■ OUT OF SERVICE' : u.label}</span>
           </button>
         ))}
         {allowNone && (
-          <button type="button" aria-pressed={value === null} className={choice(value === null)} onClick={() => onPick(null)}>
+          <button
+            type="button"
+            aria-pressed={value === null}
+            className={choice(value === null)}
+            onClick={() => onPick(null)}
+          >
             <span className="text-xl font-extrabold">No trailer</span>
             <span className="text-base">tractor alone</span>
           </button>
@@ -41,37 +75,59 @@ function UnitPicker({ legend, units, value, onPick, allowNone }: { legend: strin
   );
 }
 
-function ReviewPanel({ unitNumber, review, driverName, onSigned }: { unitNumber: string; review: Review; driverName: string; onSigned: () => void }) {
+function ReviewPanel({
+  unitNumber,
+  review,
+  driverName,
+  onSigned,
+}: {
+  unitNumber: string;
+  review: Review;
+  driverName: string;
+  onSigned: () => void;
+}) {
   const [name, setName] = useState('');
   const [error, setError] = useState<string | null>(null);
   const report = review.report!;
   async function sign() {
     setError(null);
     try {
-      await fetchJson('/api/acknowledgements', { method: 'POST', json: { id: crypto.randomUUID(), unitId: review.unitId, reviewedInspectionId: report.id, signatureName: name } });
+      await fetchJson('/api/acknowledgements', {
+        method: 'POST',
+        json: { id: crypto.randomUUID(), unitId: review.unitId, reviewedInspectionId: report.id, signatureName: name },
+      });
       onSigned();
     } catch (e) {
       setError(e instanceof ApiError ? e.message : 'Could not sign the review.');
     }
   }
   return (
-    <section className="space-y-3 rounded-lg border-slab border-edge bg-panel p-4" aria-label={`Last report of unit ${unitNumber}`}>
+    <section
+      className="space-y-3 rounded-lg border-slab border-edge bg-panel p-4"
+      aria-label={`Last report of unit ${unitNumber}`}
+    >
       <h2 className="text-2xl font-extrabold">Review the last report of unit {unitNumber}</h2>
       <p className="text-lg">
-        {report.kind === 'pre_trip' ? 'Pre-trip' : 'Post-trip'} by {report.driverName}, {new Date(report.finishedAt).toLocaleString()}.
+        {report.kind === 'pre_trip' ? 'Pre-trip' : 'Post-trip'} by {report.driverName},{' '}
+        {new Date(report.finishedAt).toLocaleString()}.
       </p>
       <ul className="space-y-2">
         {report.defects.map((d) => (
           <li key={d.id} className="rounded-lg border-slab border-edge p-3 text-lg">
             <p className="font-bold">
-              {d.severity === 'major' ? <span className="mr-2 rounded bg-major px-2 text-on-major">■ MAJOR</span> : <span className="mr-2 text-minor">△ minor</span>}
+              {d.severity === 'major' ? (
+                <span className="mr-2 rounded bg-major px-2 text-on-major">■ MAJOR</span>
+              ) : (
+                <span className="mr-2 text-minor">△ minor</span>
+              )}
               {d.description}
             </p>
             {d.status === 'open' ? (
               <p className="font-bold text-major">▲ Not certified yet: no repair recorded.</p>
             ) : (
               <p className="text-pass">
-                ✓ {d.status === 'repaired' ? 'Repaired' : 'No repair needed'}, certified by {d.certifiedName} {d.certifiedAt ? new Date(d.certifiedAt).toLocaleString() : ''}
+                ✓ {d.status === 'repaired' ? 'Repaired' : 'No repair needed'}, certified by {d.certifiedName}{' '}
+                {d.certifiedAt ? new Date(d.certifiedAt).toLocaleString() : ''}
                 {d.repairWork ? `: ${d.repairWork}` : ''}
               </p>
             )}
@@ -85,7 +141,13 @@ function ReviewPanel({ unitNumber, review, driverName, onSigned }: { unitNumber:
       )}
       <label className="flex flex-col gap-2 text-lg font-bold">
         Type your name to sign that you reviewed this report
-        <input className={field} value={name} onChange={(e) => setName(e.target.value)} placeholder={driverName} autoComplete="name" />
+        <input
+          className={field}
+          value={name}
+          onChange={(e) => setName(e.target.value)}
+          placeholder={driverName}
+          autoComplete="name"
+        />
       </label>
       {error && (
         <p role="alert" className="text-lg font-bold text-major">
@@ -99,7 +161,17 @@ function ReviewPanel({ unitNumber, review, driverName, onSigned }: { unitNumber:
   );
 }
 
-export function StartClient({ kind: initialKind, driverName, tractors, trailers }: { kind: 'pre_trip' | 'post_trip'; driverName: string; tractors: UnitChoice[]; trailers: UnitChoice[] }) {
+export function StartClient({
+  kind: initialKind,
+  driverName,
+  tractors,
+  trailers,
+}: {
+  kind: 'pre_trip' | 'post_trip';
+  driverName: string;
+  tractors: UnitChoice[];
+  trailers: UnitChoice[];
+}) {
   const router = useRouter();
   const [kind, setKind] = useState(initialKind);
   const [tractorId, setTractorId] = useState<string | null>(null);
@@ -119,7 +191,9 @@ export function StartClient({ kind: initialKind, driverName, tractors, trailers 
     setBusy(true);
     try {
       const ids = [tractorId, trailerId].filter((x): x is string => !!x);
-      const found = await Promise.all(ids.map((id) => fetchJson<{ review: Review }>(`/api/units/${id}/review`).then((r) => r.review)));
+      const found = await Promise.all(
+        ids.map((id) => fetchJson<{ review: Review }>(`/api/units/${id}/review`).then((r) => r.review)),
+      );
       setReviews(found);
     } catch (e) {
       setError(e instanceof ApiError ? e.message : 'Could not load the last reports.');
@@ -134,7 +208,17 @@ export function StartClient({ kind: initialKind, driverName, tractors, trailers 
     try {
       await fetchJson('/api/inspections', {
         method: 'POST',
-        json: { id, kind, tractorId, trailerId, odometer: odometer ? Number(odometer) : null, location, billOfLading, sealNumber: trailerId ? sealNumber : '', startedAt: new Date().toISOString() },
+        json: {
+          id,
+          kind,
+          tractorId,
+          trailerId,
+          odometer: odometer ? Number(odometer) : null,
+          location,
+          billOfLading,
+          sealNumber: trailerId ? sealNumber : '',
+          startedAt: new Date().toISOString(),
+        },
       });
       router.push(`/driver/inspections/${id}/walk`);
     } catch (e) {
@@ -148,17 +232,40 @@ export function StartClient({ kind: initialKind, driverName, tractors, trailers 
     <div className="flex flex-col gap-6 pb-10">
       <div className="grid grid-cols-2 gap-2" role="group" aria-label="Inspection type">
         {(['pre_trip', 'post_trip'] as const).map((k) => (
-          <button key={k} type="button" aria-pressed={kind === k} className={choice(kind === k)} onClick={() => setKind(k)}>
+          <button
+            key={k}
+            type="button"
+            aria-pressed={kind === k}
+            className={choice(kind === k)}
+            onClick={() => setKind(k)}
+          >
             <span className="text-xl font-extrabold">{k === 'pre_trip' ? 'Pre-trip' : 'Post-trip'}</span>
           </button>
         ))}
       </div>
-      <UnitPicker legend="Tractor" units={tractors} value={tractorId} onPick={(id) => (setTractorId(id), setReviews(null))} />
-      <UnitPicker legend="Trailer" units={trailers} value={trailerId} onPick={(id) => (setTrailerId(id), setReviews(null))} allowNone />
+      <UnitPicker
+        legend="Tractor"
+        units={tractors}
+        value={tractorId}
+        onPick={(id) => (setTractorId(id), setReviews(null))}
+      />
+      <UnitPicker
+        legend="Trailer"
+        units={trailers}
+        value={trailerId}
+        onPick={(id) => (setTrailerId(id), setReviews(null))}
+        allowNone
+      />
       <div className="grid gap-4 sm:grid-cols-2">
         <label className="flex flex-col gap-2 text-lg font-bold">
           Odometer
-          <input className={field} inputMode="numeric" pattern="[0-9]*" value={odometer} onChange={(e) => setOdometer(e.target.value.replace(/\D/g, ''))} />
+          <input
+            className={field}
+            inputMode="numeric"
+            pattern="[0-9]*"
+            value={odometer}
+            onChange={(e) => setOdometer(e.target.value.replace(/\D/g, ''))}
+          />
         </label>
         <label className="flex flex-col gap-2 text-lg font-bold">
           Location (optional)
@@ -187,7 +294,19 @@ export function StartClient({ kind: initialKind, driverName, tractors, trailers 
           Continue
         </SlabButton>
       ) : pendingReviews.length > 0 ? (
-        pendingReviews.map((r) => <ReviewPanel key={r.unitId} unitNumber={unitNumber(r.unitId)} review={r} driverName={driverName} onSigned={() => setReviews((all) => (all ?? []).map((x) => (x.unitId === r.unitId ? { ...x, mustAcknowledge: false } : x)))} />)
+        pendingReviews.map((r) => (
+          <ReviewPanel
+            key={r.unitId}
+            unitNumber={unitNumber(r.unitId)}
+            review={r}
+            driverName={driverName}
+            onSigned={() =>
+              setReviews((all) =>
+                (all ?? []).map((x) => (x.unitId === r.unitId ? { ...x, mustAcknowledge: false } : x)),
+              )
+            }
+          />
+        ))
       ) : (
         <button type="button" className={slabClass('primary')} onClick={() => void start()} disabled={busy}>
           {busy ? 'Starting…' : `Start the walk · ${kind === 'pre_trip' ? 'pre-trip' : 'post-trip'}`}

@@ -1,7 +1,13 @@
 'use client';
 
 import { useQuery } from '@tanstack/react-query';
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
+import {
+  createColumnHelper,
+  flexRender,
+  getCoreRowModel,
+  useReactTable,
+  type SortingState,
+} from '@tanstack/react-table';
 import Link from 'next/link';
 import { usePathname, useRouter, useSearchParams } from 'next/navigation';
 import { useMemo } from 'react';
@@ -17,7 +23,11 @@ const makeColumns = (tz: string) => [
   col.accessor('startedAt', {
     header: 'Started',
     cell: (c) => (
-      <Link href={`/supervisor/reports/${c.row.original.id}`} className="font-bold underline-offset-2 hover:underline" data-testid="report-link">
+      <Link
+        href={`/supervisor/reports/${c.row.original.id}`}
+        className="font-bold underline-offset-2 hover:underline"
+        data-testid="report-link"
+      >
         {formatDateTime(c.getValue(), tz)}
       </Link>
     ),
@@ -29,7 +39,9 @@ const makeColumns = (tz: string) => [
     cell: (c) => (
       <span className="font-bold">
         {c.getValue()}
-        {c.row.original.trailerNumber ? <span className="font-normal text-muted"> + {c.row.original.trailerNumber}</span> : null}
+        {c.row.original.trailerNumber ? (
+          <span className="font-normal text-muted"> + {c.row.original.trailerNumber}</span>
+        ) : null}
       </span>
     ),
   }),
@@ -60,7 +72,14 @@ const makeColumns = (tz: string) => [
   col.accessor('reviewedAt', {
     header: 'Review',
     enableSorting: false,
-    cell: (c) => (c.row.original.status === 'draft' ? <span className="text-muted">walking</span> : c.getValue() ? <span className="text-pass">reviewed</span> : <span className="font-bold">to review</span>),
+    cell: (c) =>
+      c.row.original.status === 'draft' ? (
+        <span className="text-muted">walking</span>
+      ) : c.getValue() ? (
+        <span className="text-pass">reviewed</span>
+      ) : (
+        <span className="font-bold">to review</span>
+      ),
   }),
 ];
 
@@ -80,7 +99,8 @@ export function ReportsClient({ drivers, units, timezone }: { drivers: Option[];
   const set = (next: ReportListParams, resetPage = true) => {
     const merged: ReportListParams = { ...params, ...next };
     if (resetPage) delete merged.page;
-    for (const k of Object.keys(merged) as (keyof ReportListParams)[]) if (merged[k] === '' || merged[k] === undefined) delete merged[k];
+    for (const k of Object.keys(merged) as (keyof ReportListParams)[])
+      if (merged[k] === '' || merged[k] === undefined) delete merged[k];
     const qs = toReportSearch(merged);
     router.replace(qs ? `${pathname}?${qs}` : pathname, { scroll: false });
   };
@@ -109,23 +129,46 @@ export function ReportsClient({ drivers, units, timezone }: { drivers: Option[];
     <section className="space-y-4">
       <div className="flex flex-wrap items-end justify-between gap-3">
         <h1 className="text-3xl font-extrabold">Inspection reports</h1>
-        <a href={exportHref} className="rounded-lg border-slab border-edge bg-panel px-4 py-2 text-base font-bold hover:bg-ground" download>
+        <a
+          href={exportHref}
+          className="rounded-lg border-slab border-edge bg-panel px-4 py-2 text-base font-bold hover:bg-ground"
+          download
+        >
           Export CSV ({data?.total ?? '…'} reports)
         </a>
       </div>
 
-      <form aria-label="Filters" data-live={live ? "yes" : "no"} className="grid grid-cols-[repeat(auto-fill,minmax(9.5rem,1fr))] gap-3 rounded-lg border-2 border-edge/30 bg-panel p-3" onSubmit={(e) => e.preventDefault()}>
+      <form
+        aria-label="Filters"
+        data-live={live ? 'yes' : 'no'}
+        className="grid grid-cols-[repeat(auto-fill,minmax(9.5rem,1fr))] gap-3 rounded-lg border-2 border-edge/30 bg-panel p-3"
+        onSubmit={(e) => e.preventDefault()}
+      >
         <label className="flex flex-col text-sm font-bold">
           From
-          <input type="date" className={field} value={String(params.from ?? '')} onChange={(e) => set({ from: e.target.value })} />
+          <input
+            type="date"
+            className={field}
+            value={String(params.from ?? '')}
+            onChange={(e) => set({ from: e.target.value })}
+          />
         </label>
         <label className="flex flex-col text-sm font-bold">
           To
-          <input type="date" className={field} value={String(params.to ?? '')} onChange={(e) => set({ to: e.target.value })} />
+          <input
+            type="date"
+            className={field}
+            value={String(params.to ?? '')}
+            onChange={(e) => set({ to: e.target.value })}
+          />
         </label>
         <label className="flex flex-col text-sm font-bold">
           Driver
-          <select className={field} value={String(params.driverId ?? '')} onChange={(e) => set({ driverId: e.target.value })}>
+          <select
+            className={field}
+            value={String(params.driverId ?? '')}
+            onChange={(e) => set({ driverId: e.target.value })}
+          >
             <option value="">any</option>
             {drivers.map((d) => (
               <option key={d.id} value={d.id}>
@@ -136,7 +179,11 @@ export function ReportsClient({ drivers, units, timezone }: { drivers: Option[];
         </label>
         <label className="flex flex-col text-sm font-bold">
           Unit
-          <select className={field} value={String(params.unitId ?? '')} onChange={(e) => set({ unitId: e.target.value })}>
+          <select
+            className={field}
+            value={String(params.unitId ?? '')}
+            onChange={(e) => set({ unitId: e.target.value })}
+          >
             <option value="">any</option>
             {units.map((u) => (
               <option key={u.id} value={u.id}>
@@ -155,7 +202,11 @@ export function ReportsClient({ drivers, units, timezone }: { drivers: Option[];
         </label>
         <label className="flex flex-col text-sm font-bold">
           Defects
-          <select className={field} value={String(params.hasDefects ?? '')} onChange={(e) => set({ hasDefects: e.target.value })}>
+          <select
+            className={field}
+            value={String(params.hasDefects ?? '')}
+            onChange={(e) => set({ hasDefects: e.target.value })}
+          >
             <option value="">any</option>
             <option value="yes">with defects</option>
             <option value="no">none</option>
@@ -171,7 +222,11 @@ export function ReportsClient({ drivers, units, timezone }: { drivers: Option[];
         </label>
         <label className="flex flex-col text-sm font-bold">
           Status
-          <select className={field} value={String(params.status ?? '')} onChange={(e) => set({ status: e.target.value })}>
+          <select
+            className={field}
+            value={String(params.status ?? '')}
+            onChange={(e) => set({ status: e.target.value })}
+          >
             <option value="">any</option>
             <option value="unreviewed">to review</option>
             <option value="reviewed">reviewed</option>
@@ -188,16 +243,24 @@ export function ReportsClient({ drivers, units, timezone }: { drivers: Option[];
 
       <div className="overflow-x-auto rounded-lg border-slab border-edge bg-panel" aria-busy={isFetching}>
         <table className="w-full min-w-[860px] text-base">
-          <thead className="text-left text-sm uppercase tracking-wide text-muted">
+          <thead className="text-left text-sm tracking-wide text-muted uppercase">
             {table.getHeaderGroups().map((hg) => (
               <tr key={hg.id} className="border-b-2 border-edge/30">
                 {hg.headers.map((h) => {
                   const can = sortable.has(h.column.id);
                   const dir = h.column.getIsSorted();
                   return (
-                    <th key={h.id} className="px-3 py-2" aria-sort={dir === 'asc' ? 'ascending' : dir === 'desc' ? 'descending' : 'none'}>
+                    <th
+                      key={h.id}
+                      className="px-3 py-2"
+                      aria-sort={dir === 'asc' ? 'ascending' : dir === 'desc' ? 'descending' : 'none'}
+                    >
                       {can ? (
-                        <button type="button" className="inline-flex items-center gap-1 font-bold uppercase hover:text-ink" onClick={h.column.getToggleSortingHandler()}>
+                        <button
+                          type="button"
+                          className="inline-flex items-center gap-1 font-bold uppercase hover:text-ink"
+                          onClick={h.column.getToggleSortingHandler()}
+                        >
                           {flexRender(h.column.columnDef.header, h.getContext())}
                           <span aria-hidden>{dir === 'asc' ? '▲' : dir === 'desc' ? '▼' : '↕'}</span>
                         </button>
@@ -212,7 +275,11 @@ export function ReportsClient({ drivers, units, timezone }: { drivers: Option[];
           </thead>
           <tbody className={isFetching ? 'opacity-60' : ''}>
             {table.getRowModel().rows.map((row) => (
-              <tr key={row.id} className={`border-t border-edge/15 align-top ${row.original.majorCount ? 'shadow-[inset_8px_0_0_rgb(var(--major))]' : ''}`} data-testid="report-row">
+              <tr
+                key={row.id}
+                className={`border-t border-edge/15 align-top ${row.original.majorCount ? 'shadow-[inset_8px_0_0_rgb(var(--major))]' : ''}`}
+                data-testid="report-row"
+              >
                 {row.getVisibleCells().map((cell) => (
                   <td key={cell.id} className="px-3 py-2">
                     {flexRender(cell.column.columnDef.cell, cell.getContext())}
@@ -232,18 +299,32 @@ export function ReportsClient({ drivers, units, timezone }: { drivers: Option[];
       </div>
 
       <nav aria-label="Pages" className="flex flex-wrap items-center gap-3 text-base">
-        <button type="button" className="rounded-lg border-slab border-edge bg-panel px-4 py-2 font-bold disabled:opacity-40" disabled={page <= 1} onClick={() => set({ page: page - 1 }, false)}>
+        <button
+          type="button"
+          className="rounded-lg border-slab border-edge bg-panel px-4 py-2 font-bold disabled:opacity-40"
+          disabled={page <= 1}
+          onClick={() => set({ page: page - 1 }, false)}
+        >
           Newer
         </button>
         <span>
           Page <span className="font-bold">{page}</span> of {data?.pageCount ?? '…'} · {data?.total ?? '…'} reports
         </span>
-        <button type="button" className="rounded-lg border-slab border-edge bg-panel px-4 py-2 font-bold disabled:opacity-40" disabled={!data || page >= data.pageCount} onClick={() => set({ page: page + 1 }, false)}>
+        <button
+          type="button"
+          className="rounded-lg border-slab border-edge bg-panel px-4 py-2 font-bold disabled:opacity-40"
+          disabled={!data || page >= data.pageCount}
+          onClick={() => set({ page: page + 1 }, false)}
+        >
           Older
         </button>
         <label className="ml-auto flex items-center gap-2 text-sm font-bold">
           Rows
-          <select className={field} value={String(params.pageSize ?? 25)} onChange={(e) => set({ pageSize: e.target.value })}>
+          <select
+            className={field}
+            value={String(params.pageSize ?? 25)}
+            onChange={(e) => set({ pageSize: e.target.value })}
+          >
             {[25, 50, 100].map((n) => (
               <option key={n}>{n}</option>
             ))}

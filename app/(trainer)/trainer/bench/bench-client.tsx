@@ -8,11 +8,20 @@ import { useBenchMutation } from '@/lib/queries/vocabulary';
 import { zoneIdSchema } from '@/lib/schemas/grammar';
 import type { BenchMatch, BenchResult } from '@/lib/schemas/vocabulary';
 
-type Recognition = { lang: string; maxAlternatives: number; onresult: ((e: { results: { 0: { transcript: string } }[] }) => void) | null; onend: (() => void) | null; start: () => void };
+type Recognition = {
+  lang: string;
+  maxAlternatives: number;
+  onresult: ((e: { results: { 0: { transcript: string } }[] }) => void) | null;
+  onend: (() => void) | null;
+  start: () => void;
+};
 
 function speechCtor(): (new () => Recognition) | null {
   if (typeof window === 'undefined') return null;
-  const w = window as unknown as { SpeechRecognition?: new () => Recognition; webkitSpeechRecognition?: new () => Recognition };
+  const w = window as unknown as {
+    SpeechRecognition?: new () => Recognition;
+    webkitSpeechRecognition?: new () => Recognition;
+  };
   return w.SpeechRecognition ?? w.webkitSpeechRecognition ?? null;
 }
 
@@ -47,21 +56,41 @@ export function BenchClient() {
           run();
         }}
       >
-        <label className="min-w-0 basis-full sm:min-w-[20rem] sm:basis-auto sm:grow">
+        <label className="min-w-0 basis-full sm:min-w-[20rem] sm:grow sm:basis-auto">
           <span className="block text-sm font-bold">Utterance, as a driver would say it</span>
-          <input className={fieldClass} value={text} onChange={(e) => setText(e.target.value)} placeholder="e.g. bubble on the passenger steer tyre" maxLength={400} />
+          <input
+            className={fieldClass}
+            value={text}
+            onChange={(e) => setText(e.target.value)}
+            placeholder="e.g. bubble on the passenger steer tyre"
+            maxLength={400}
+          />
         </label>
         <label>
           <span className="block text-sm font-bold">Zone</span>
           <select className={fieldClass} value={zone} onChange={(e) => setZone(e.target.value)}>
             <option value="">any zone</option>
-            {zoneIdSchema.options.map((z) => <option key={z} value={z}>{z.replace(/_/g, ' ')}</option>)}
+            {zoneIdSchema.options.map((z) => (
+              <option key={z} value={z}>
+                {z.replace(/_/g, ' ')}
+              </option>
+            ))}
           </select>
         </label>
-        <button type="submit" className={buttonClass('primary')} disabled={!text.trim() || bench.isPending}>Try it</button>
-        {hydrated && speechCtor() && <button type="button" className={buttonClass()} onClick={speak} disabled={listening}>{listening ? '● Listening…' : '● Speak'}</button>}
+        <button type="submit" className={buttonClass('primary')} disabled={!text.trim() || bench.isPending}>
+          Try it
+        </button>
+        {hydrated && speechCtor() && (
+          <button type="button" className={buttonClass()} onClick={speak} disabled={listening}>
+            {listening ? '● Listening…' : '● Speak'}
+          </button>
+        )}
       </form>
-      {bench.error && <p role="alert" className="font-bold text-major">{bench.error.message}</p>}
+      {bench.error && (
+        <p role="alert" className="font-bold text-major">
+          {bench.error.message}
+        </p>
+      )}
       {result && <BenchOutput result={result} />}
     </div>
   );
@@ -72,19 +101,44 @@ function BenchOutput({ result }: { result: BenchResult }) {
     <div className="space-y-3">
       <dl className={`${cardClass} grid grid-cols-[auto_1fr] gap-x-4 gap-y-1`}>
         <dt className="font-bold">Normalised</dt>
-        <dd data-testid="bench-normalized"><code>{result.normalized || '—'}</code></dd>
+        <dd data-testid="bench-normalized">
+          <code>{result.normalized || '—'}</code>
+        </dd>
         <dt className="font-bold">Numbers found</dt>
-        <dd>{result.numbers.length ? result.numbers.map((n, i) => <span key={i} className="mr-3 tabular-nums">“{n.words}” → <b>{n.value}</b> {n.unit ?? '(no unit)'}</span>) : 'none'}</dd>
+        <dd>
+          {result.numbers.length
+            ? result.numbers.map((n, i) => (
+                <span key={i} className="mr-3 tabular-nums">
+                  “{n.words}” → <b>{n.value}</b> {n.unit ?? '(no unit)'}
+                </span>
+              ))
+            : 'none'}
+        </dd>
       </dl>
       <div className="grid gap-3 md:grid-cols-2">
         <MatchColumn title="Draft" side={result.draft} testId="bench-draft" empty="No draft is open." />
-        <MatchColumn title="Published (drivers use it now)" side={result.published} testId="bench-published" empty="Nothing published: drivers use the built-in vocabulary." />
+        <MatchColumn
+          title="Published (drivers use it now)"
+          side={result.published}
+          testId="bench-published"
+          empty="Nothing published: drivers use the built-in vocabulary."
+        />
       </div>
     </div>
   );
 }
 
-function MatchColumn({ title, side, testId, empty }: { title: string; side: BenchResult['draft']; testId: string; empty: string }) {
+function MatchColumn({
+  title,
+  side,
+  testId,
+  empty,
+}: {
+  title: string;
+  side: BenchResult['draft'];
+  testId: string;
+  empty: string;
+}) {
   return (
     <section className={cardClass} data-testid={testId} aria-label={title}>
       <h2 className="text-lg font-extrabold">{title}</h2>
@@ -94,7 +148,10 @@ function MatchColumn({ title, side, testId, empty }: { title: string; side: Benc
 }
 
 function RankedMatches({ label, match }: { label: string; match: BenchMatch }) {
-  const ranked = [{ termId: match.termId ?? '—', label: match.label, score: match.score }, ...match.alternatives.filter((a) => a.termId !== match.termId)];
+  const ranked = [
+    { termId: match.termId ?? '—', label: match.label, score: match.score },
+    ...match.alternatives.filter((a) => a.termId !== match.termId),
+  ];
   return (
     <div className="space-y-2">
       <p className="text-sm text-muted">{label}</p>
@@ -103,14 +160,33 @@ function RankedMatches({ label, match }: { label: string; match: BenchMatch }) {
       </p>
       <p className="text-sm">
         kind <b>{match.kind}</b>
-        {match.position && <> · position <b>{match.position}</b></>}
+        {match.position && (
+          <>
+            {' '}
+            · position <b>{match.position}</b>
+          </>
+        )}
         {match.severity && <> · {match.severity === 'major' ? '■ major' : '△ minor'}</>}
-        {match.value !== null && <> · value <b className="tabular-nums">{match.value} {match.unit}</b></>}
+        {match.value !== null && (
+          <>
+            {' '}
+            · value{' '}
+            <b className="tabular-nums">
+              {match.value} {match.unit}
+            </b>
+          </>
+        )}
       </p>
       <ol className="space-y-1">
         {ranked.map((r, i) => (
-          <li key={`${r.termId}-${i}`} className="flex flex-wrap items-center justify-between gap-2 border-t border-edge/15 pt-1">
-            <span><span className="tabular-nums text-muted">{i + 1}.</span> {r.label} <code className="text-sm text-muted">{r.termId}</code></span>
+          <li
+            key={`${r.termId}-${i}`}
+            className="flex flex-wrap items-center justify-between gap-2 border-t border-edge/15 pt-1"
+          >
+            <span>
+              <span className="text-muted tabular-nums">{i + 1}.</span> {r.label}{' '}
+              <code className="text-sm text-muted">{r.termId}</code>
+            </span>
             <ScoreBar score={r.score} />
           </li>
         ))}

@@ -6,7 +6,11 @@ import { PhraseList } from '@/components/trainer/phrase-list';
 import type { Grammar } from '@/lib/schemas/grammar';
 import type { EditFn } from './editor-client';
 
-const toId = (s: string) => s.toLowerCase().replace(/[^a-z0-9]+/g, '_').replace(/^_|_$/g, '');
+const toId = (s: string) =>
+  s
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '_')
+    .replace(/^_|_$/g, '');
 
 export function ConditionsPane({ grammar, edit, focus }: { grammar: Grammar; edit: EditFn; focus: string | null }) {
   const v = grammar.vocabulary;
@@ -20,7 +24,12 @@ export function ConditionsPane({ grammar, edit, focus }: { grammar: Grammar; edi
         <ul className="max-h-[32rem] overflow-y-auto">
           {v.conditions.map((c) => (
             <li key={c.id}>
-              <button type="button" onClick={() => setSelectedId(c.id)} aria-current={c.id === selectedId} className={`flex w-full justify-between rounded px-2 py-1 text-left ${c.id === selectedId ? 'bg-ink font-bold text-ground' : 'hover:bg-ground'}`}>
+              <button
+                type="button"
+                onClick={() => setSelectedId(c.id)}
+                aria-current={c.id === selectedId}
+                className={`flex w-full justify-between rounded px-2 py-1 text-left ${c.id === selectedId ? 'bg-ink font-bold text-ground' : 'hover:bg-ground'}`}
+              >
                 <span>{c.name}</span>
                 <span className="text-sm tabular-nums opacity-70">{c.phrases.length} ph</span>
               </button>
@@ -39,8 +48,16 @@ export function ConditionsPane({ grammar, edit, focus }: { grammar: Grammar; edi
             setNewName('');
           }}
         >
-          <input className={fieldClass} placeholder="new condition" value={newName} onChange={(e) => setNewName(e.target.value)} aria-label="New condition name" />
-          <button type="submit" className={buttonClass()} disabled={!newName.trim()}>Add</button>
+          <input
+            className={fieldClass}
+            placeholder="new condition"
+            value={newName}
+            onChange={(e) => setNewName(e.target.value)}
+            aria-label="New condition name"
+          />
+          <button type="submit" className={buttonClass()} disabled={!newName.trim()}>
+            Add
+          </button>
         </form>
       </section>
       <section className={`${cardClass} space-y-4`} aria-label="Condition">
@@ -50,12 +67,24 @@ export function ConditionsPane({ grammar, edit, focus }: { grammar: Grammar; edi
           <>
             <label className="block max-w-md">
               <span className="block text-sm font-bold">Condition name</span>
-              <input className={fieldClass} value={selected.name} onChange={(e) => edit((g) => void (g.vocabulary.conditions.find((c) => c.id === selected.id)!.name = e.target.value))} />
+              <input
+                className={fieldClass}
+                value={selected.name}
+                onChange={(e) =>
+                  edit((g) => void (g.vocabulary.conditions.find((c) => c.id === selected.id)!.name = e.target.value))
+                }
+              />
             </label>
             <div>
               <h3 className="mb-1 font-bold">Spoken phrases and synonyms</h3>
               <p className="mb-2 text-sm text-muted">Shared by every component with this condition ({users.length}).</p>
-              <PhraseList label={selected.name} phrases={selected.phrases} onChange={(next) => edit((g) => void (g.vocabulary.conditions.find((c) => c.id === selected.id)!.phrases = next))} />
+              <PhraseList
+                label={selected.name}
+                phrases={selected.phrases}
+                onChange={(next) =>
+                  edit((g) => void (g.vocabulary.conditions.find((c) => c.id === selected.id)!.phrases = next))
+                }
+              />
             </div>
             <div>
               <h3 className="mb-1 font-bold">Components with this condition</h3>

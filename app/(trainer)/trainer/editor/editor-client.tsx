@@ -30,10 +30,22 @@ export function EditorClient() {
       </div>
     );
   }
-  return <DraftEditor key={draft.id} id={draft.id} label={draft.label} saved={draft.grammar} updatedAt={draft.updatedAt} />;
+  return (
+    <DraftEditor key={draft.id} id={draft.id} label={draft.label} saved={draft.grammar} updatedAt={draft.updatedAt} />
+  );
 }
 
-function DraftEditor({ id, label, saved, updatedAt }: { id: string; label: string; saved: Grammar; updatedAt: string }) {
+function DraftEditor({
+  id,
+  label,
+  saved,
+  updatedAt,
+}: {
+  id: string;
+  label: string;
+  saved: Grammar;
+  updatedAt: string;
+}) {
   const [grammar, setGrammar] = useState(saved);
   const [dirty, setDirty] = useState(false);
   const [tab, setTab] = useState<(typeof tabs)[number]['id']>('terms');
@@ -77,13 +89,30 @@ function DraftEditor({ id, label, saved, updatedAt }: { id: string; label: strin
         >
           Discard
         </button>
-        <button type="button" className={buttonClass('primary')} disabled={!dirty || save.isPending || problems.length > 0} onClick={() => save.mutateAsync({ grammar, baseUpdatedAt: updatedAt }).then(() => setDirty(false), () => undefined)}>
+        <button
+          type="button"
+          className={buttonClass('primary')}
+          disabled={!dirty || save.isPending || problems.length > 0}
+          onClick={() =>
+            save.mutateAsync({ grammar, baseUpdatedAt: updatedAt }).then(
+              () => setDirty(false),
+              () => undefined,
+            )
+          }
+        >
           Save draft
         </button>
       </div>
       <div role="tablist" aria-label="Editor sections" className="flex gap-1">
         {tabs.map((t) => (
-          <button key={t.id} role="tab" type="button" aria-selected={tab === t.id} onClick={() => setTab(t.id)} className={`rounded-t-md border-2 border-b-0 px-3 py-1.5 font-bold ${tab === t.id ? 'border-edge bg-panel' : 'border-transparent text-muted hover:text-ink'}`}>
+          <button
+            key={t.id}
+            role="tab"
+            type="button"
+            aria-selected={tab === t.id}
+            onClick={() => setTab(t.id)}
+            className={`rounded-t-md border-2 border-b-0 px-3 py-1.5 font-bold ${tab === t.id ? 'border-edge bg-panel' : 'border-transparent text-muted hover:text-ink'}`}
+          >
             {t.label}
           </button>
         ))}

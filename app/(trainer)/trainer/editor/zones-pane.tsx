@@ -19,29 +19,59 @@ export function ZonesPane({ grammar, edit }: { grammar: Grammar; edit: EditFn })
   const [zoneId, setZoneId] = useState(inConfig[0]?.z.id ?? zones[0]!.id);
   const zoneIndex = zones.findIndex((z) => z.id === zoneId);
   const zone = zones[zoneIndex];
-  const items = zone ? zone.items.map((item, i) => ({ item, i })).filter(({ item }) => item.configurations.includes(config)) : [];
+  const items = zone
+    ? zone.items.map((item, i) => ({ item, i })).filter(({ item }) => item.configurations.includes(config))
+    : [];
   const components = [...grammar.vocabulary.components].sort((a, b) => a.name.localeCompare(b.name));
   const [newLabel, setNewLabel] = useState('');
   return (
     <div className="space-y-3">
       <label className="flex items-center gap-2">
         <span className="font-bold">Vehicle configuration</span>
-        <select className={`${fieldClass} max-w-xs`} value={config} onChange={(e) => setConfig(e.target.value as VehicleConfiguration)}>
-          {grammar.zones.configurations.map((c) => <option key={c.id} value={c.id}>{c.name}</option>)}
+        <select
+          className={`${fieldClass} max-w-xs`}
+          value={config}
+          onChange={(e) => setConfig(e.target.value as VehicleConfiguration)}
+        >
+          {grammar.zones.configurations.map((c) => (
+            <option key={c.id} value={c.id}>
+              {c.name}
+            </option>
+          ))}
         </select>
       </label>
       <div className="grid gap-3 lg:grid-cols-[20rem_1fr]">
         <section className={`${cardClass} p-2`} aria-label="Walk order">
-          <h2 className="px-2 pb-1 text-sm font-bold uppercase tracking-wide text-muted">Walk order</h2>
+          <h2 className="px-2 pb-1 text-sm font-bold tracking-wide text-muted uppercase">Walk order</h2>
           <ol>
             {inConfig.map(({ z, i }, n) => (
-              <li key={z.id} className={`flex items-center gap-1 rounded px-1 ${z.id === zoneId ? 'bg-ink text-ground' : ''}`}>
+              <li
+                key={z.id}
+                className={`flex items-center gap-1 rounded px-1 ${z.id === zoneId ? 'bg-ink text-ground' : ''}`}
+              >
                 <span className="w-6 text-right tabular-nums opacity-70">{n + 1}.</span>
                 <button type="button" className="grow px-1 py-1 text-left font-bold" onClick={() => setZoneId(z.id)}>
-                  {z.name} <span className="text-sm font-normal opacity-70">({z.items.filter((x) => x.configurations.includes(config)).length})</span>
+                  {z.name}{' '}
+                  <span className="text-sm font-normal opacity-70">
+                    ({z.items.filter((x) => x.configurations.includes(config)).length})
+                  </span>
                 </button>
-                <button type="button" aria-label={`Move ${z.name} earlier`} className="rounded px-1.5 hover:bg-ground hover:text-ink" onClick={() => edit((g) => move(g.zones.zones, i, inConfig[n - 1]?.i ?? -1))}>↑</button>
-                <button type="button" aria-label={`Move ${z.name} later`} className="rounded px-1.5 hover:bg-ground hover:text-ink" onClick={() => edit((g) => move(g.zones.zones, i, inConfig[n + 1]?.i ?? -1))}>↓</button>
+                <button
+                  type="button"
+                  aria-label={`Move ${z.name} earlier`}
+                  className="rounded px-1.5 hover:bg-ground hover:text-ink"
+                  onClick={() => edit((g) => move(g.zones.zones, i, inConfig[n - 1]?.i ?? -1))}
+                >
+                  ↑
+                </button>
+                <button
+                  type="button"
+                  aria-label={`Move ${z.name} later`}
+                  className="rounded px-1.5 hover:bg-ground hover:text-ink"
+                  onClick={() => edit((g) => move(g.zones.zones, i, inConfig[n + 1]?.i ?? -1))}
+                >
+                  ↓
+                </button>
               </li>
             ))}
           </ol>
@@ -49,7 +79,9 @@ export function ZonesPane({ grammar, edit }: { grammar: Grammar; edit: EditFn })
         <section className={`${cardClass} space-y-3`} aria-label="Checklist">
           {zone && (
             <>
-              <h2 className="text-xl font-extrabold">{zone.name}: checklist for {grammar.zones.configurations.find((c) => c.id === config)?.name}</h2>
+              <h2 className="text-xl font-extrabold">
+                {zone.name}: checklist for {grammar.zones.configurations.find((c) => c.id === config)?.name}
+              </h2>
               <table className="w-full text-left">
                 <thead className="text-sm text-muted">
                   <tr>
@@ -64,17 +96,51 @@ export function ZonesPane({ grammar, edit }: { grammar: Grammar; edit: EditFn })
                   {items.map(({ item, i }, n) => (
                     <tr key={item.id} className="border-t border-edge/15">
                       <td className="py-1">
-                        <button type="button" aria-label={`Move ${item.label} up`} className="px-1" onClick={() => edit((g) => move(g.zones.zones[zoneIndex]!.items, i, items[n - 1]?.i ?? -1))}>↑</button>
-                        <button type="button" aria-label={`Move ${item.label} down`} className="px-1" onClick={() => edit((g) => move(g.zones.zones[zoneIndex]!.items, i, items[n + 1]?.i ?? -1))}>↓</button>
+                        <button
+                          type="button"
+                          aria-label={`Move ${item.label} up`}
+                          className="px-1"
+                          onClick={() => edit((g) => move(g.zones.zones[zoneIndex]!.items, i, items[n - 1]?.i ?? -1))}
+                        >
+                          ↑
+                        </button>
+                        <button
+                          type="button"
+                          aria-label={`Move ${item.label} down`}
+                          className="px-1"
+                          onClick={() => edit((g) => move(g.zones.zones[zoneIndex]!.items, i, items[n + 1]?.i ?? -1))}
+                        >
+                          ↓
+                        </button>
                       </td>
                       <td className="w-1/2 py-1 pr-2">
-                        <input aria-label={`Label of ${item.id}`} className={fieldClass} value={item.label} onChange={(e) => edit((g) => void (g.zones.zones[zoneIndex]!.items[i]!.label = e.target.value))} />
+                        <input
+                          aria-label={`Label of ${item.id}`}
+                          className={fieldClass}
+                          value={item.label}
+                          onChange={(e) =>
+                            edit((g) => void (g.zones.zones[zoneIndex]!.items[i]!.label = e.target.value))
+                          }
+                        />
                       </td>
                       <td className="py-1 pr-2">
-                        <select aria-label={`Component of ${item.label}`} className={fieldClass} value={item.component} onChange={(e) => edit((g) => void (g.zones.zones[zoneIndex]!.items[i]!.component = e.target.value))}>
-                          {components.map((c) => <option key={c.id} value={c.id}>{c.name}</option>)}
+                        <select
+                          aria-label={`Component of ${item.label}`}
+                          className={fieldClass}
+                          value={item.component}
+                          onChange={(e) =>
+                            edit((g) => void (g.zones.zones[zoneIndex]!.items[i]!.component = e.target.value))
+                          }
+                        >
+                          {components.map((c) => (
+                            <option key={c.id} value={c.id}>
+                              {c.name}
+                            </option>
+                          ))}
                         </select>
-                        {item.measure && <span className="text-sm text-muted">reading: {item.measure.replace(/_/g, ' ')}</span>}
+                        {item.measure && (
+                          <span className="text-sm text-muted">reading: {item.measure.replace(/_/g, ' ')}</span>
+                        )}
                       </td>
                       <td className="py-1 pr-2 text-sm">
                         {grammar.zones.configurations.map((c) => (
@@ -83,17 +149,29 @@ export function ZonesPane({ grammar, edit }: { grammar: Grammar; edit: EditFn })
                               type="checkbox"
                               checked={item.configurations.includes(c.id)}
                               disabled={item.configurations.length === 1 && item.configurations.includes(c.id)}
-                              onChange={(e) => edit((g) => {
-                                const it = g.zones.zones[zoneIndex]!.items[i]!;
-                                it.configurations = e.target.checked ? [...it.configurations, c.id] : it.configurations.filter((x) => x !== c.id);
-                              })}
+                              onChange={(e) =>
+                                edit((g) => {
+                                  const it = g.zones.zones[zoneIndex]!.items[i]!;
+                                  it.configurations = e.target.checked
+                                    ? [...it.configurations, c.id]
+                                    : it.configurations.filter((x) => x !== c.id);
+                                })
+                              }
                             />
                             {c.id === 'bobtail' ? 'bobtail' : 'with trailer'}
                           </label>
                         ))}
                       </td>
                       <td className="py-1">
-                        <button type="button" className={buttonClass()} disabled={zone.items.length <= 1} aria-label={`Remove ${item.label}`} onClick={() => edit((g) => void g.zones.zones[zoneIndex]!.items.splice(i, 1))}>×</button>
+                        <button
+                          type="button"
+                          className={buttonClass()}
+                          disabled={zone.items.length <= 1}
+                          aria-label={`Remove ${item.label}`}
+                          onClick={() => edit((g) => void g.zones.zones[zoneIndex]!.items.splice(i, 1))}
+                        >
+                          ×
+                        </button>
                       </td>
                     </tr>
                   ))}
@@ -104,17 +182,32 @@ export function ZonesPane({ grammar, edit }: { grammar: Grammar; edit: EditFn })
                 onSubmit={(e) => {
                   e.preventDefault();
                   const label = newLabel.trim();
-                  const slug = label.toLowerCase().replace(/[^a-z0-9]+/g, '_').replace(/^_|_$/g, '');
+                  const slug = label
+                    .toLowerCase()
+                    .replace(/[^a-z0-9]+/g, '_')
+                    .replace(/^_|_$/g, '');
                   if (!slug) return;
                   const id = `${zone.id}.${slug}`;
                   if (zone.items.some((x) => x.id === id)) return;
-                  const component = grammar.vocabulary.components.find((c) => c.zones.includes(zone.id))?.id ?? components[0]!.id;
-                  edit((g) => void g.zones.zones[zoneIndex]!.items.push({ id, label, component, configurations: [config] }));
+                  const component =
+                    grammar.vocabulary.components.find((c) => c.zones.includes(zone.id))?.id ?? components[0]!.id;
+                  edit(
+                    (g) =>
+                      void g.zones.zones[zoneIndex]!.items.push({ id, label, component, configurations: [config] }),
+                  );
                   setNewLabel('');
                 }}
               >
-                <input className={fieldClass} placeholder="new checklist item" value={newLabel} onChange={(e) => setNewLabel(e.target.value)} aria-label="New checklist item" />
-                <button type="submit" className={buttonClass()} disabled={!newLabel.trim()}>Add item</button>
+                <input
+                  className={fieldClass}
+                  placeholder="new checklist item"
+                  value={newLabel}
+                  onChange={(e) => setNewLabel(e.target.value)}
+                  aria-label="New checklist item"
+                />
+                <button type="submit" className={buttonClass()} disabled={!newLabel.trim()}>
+                  Add item
+                </button>
               </form>
             </>
           )}

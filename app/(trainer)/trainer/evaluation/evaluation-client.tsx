@@ -6,7 +6,14 @@ import { buttonClass, cardClass, fieldClass, pct } from '@/components/trainer/co
 import { OpenDraftButton } from '@/components/trainer/open-draft-button';
 import { useVersions } from '@/components/trainer/use-draft';
 import { ApiError } from '@/lib/http/fetch-json';
-import { testSetOptions, useEvaluationMutation, useImportGrammarMutation, usePublishMutation, useSaveTestSetMutation, type PublishResult } from '@/lib/queries/vocabulary';
+import {
+  testSetOptions,
+  useEvaluationMutation,
+  useImportGrammarMutation,
+  usePublishMutation,
+  useSaveTestSetMutation,
+  type PublishResult,
+} from '@/lib/queries/vocabulary';
 import type { EvaluationLine, EvaluationReport, Figures } from '@/lib/schemas/vocabulary';
 
 const grammarFiles = ['vocabulary', 'commands', 'positions', 'numbers', 'zones'] as const;
@@ -18,13 +25,25 @@ export function EvaluationClient() {
   return (
     <div className="space-y-4">
       {published && (
-        <p role="status" className="rounded-lg border-2 border-pass bg-panel px-4 py-2 text-lg font-bold" data-testid="published-notice">
-          <span className="text-pass">✓</span> Published “{published.version.label}”{published.override ? ' with an override (reason kept in the audit log)' : ''}: top-1 {published.evaluation.figures.top1}/{published.evaluation.figures.total}, top-3 {published.evaluation.figures.top3}/{published.evaluation.figures.total}. New inspections use it from now on.
+        <p
+          role="status"
+          className="rounded-lg border-2 border-pass bg-panel px-4 py-2 text-lg font-bold"
+          data-testid="published-notice"
+        >
+          <span className="text-pass">✓</span> Published “{published.version.label}”
+          {published.override ? ' with an override (reason kept in the audit log)' : ''}: top-1{' '}
+          {published.evaluation.figures.top1}/{published.evaluation.figures.total}, top-3{' '}
+          {published.evaluation.figures.top3}/{published.evaluation.figures.total}. New inspections use it from now on.
         </p>
       )}
       <TestSetCard />
       {draftSummary ? (
-        <DraftEvaluation key={draftSummary.id} id={draftSummary.id} label={draftSummary.label} onPublished={setPublished} />
+        <DraftEvaluation
+          key={draftSummary.id}
+          id={draftSummary.id}
+          label={draftSummary.label}
+          onPublished={setPublished}
+        />
       ) : (
         <div className={`${cardClass} flex items-center gap-3`}>
           <span>No draft is open{publishedSummary ? `; drivers use “${publishedSummary.label}”` : ''}.</span>
@@ -47,14 +66,17 @@ function TestSetCard() {
         <p>
           {set.data ? (
             <>
-              <b>{set.data.name}</b> · <span className="tabular-nums">{set.data.count}</span> lines · {set.data.source === 'fleet' ? 'this fleet’s own' : 'the built-in set'}
+              <b>{set.data.name}</b> · <span className="tabular-nums">{set.data.count}</span> lines ·{' '}
+              {set.data.source === 'fleet' ? 'this fleet’s own' : 'the built-in set'}
             </>
           ) : (
             '…'
           )}
         </p>
       </div>
-      <a className={buttonClass()} href="/api/vocabulary/test-set?format=jsonl">Export JSONL</a>
+      <a className={buttonClass()} href="/api/vocabulary/test-set?format=jsonl">
+        Export JSONL
+      </a>
       <label className="flex items-center gap-2">
         <span className="text-sm font-bold">Import JSONL</span>
         <input
@@ -68,11 +90,20 @@ function TestSetCard() {
         />
       </label>
       {picked && (
-        <button type="button" className={buttonClass('primary')} disabled={save.isPending} onClick={() => save.mutate(picked, { onSuccess: () => setPicked(null) })}>
+        <button
+          type="button"
+          className={buttonClass('primary')}
+          disabled={save.isPending}
+          onClick={() => save.mutate(picked, { onSuccess: () => setPicked(null) })}
+        >
           Use “{picked.name}” as this fleet’s set
         </button>
       )}
-      {save.error && <p role="alert" className="w-full text-sm font-bold text-major">{save.error.message}</p>}
+      {save.error && (
+        <p role="alert" className="w-full text-sm font-bold text-major">
+          {save.error.message}
+        </p>
+      )}
     </section>
   );
 }
@@ -80,7 +111,7 @@ function TestSetCard() {
 function FigureCard({ title, figures, testId }: { title: string; figures: Figures; testId: string }) {
   return (
     <div className={cardClass} data-testid={testId}>
-      <h3 className="text-sm font-bold uppercase tracking-wide text-muted">{title}</h3>
+      <h3 className="text-sm font-bold tracking-wide text-muted uppercase">{title}</h3>
       <p className="text-3xl font-extrabold tabular-nums">{pct(figures.top1Rate)}</p>
       <p className="tabular-nums">
         top-1 {figures.top1}/{figures.total} · top-3 {figures.top3}/{figures.total} ({pct(figures.top3Rate)})
@@ -92,14 +123,25 @@ function FigureCard({ title, figures, testId }: { title: string; figures: Figure
 const signed = (n: number) => (n > 0 ? `+${n}` : n === 0 ? '±0' : `−${Math.abs(n)}`);
 
 function Difference({ report }: { report: EvaluationReport }) {
-  if (!report.published) return <div className={cardClass}><h3 className="text-sm font-bold uppercase tracking-wide text-muted">Difference</h3><p>Nothing published yet to compare with.</p></div>;
+  if (!report.published)
+    return (
+      <div className={cardClass}>
+        <h3 className="text-sm font-bold tracking-wide text-muted uppercase">Difference</h3>
+        <p>Nothing published yet to compare with.</p>
+      </div>
+    );
   const d1 = report.figures.top1 - report.published.figures.top1;
   const d3 = report.figures.top3 - report.published.figures.top3;
   const worse = report.lowersAccuracy;
   return (
     <div className={`${cardClass} ${worse ? 'border-major' : ''}`} data-testid="evaluation-difference">
-      <h3 className="text-sm font-bold uppercase tracking-wide text-muted">Difference from “{report.published.label}”</h3>
-      <p className="text-3xl font-extrabold tabular-nums">{worse ? '▼ ' : d1 > 0 ? '▲ ' : ''}{signed(d1)} top-1</p>
+      <h3 className="text-sm font-bold tracking-wide text-muted uppercase">
+        Difference from “{report.published.label}”
+      </h3>
+      <p className="text-3xl font-extrabold tabular-nums">
+        {worse ? '▼ ' : d1 > 0 ? '▲ ' : ''}
+        {signed(d1)} top-1
+      </p>
       <p className="tabular-nums">
         {signed(d3)} top-3 · {report.newlyFixed.length} newly right · {report.newlyMissed.length} newly missed
       </p>
@@ -130,8 +172,13 @@ function LineTable({ lines, caption }: { lines: EvaluationLine[]; caption: strin
             <tr key={`${l.text}-${i}`} className="border-t border-edge/15">
               <td className="py-1 pr-2">{l.text}</td>
               <td className="py-1 pr-2 text-sm">{l.zone?.replace(/_/g, ' ') ?? '—'}</td>
-              <td className="py-1 pr-2"><code className="text-sm">{l.expected}</code></td>
-              <td className="py-1 pr-2"><code className="text-sm">{l.got}</code>{l.top3 && <span className="ml-1 text-sm text-muted">(in top 3)</span>}</td>
+              <td className="py-1 pr-2">
+                <code className="text-sm">{l.expected}</code>
+              </td>
+              <td className="py-1 pr-2">
+                <code className="text-sm">{l.got}</code>
+                {l.top3 && <span className="ml-1 text-sm text-muted">(in top 3)</span>}
+              </td>
               <td className="py-1 text-right tabular-nums">{l.score.toFixed(2)}</td>
             </tr>
           ))}
@@ -141,7 +188,15 @@ function LineTable({ lines, caption }: { lines: EvaluationLine[]; caption: strin
   );
 }
 
-function DraftEvaluation({ id, label, onPublished }: { id: string; label: string; onPublished: (r: PublishResult) => void }) {
+function DraftEvaluation({
+  id,
+  label,
+  onPublished,
+}: {
+  id: string;
+  label: string;
+  onPublished: (r: PublishResult) => void;
+}) {
   const evaluation = useEvaluationMutation(id);
   const publish = usePublishMutation(id);
   const [reason, setReason] = useState('');
@@ -153,16 +208,33 @@ function DraftEvaluation({ id, label, onPublished }: { id: string; label: string
         <p className="mr-auto text-lg">
           Draft <b>{label}</b>
         </p>
-        <button type="button" className={buttonClass('primary')} disabled={evaluation.isPending} onClick={() => evaluation.mutate()}>
+        <button
+          type="button"
+          className={buttonClass('primary')}
+          disabled={evaluation.isPending}
+          onClick={() => evaluation.mutate()}
+        >
           {evaluation.isPending ? 'Running…' : 'Run the evaluation'}
         </button>
       </div>
-      {evaluation.error && <p role="alert" className="font-bold text-major">{evaluation.error.message}</p>}
+      {evaluation.error && (
+        <p role="alert" className="font-bold text-major">
+          {evaluation.error.message}
+        </p>
+      )}
       {report && (
         <>
           <div className="grid gap-3 md:grid-cols-3">
             <FigureCard title={`Draft “${report.version.label}”`} figures={report.figures} testId="evaluation-draft" />
-            {report.published ? <FigureCard title={`Published “${report.published.label}”`} figures={report.published.figures} testId="evaluation-published" /> : <div className={cardClass}>No published version.</div>}
+            {report.published ? (
+              <FigureCard
+                title={`Published “${report.published.label}”`}
+                figures={report.published.figures}
+                testId="evaluation-published"
+              />
+            ) : (
+              <div className={cardClass}>No published version.</div>
+            )}
             <Difference report={report} />
           </div>
           <LineTable lines={report.newlyMissed} caption="Newly missed by the draft" />
@@ -172,26 +244,52 @@ function DraftEvaluation({ id, label, onPublished }: { id: string; label: string
       )}
       <div className={`${cardClass} space-y-2`} aria-label="Publish">
         <h2 className="text-lg font-extrabold">Publish</h2>
-        <p>New inspections use the published version from the moment it is published; inspections already started keep theirs. A published version cannot be changed.</p>
+        <p>
+          New inspections use the published version from the moment it is published; inspections already started keep
+          theirs. A published version cannot be changed.
+        </p>
         <>
-            {needsReason && (
-              <label className="block">
-                <span className="block text-sm font-bold">Why publish a draft that scores lower? (kept in the audit log)</span>
-                <textarea className={`${fieldClass} min-h-20`} value={reason} onChange={(e) => setReason(e.target.value)} maxLength={500} />
-              </label>
+          {needsReason && (
+            <label className="block">
+              <span className="block text-sm font-bold">
+                Why publish a draft that scores lower? (kept in the audit log)
+              </span>
+              <textarea
+                className={`${fieldClass} min-h-20`}
+                value={reason}
+                onChange={(e) => setReason(e.target.value)}
+                maxLength={500}
+              />
+            </label>
+          )}
+          <div className="flex flex-wrap gap-2">
+            {needsReason ? (
+              <button
+                type="button"
+                className={buttonClass('danger')}
+                disabled={reason.trim().length < 10 || publish.isPending}
+                onClick={() =>
+                  publish.mutateAsync({ override: { reason: reason.trim() } }).then(onPublished, () => undefined)
+                }
+              >
+                Publish anyway, with this reason
+              </button>
+            ) : (
+              <button
+                type="button"
+                className={buttonClass('primary')}
+                disabled={publish.isPending}
+                onClick={() => publish.mutateAsync({}).then(onPublished, () => undefined)}
+              >
+                Publish the draft
+              </button>
             )}
-            <div className="flex flex-wrap gap-2">
-              {needsReason ? (
-                <button type="button" className={buttonClass('danger')} disabled={reason.trim().length < 10 || publish.isPending} onClick={() => publish.mutateAsync({ override: { reason: reason.trim() } }).then(onPublished, () => undefined)}>
-                  Publish anyway, with this reason
-                </button>
-              ) : (
-                <button type="button" className={buttonClass('primary')} disabled={publish.isPending} onClick={() => publish.mutateAsync({}).then(onPublished, () => undefined)}>
-                  Publish the draft
-                </button>
-              )}
-            </div>
-            {publish.error && <p role="alert" className="text-sm font-bold text-major">{publish.error.message}</p>}
+          </div>
+          {publish.error && (
+            <p role="alert" className="text-sm font-bold text-major">
+              {publish.error.message}
+            </p>
+          )}
         </>
       </div>
     </section>
@@ -204,7 +302,9 @@ function GrammarFilesCard({ draftId, publishedId }: { draftId: string | null; pu
   return (
     <section className={`${cardClass} space-y-2`} aria-label="Grammar files">
       <h2 className="text-lg font-extrabold">Grammar files</h2>
-      <p className="text-sm text-muted">The same format as the grammars/ folder: export a version’s files, or import files into the draft.</p>
+      <p className="text-sm text-muted">
+        The same format as the grammars/ folder: export a version’s files, or import files into the draft.
+      </p>
       {[
         ['Draft', draftId],
         ['Published', publishedId],
@@ -217,7 +317,9 @@ function GrammarFilesCard({ draftId, publishedId }: { draftId: string | null; pu
                 {f}.json
               </a>
             ))}
-            <a className="underline" href={`/api/vocabulary/versions/${id}/export`}>all in one</a>
+            <a className="underline" href={`/api/vocabulary/versions/${id}/export`}>
+              all in one
+            </a>
           </p>
         ) : null,
       )}
@@ -241,12 +343,19 @@ function GrammarFilesCard({ draftId, publishedId }: { draftId: string | null; pu
               setMessage('That file is not JSON.');
               return;
             }
-            importer.mutate({ files }, { onSuccess: (r) => setMessage(`Imported ${r.files.join(', ')} into draft “${r.version.label}”.`) });
+            importer.mutate(
+              { files },
+              { onSuccess: (r) => setMessage(`Imported ${r.files.join(', ')} into draft “${r.version.label}”.`) },
+            );
           }}
         />
       </label>
       {message && <p role="status">{message}</p>}
-      {importer.error && <p role="alert" className="text-sm font-bold text-major">{importer.error.message}</p>}
+      {importer.error && (
+        <p role="alert" className="text-sm font-bold text-major">
+          {importer.error.message}
+        </p>
+      )}
     </section>
   );
 }

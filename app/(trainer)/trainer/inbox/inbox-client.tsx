@@ -7,10 +7,19 @@ import { useHydrated } from '@/components/ui/use-hydrated';
 import { buttonClass, cardClass, chipClass, fieldClass } from '@/components/trainer/controls';
 import { OpenDraftButton } from '@/components/trainer/open-draft-button';
 import { useVersions } from '@/components/trainer/use-draft';
-import { inboxOptions, useAddPhraseMutation, useDismissUtterancesMutation, type AddPhraseResult } from '@/lib/queries/vocabulary';
+import {
+  inboxOptions,
+  useAddPhraseMutation,
+  useDismissUtterancesMutation,
+  type AddPhraseResult,
+} from '@/lib/queries/vocabulary';
 import type { FieldUtteranceGroup } from '@/lib/schemas/vocabulary';
 
-const outcomeWords: Record<string, string> = { unmatched: 'matched nothing', low_score: 'unsure match', corrected: 'corrected by the driver' };
+const outcomeWords: Record<string, string> = {
+  unmatched: 'matched nothing',
+  low_score: 'unsure match',
+  corrected: 'corrected by the driver',
+};
 
 export function InboxClient() {
   const inbox = useQuery(inboxOptions());
@@ -20,16 +29,26 @@ export function InboxClient() {
     const out = new Map<string, string>();
     if (!draft) return out;
     const cond = new Map(draft.grammar.vocabulary.conditions.map((c) => [c.id, c.name]));
-    for (const c of draft.grammar.vocabulary.components) for (const d of c.defects) out.set(`${c.name}, ${cond.get(d.condition) ?? d.condition}`, `${c.id}:${d.condition}`);
+    for (const c of draft.grammar.vocabulary.components)
+      for (const d of c.defects)
+        out.set(`${c.name}, ${cond.get(d.condition) ?? d.condition}`, `${c.id}:${d.condition}`);
     return out;
   }, [draft]);
   if (inbox.isPending) return <p className="text-muted">Loading the inbox…</p>;
-  if (inbox.error) return <p role="alert" className="font-bold text-major">{inbox.error.message}</p>;
+  if (inbox.error)
+    return (
+      <p role="alert" className="font-bold text-major">
+        {inbox.error.message}
+      </p>
+    );
   const groups = inbox.data.groups;
   return (
     <div className="space-y-3">
       <p className="text-lg">
-        What drivers said that matched nothing, matched unsurely, or that they corrected: <b className="tabular-nums">{inbox.data.total}</b> utterances in <b className="tabular-nums">{groups.length}</b> groups of similar text. Adding one as a phrase changes the draft only; drivers get it when the draft is published.
+        What drivers said that matched nothing, matched unsurely, or that they corrected:{' '}
+        <b className="tabular-nums">{inbox.data.total}</b> utterances in <b className="tabular-nums">{groups.length}</b>{' '}
+        groups of similar text. Adding one as a phrase changes the draft only; drivers get it when the draft is
+        published.
       </p>
       {!draftSummary && (
         <div className={`${cardClass} flex items-center gap-3`}>
@@ -38,24 +57,48 @@ export function InboxClient() {
         </div>
       )}
       {notice && (
-        <p className="rounded-lg border-2 border-pass bg-panel px-4 py-2 text-base" role="status" data-testid="phrase-added">
-          <span className="font-bold text-pass">✓</span> “{notice.heard}”: added “<b>{notice.phrase}</b>” to {notice.slot} <b>{notice.target}</b>. The draft now reads it as <b>{notice.match.label}</b> (score {notice.match.score.toFixed(2)}).
+        <p
+          className="rounded-lg border-2 border-pass bg-panel px-4 py-2 text-base"
+          role="status"
+          data-testid="phrase-added"
+        >
+          <span className="font-bold text-pass">✓</span> “{notice.heard}”: added “<b>{notice.phrase}</b>” to{' '}
+          {notice.slot} <b>{notice.target}</b>. The draft now reads it as <b>{notice.match.label}</b> (score{' '}
+          {notice.match.score.toFixed(2)}).
         </p>
       )}
       <datalist id="term-options">
-        {[...terms.keys()].map((label) => <option key={label} value={label} />)}
+        {[...terms.keys()].map((label) => (
+          <option key={label} value={label} />
+        ))}
       </datalist>
       {groups.length === 0 && <p className={cardClass}>The inbox is empty.</p>}
       <ul className="space-y-2">
         {groups.map((g) => (
-          <InboxGroup key={g.key} group={g} draftId={draft?.id ?? null} terms={terms} onAdded={(r) => setNotice({ ...r, heard: g.text })} />
+          <InboxGroup
+            key={g.key}
+            group={g}
+            draftId={draft?.id ?? null}
+            terms={terms}
+            onAdded={(r) => setNotice({ ...r, heard: g.text })}
+          />
         ))}
       </ul>
     </div>
   );
 }
 
-function InboxGroup({ group, draftId, terms, onAdded }: { group: FieldUtteranceGroup; draftId: string | null; terms: Map<string, string>; onAdded: (r: AddPhraseResult) => void }) {
+function InboxGroup({
+  group,
+  draftId,
+  terms,
+  onAdded,
+}: {
+  group: FieldUtteranceGroup;
+  draftId: string | null;
+  terms: Map<string, string>;
+  onAdded: (r: AddPhraseResult) => void;
+}) {
   const hydrated = useHydrated();
   const [term, setTerm] = useState(group.suggestion?.label ?? '');
   const add = useAddPhraseMutation(draftId ?? 'none');
@@ -65,7 +108,10 @@ function InboxGroup({ group, draftId, terms, onAdded }: { group: FieldUtteranceG
     <li className={`${cardClass} grid gap-3 lg:grid-cols-[1fr_26rem]`} data-testid="inbox-group">
       <div className="space-y-1">
         <p className="text-xl font-bold">
-          “{group.text}” <span className="ml-2 rounded bg-ink px-2 py-0.5 text-base tabular-nums text-ground" title="times heard">×{group.count}</span>
+          “{group.text}”{' '}
+          <span className="ml-2 rounded bg-ink px-2 py-0.5 text-base text-ground tabular-nums" title="times heard">
+            ×{group.count}
+          </span>
         </p>
         {group.variants.length > 1 && (
           <ul className="flex flex-wrap gap-1.5" aria-label="Similar">
@@ -77,33 +123,55 @@ function InboxGroup({ group, draftId, terms, onAdded }: { group: FieldUtteranceG
           </ul>
         )}
         <p className="text-sm text-muted">
-          {Object.entries(group.outcomes).map(([k, n]) => `${n} ${outcomeWords[k] ?? k}`).join(' · ')}
-          {group.zones.length > 0 && ` · ${group.zones.map((z) => z.replace(/_/g, ' ')).join(', ')}`} · last {formatDateTime(group.lastSeen, hydrated ? undefined : 'UTC')}
+          {Object.entries(group.outcomes)
+            .map(([k, n]) => `${n} ${outcomeWords[k] ?? k}`)
+            .join(' · ')}
+          {group.zones.length > 0 && ` · ${group.zones.map((z) => z.replace(/_/g, ' ')).join(', ')}`} · last{' '}
+          {formatDateTime(group.lastSeen, hydrated ? undefined : 'UTC')}
         </p>
       </div>
       <div className="space-y-2">
         <>
-            <label className="block">
-              <span className="block text-sm font-bold">Term (component, condition)</span>
-              <input className={fieldClass} list="term-options" value={term} onChange={(e) => setTerm(e.target.value)} placeholder="type to find a term" aria-label={`Term for “${group.text}”`} />
-            </label>
-            <div className="flex flex-wrap gap-2">
-              <button
-                type="button"
-                className={buttonClass('primary')}
-                disabled={!draftId || !termKey || add.isPending}
-                onClick={() => {
-                  // The group leaves the list once resolved, so the notice is raised by the list.
-                  if (termKey) add.mutateAsync({ termKey, text: group.text, utteranceIds: group.ids }).then(onAdded, () => undefined);
-                }}
-              >
-                Add as phrase of {termKey ? term : 'this term'}
-              </button>
-              <button type="button" className={buttonClass()} disabled={dismiss.isPending} onClick={() => dismiss.mutate(group.ids)}>
-                Dismiss
-              </button>
-            </div>
-            {add.error && <p role="alert" className="text-sm font-bold text-major">{add.error.message}</p>}
+          <label className="block">
+            <span className="block text-sm font-bold">Term (component, condition)</span>
+            <input
+              className={fieldClass}
+              list="term-options"
+              value={term}
+              onChange={(e) => setTerm(e.target.value)}
+              placeholder="type to find a term"
+              aria-label={`Term for “${group.text}”`}
+            />
+          </label>
+          <div className="flex flex-wrap gap-2">
+            <button
+              type="button"
+              className={buttonClass('primary')}
+              disabled={!draftId || !termKey || add.isPending}
+              onClick={() => {
+                // The group leaves the list once resolved, so the notice is raised by the list.
+                if (termKey)
+                  add
+                    .mutateAsync({ termKey, text: group.text, utteranceIds: group.ids })
+                    .then(onAdded, () => undefined);
+              }}
+            >
+              Add as phrase of {termKey ? term : 'this term'}
+            </button>
+            <button
+              type="button"
+              className={buttonClass()}
+              disabled={dismiss.isPending}
+              onClick={() => dismiss.mutate(group.ids)}
+            >
+              Dismiss
+            </button>
+          </div>
+          {add.error && (
+            <p role="alert" className="text-sm font-bold text-major">
+              {add.error.message}
+            </p>
+          )}
         </>
       </div>
     </li>

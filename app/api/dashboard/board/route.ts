@@ -1,4 +1,6 @@
 import { defineRoute } from '@/lib/api/define-route';
 import { getSupervisorBoard } from '@/lib/services/get-supervisor-board';
 
-export const GET = defineRoute({ roles: ['supervisor'] }, async ({ user }) => Response.json(await getSupervisorBoard({ fleetId: user.fleetId })));
+export const GET = defineRoute({ roles: ['supervisor'] }, async ({ user }) =>
+  Response.json(await getSupervisorBoard({ fleetId: user.fleetId })),
+);

@@ -2,6 +2,7 @@ import { defineRoute } from '@/lib/api/define-route';
 import { idParamsSchema } from '@/lib/schemas/common';
 import { getDefectOrThrow } from '@/lib/services/get-defect-or-throw';
 
-export const GET = defineRoute({ roles: ['mechanic', 'supervisor'], params: idParamsSchema }, async ({ user, params }) =>
-  Response.json(await getDefectOrThrow({ fleetId: user.fleetId, id: params.id })),
+export const GET = defineRoute(
+  { roles: ['mechanic', 'supervisor'], params: idParamsSchema },
+  async ({ user, params }) => Response.json(await getDefectOrThrow({ fleetId: user.fleetId, id: params.id })),
 );

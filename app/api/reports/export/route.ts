@@ -6,6 +6,10 @@ import { exportReportsCsv } from '@/lib/services/export-reports-csv';
 export const GET = defineRoute({ roles: ['supervisor'], query: exportReportsQuerySchema }, async ({ user, query }) => {
   const stamp = new Date().toISOString().slice(0, 10);
   return new Response(exportReportsCsv({ fleetId: user.fleetId, query }), {
-    headers: { 'content-type': 'text/csv; charset=utf-8', 'content-disposition': `attachment; filename="inspection-reports-${stamp}.csv"`, 'cache-control': 'no-store' },
+    headers: {
+      'content-type': 'text/csv; charset=utf-8',
+      'content-disposition': `attachment; filename="inspection-reports-${stamp}.csv"`,
+      'cache-control': 'no-store',
+    },
   });
 });

@@ -3,4 +3,6 @@ import { benchBodySchema } from '@/lib/schemas/vocabulary';
 import { runTestBench } from '@/lib/services/run-test-bench';
 
 // One typed or spoken utterance through the draft and the published version.
-export const POST = defineRoute({ roles: ['trainer'], body: benchBodySchema }, async ({ user, body }) => Response.json(await runTestBench({ fleetId: user.fleetId, body })));
+export const POST = defineRoute({ roles: ['trainer'], body: benchBodySchema }, async ({ user, body }) =>
+  Response.json(await runTestBench({ fleetId: user.fleetId, body })),
+);

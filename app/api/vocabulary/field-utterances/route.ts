@@ -4,7 +4,9 @@ import { dismissFieldUtterances } from '@/lib/services/dismiss-field-utterances'
 import { listFieldUtterances } from '@/lib/services/list-field-utterances';
 
 // The inbox: what drivers said that matched nothing, matched unsurely, or was corrected.
-export const GET = defineRoute({ roles: ['trainer'] }, async ({ user }) => Response.json(await listFieldUtterances({ fleetId: user.fleetId })));
+export const GET = defineRoute({ roles: ['trainer'] }, async ({ user }) =>
+  Response.json(await listFieldUtterances({ fleetId: user.fleetId })),
+);
 
 // Dismiss utterances that need no phrase (chatter, noise).
 export const PATCH = defineRoute({ roles: ['trainer'], body: dismissUtterancesBodySchema }, async ({ user, body }) =>

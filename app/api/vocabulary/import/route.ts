@@ -3,6 +3,7 @@ import { importGrammarBodySchema } from '@/lib/schemas/vocabulary';
 import { importGrammar } from '@/lib/services/import-grammar';
 
 // Load grammars/ files into the fleet's draft.
-export const POST = defineRoute({ roles: ['trainer'], body: importGrammarBodySchema, maxBodyBytes: 4 * 1024 * 1024 }, async ({ user, body }) =>
-  Response.json(await importGrammar({ fleetId: user.fleetId, actorId: user.id, body })),
+export const POST = defineRoute(
+  { roles: ['trainer'], body: importGrammarBodySchema, maxBodyBytes: 4 * 1024 * 1024 },
+  async ({ user, body }) => Response.json(await importGrammar({ fleetId: user.fleetId, actorId: user.id, body })),
 );

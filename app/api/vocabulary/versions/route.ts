@@ -5,7 +5,9 @@ import { createVersionBodySchema } from '@/lib/schemas/vocabulary';
 import { createDraftVersion } from '@/lib/services/create-draft-version';
 
 // The fleet's vocabulary versions: the open draft and every published one.
-export const GET = defineRoute({ roles: ['trainer'] }, async ({ user }) => Response.json({ versions: await listVocabularyVersions(getDb(), { fleetId: user.fleetId }) }));
+export const GET = defineRoute({ roles: ['trainer'] }, async ({ user }) =>
+  Response.json({ versions: await listVocabularyVersions(getDb(), { fleetId: user.fleetId }) }),
+);
 
 // Open the fleet's draft (201), or return the one already open (200).
 export const POST = defineRoute({ roles: ['trainer'], body: createVersionBodySchema }, async ({ user, body }) => {

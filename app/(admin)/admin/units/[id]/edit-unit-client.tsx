@@ -29,7 +29,8 @@ export function EditUnitClient({ id }: { id: string }) {
       </header>
       {unit.retiredAt ? (
         <FormNotice kind="error">
-          Retired on <span suppressHydrationWarning>{dateFormat.format(new Date(unit.retiredAt))}</span>. Its record is kept and can no longer change; it is not offered for new inspections.
+          Retired on <span suppressHydrationWarning>{dateFormat.format(new Date(unit.retiredAt))}</span>. Its record is
+          kept and can no longer change; it is not offered for new inspections.
         </FormNotice>
       ) : null}
       <UnitForm

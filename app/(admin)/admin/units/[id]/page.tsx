@@ -18,7 +18,10 @@ export default async function EditUnitPage({ params }: { params: Promise<{ id: s
   if (!unit) notFound();
   const qc = new QueryClient();
   qc.setQueryData(adminUnitKeys.detail(unit.id), unit);
-  await qc.prefetchQuery({ queryKey: fleetSettingsKeys.detail(), queryFn: async () => (await findFleetSettings(getDb(), { fleetId: user.fleetId })) ?? null });
+  await qc.prefetchQuery({
+    queryKey: fleetSettingsKeys.detail(),
+    queryFn: async () => (await findFleetSettings(getDb(), { fleetId: user.fleetId })) ?? null,
+  });
   return (
     <HydrationBoundary state={dehydrate(qc)}>
       <EditUnitClient id={unit.id} />

@@ -32,15 +32,29 @@ export function RetirePanel({ unit }: { unit: UnitDto }) {
         Retire this unit
       </h2>
       <p className="text-base text-muted">
-        For a unit sold, scrapped or returned. Its inspections and repairs stay on record, its number is not reused, and drivers can no longer pick it.
+        For a unit sold, scrapped or returned. Its inspections and repairs stay on record, its number is not reused, and
+        drivers can no longer pick it.
       </p>
       {confirming ? (
         <div className="flex flex-col gap-3 rounded-md border-slab border-major p-3">
           <Field id="retire-reason" label="Reason (optional)" error={firstError(errors, 'reason')}>
-            {(c) => <input {...c} className={inputClass} value={reason} onChange={(e) => setReason(e.target.value)} placeholder="e.g. sold, end of lease" />}
+            {(c) => (
+              <input
+                {...c}
+                className={inputClass}
+                value={reason}
+                onChange={(e) => setReason(e.target.value)}
+                placeholder="e.g. sold, end of lease"
+              />
+            )}
           </Field>
           <div className="flex flex-wrap gap-2">
-            <button type="button" className={officeButtonClass('danger')} disabled={retire.isPending} onClick={() => void onRetire()}>
+            <button
+              type="button"
+              className={officeButtonClass('danger')}
+              disabled={retire.isPending}
+              onClick={() => void onRetire()}
+            >
               Yes, retire unit {unit.unitNumber}
             </button>
             <button type="button" className={officeButtonClass('plain')} onClick={() => setConfirming(false)}>

@@ -2,7 +2,14 @@
 import type { AxlePosition, BrakeChamberType, UnitKind } from '@/lib/schemas/units';
 import type { TirePressureTargets } from '@/lib/schemas/fleet';
 
-export type AxleDraft = { key: string; position: AxlePosition; tireCount: 2 | 4; tires: string[]; coldPsi: string; chamber: BrakeChamberType | '' };
+export type AxleDraft = {
+  key: string;
+  position: AxlePosition;
+  tireCount: 2 | 4;
+  tires: string[];
+  coldPsi: string;
+  chamber: BrakeChamberType | '';
+};
 
 let counter = 0;
 export const draftKey = () => `axle-${(counter += 1)}`;
@@ -14,7 +21,12 @@ export function tireLabels(position: AxlePosition, index: number, count: 2 | 4):
   return count === 2 ? [`L${n}`, `R${n}`] : [`L${n}O`, `L${n}I`, `R${n}I`, `R${n}O`];
 }
 
-export function makeAxle(position: AxlePosition, index: number, targets: TirePressureTargets, over: Partial<AxleDraft> = {}): AxleDraft {
+export function makeAxle(
+  position: AxlePosition,
+  index: number,
+  targets: TirePressureTargets,
+  over: Partial<AxleDraft> = {},
+): AxleDraft {
   const tireCount = over.tireCount ?? (position === 'steer' ? 2 : 4);
   return {
     key: draftKey(),
@@ -36,9 +48,12 @@ export const layoutTemplates: LayoutTemplate[] = [
   { label: '1-axle trailer', kind: 'trailer', positions: ['trailer'] },
 ];
 
-export const fromTemplate = (t: LayoutTemplate, targets: TirePressureTargets) => t.positions.map((p, i) => makeAxle(p, i, targets));
+export const fromTemplate = (t: LayoutTemplate, targets: TirePressureTargets) =>
+  t.positions.map((p, i) => makeAxle(p, i, targets));
 
 /** Remove one axle; the axles behind it move up and get their tire names renumbered. */
 export function removeAxle(axles: AxleDraft[], index: number): AxleDraft[] {
-  return axles.filter((_, j) => j !== index).map((a, k) => (k >= index ? { ...a, tires: tireLabels(a.position, k, a.tireCount) } : a));
+  return axles
+    .filter((_, j) => j !== index)
+    .map((a, k) => (k >= index ? { ...a, tires: tireLabels(a.position, k, a.tireCount) } : a));
 }

@@ -25,7 +25,16 @@ const caCodes = plateJurisdictions.slice(51);
 /** What the form hands to `onSave`: checked by the same schema the API uses. */
 export type UnitFormBody = z.output<typeof createUnitBodySchema>;
 
-function toBody(s: { unitNumber: string; plate: string; plateJurisdiction: string; vin: string; make: string; model: string; year: string; axles: AxleDraft[] }) {
+function toBody(s: {
+  unitNumber: string;
+  plate: string;
+  plateJurisdiction: string;
+  vin: string;
+  make: string;
+  model: string;
+  year: string;
+  axles: AxleDraft[];
+}) {
   return {
     unitNumber: s.unitNumber,
     plate: s.plate,
@@ -34,7 +43,12 @@ function toBody(s: { unitNumber: string; plate: string; plateJurisdiction: strin
     make: s.make,
     model: s.model,
     year: numberOrNull(s.year),
-    axles: s.axles.map((a) => ({ position: a.position, tires: a.tires, coldPsi: numberOrNull(a.coldPsi), chamber: a.chamber })),
+    axles: s.axles.map((a) => ({
+      position: a.position,
+      tires: a.tires,
+      coldPsi: numberOrNull(a.coldPsi),
+      chamber: a.chamber,
+    })),
   };
 }
 
@@ -65,7 +79,14 @@ export function UnitForm({
   const [year, setYear] = useState(unit?.year != null ? String(unit.year) : '');
   const [axles, setAxles] = useState<AxleDraft[]>(() =>
     unit
-      ? unit.axles.map((a, i) => makeAxle(a.position, i, targets, { tireCount: a.tires.length === 2 ? 2 : 4, tires: a.tires, coldPsi: String(a.coldPsi), chamber: a.chamber }))
+      ? unit.axles.map((a, i) =>
+          makeAxle(a.position, i, targets, {
+            tireCount: a.tires.length === 2 ? 2 : 4,
+            tires: a.tires,
+            coldPsi: String(a.coldPsi),
+            chamber: a.chamber,
+          }),
+        )
       : fromTemplate(layoutTemplates[0]!, targets),
   );
   const [errors, setErrors] = useState<FieldErrors>({});
@@ -75,11 +96,28 @@ export function UnitForm({
   const err = (k: string) => firstError(errors, k);
 
   const setAxle = (i: number, change: Partial<AxleDraft>) =>
-    setAxles((list) => list.map((a, j) => (j === i ? { ...a, ...change, ...(change.tireCount || change.position ? { tires: tireLabels(change.position ?? a.position, i, change.tireCount ?? a.tireCount) } : {}) } : a)));
+    setAxles((list) =>
+      list.map((a, j) =>
+        j === i
+          ? {
+              ...a,
+              ...change,
+              ...(change.tireCount || change.position
+                ? { tires: tireLabels(change.position ?? a.position, i, change.tireCount ?? a.tireCount) }
+                : {}),
+            }
+          : a,
+      ),
+    );
 
   function chooseKind(k: UnitKind) {
     setKind(k);
-    setAxles(fromTemplate(layoutTemplates.find((t) => t.kind === k)!, targets));
+    setAxles(
+      fromTemplate(
+        layoutTemplates.find((t) => t.kind === k)!,
+        targets,
+      ),
+    );
   }
 
   async function onSubmit(e: FormEvent) {
@@ -119,8 +157,18 @@ export function UnitForm({
               <legend className="mb-1 text-base font-bold">Kind</legend>
               <div className="flex flex-wrap gap-2">
                 {(['tractor', 'trailer'] as const).map((k) => (
-                  <label key={k} className={`${officeButtonClass(kind === k ? 'primary' : 'plain')} cursor-pointer has-[:focus-visible]:outline-4 has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-vest`}>
-                    <input type="radio" name="kind" value={k} checked={kind === k} onChange={() => chooseKind(k)} className="sr-only" />
+                  <label
+                    key={k}
+                    className={`${officeButtonClass(kind === k ? 'primary' : 'plain')} cursor-pointer has-[:focus-visible]:outline-4 has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-vest`}
+                  >
+                    <input
+                      type="radio"
+                      name="kind"
+                      value={k}
+                      checked={kind === k}
+                      onChange={() => chooseKind(k)}
+                      className="sr-only"
+                    />
                     {kind === k ? <span aria-hidden="true">●</span> : <span aria-hidden="true">○</span>}
                     {k === 'tractor' ? 'Tractor' : 'Trailer'}
                   </label>
@@ -129,7 +177,15 @@ export function UnitForm({
             </fieldset>
           )}
           <Field id="unit-number" label="Unit number" error={err('unitNumber')} hint="As painted on the unit.">
-            {(c) => <input {...c} className={inputClass} value={unitNumber} onChange={(e) => setUnitNumber(e.target.value)} autoComplete="off" />}
+            {(c) => (
+              <input
+                {...c}
+                className={inputClass}
+                value={unitNumber}
+                onChange={(e) => setUnitNumber(e.target.value)}
+                autoComplete="off"
+              />
+            )}
           </Field>
           <Field id="unit-make" label="Make" error={err('make')}>
             {(c) => <input {...c} className={inputClass} value={make} onChange={(e) => setMake(e.target.value)} />}
@@ -138,7 +194,15 @@ export function UnitForm({
             {(c) => <input {...c} className={inputClass} value={model} onChange={(e) => setModel(e.target.value)} />}
           </Field>
           <Field id="unit-year" label="Model year" error={err('year')}>
-            {(c) => <input {...c} className={inputClass} inputMode="numeric" value={year} onChange={(e) => setYear(e.target.value)} />}
+            {(c) => (
+              <input
+                {...c}
+                className={inputClass}
+                inputMode="numeric"
+                value={year}
+                onChange={(e) => setYear(e.target.value)}
+              />
+            )}
           </Field>
         </section>
 
@@ -147,11 +211,24 @@ export function UnitForm({
             Registration
           </h2>
           <Field id="unit-plate" label="Plate" error={err('plate')}>
-            {(c) => <input {...c} className={`${inputClass} uppercase`} value={plate} onChange={(e) => setPlate(e.target.value)} autoComplete="off" />}
+            {(c) => (
+              <input
+                {...c}
+                className={`${inputClass} uppercase`}
+                value={plate}
+                onChange={(e) => setPlate(e.target.value)}
+                autoComplete="off"
+              />
+            )}
           </Field>
           <Field id="unit-jurisdiction" label="Issued by" error={err('plateJurisdiction')} hint="State or province.">
             {(c) => (
-              <select {...c} className={selectClass} value={plateJurisdiction} onChange={(e) => setPlateJurisdiction(e.target.value)}>
+              <select
+                {...c}
+                className={selectClass}
+                value={plateJurisdiction}
+                onChange={(e) => setPlateJurisdiction(e.target.value)}
+              >
                 <option value="">None</option>
                 <optgroup label="United States">
                   {usCodes.map((j) => (
@@ -166,8 +243,24 @@ export function UnitForm({
               </select>
             )}
           </Field>
-          <Field id="unit-vin" label="VIN" error={err('vin')} hint="17 characters; never I, O or Q." className="md:col-span-2">
-            {(c) => <input {...c} className={`${inputClass} font-mono uppercase tracking-wider`} value={vin} onChange={(e) => setVin(e.target.value)} maxLength={21} autoComplete="off" spellCheck={false} />}
+          <Field
+            id="unit-vin"
+            label="VIN"
+            error={err('vin')}
+            hint="17 characters; never I, O or Q."
+            className="md:col-span-2"
+          >
+            {(c) => (
+              <input
+                {...c}
+                className={`${inputClass} font-mono tracking-wider uppercase`}
+                value={vin}
+                onChange={(e) => setVin(e.target.value)}
+                maxLength={21}
+                autoComplete="off"
+                spellCheck={false}
+              />
+            )}
           </Field>
         </section>
 
@@ -177,7 +270,10 @@ export function UnitForm({
               <h2 id="unit-axles" className="text-xl font-extrabold">
                 Axles, front to back
               </h2>
-              <p className="text-base text-muted">Cold-inflation target and brake chamber type for each axle. New axles start at the fleet&apos;s default pressures.</p>
+              <p className="text-base text-muted">
+                Cold-inflation target and brake chamber type for each axle. New axles start at the fleet&apos;s default
+                pressures.
+              </p>
             </div>
             {readOnly ? null : (
               <div className="flex flex-wrap items-center gap-2">
@@ -185,7 +281,12 @@ export function UnitForm({
                 {layoutTemplates
                   .filter((t) => t.kind === kind)
                   .map((t) => (
-                    <button key={t.label} type="button" className={officeButtonClass('plain')} onClick={() => setAxles(fromTemplate(t, targets))}>
+                    <button
+                      key={t.label}
+                      type="button"
+                      className={officeButtonClass('plain')}
+                      onClick={() => setAxles(fromTemplate(t, targets))}
+                    >
                       {t.label}
                     </button>
                   ))}
@@ -195,11 +296,19 @@ export function UnitForm({
           {err('axles') ? <FormNotice kind="error">{err('axles')}</FormNotice> : null}
           <ol className="flex flex-col gap-2">
             {axles.map((a, i) => (
-              <li key={a.key} className="grid grid-cols-2 items-start gap-3 rounded-md border-2 border-edge/40 p-2 md:p-3 md:grid-cols-[4rem_repeat(4,minmax(0,1fr))_auto]">
+              <li
+                key={a.key}
+                className="grid grid-cols-2 items-start gap-3 rounded-md border-2 border-edge/40 p-2 md:grid-cols-[4rem_repeat(4,minmax(0,1fr))_auto] md:p-3"
+              >
                 <p className="col-span-2 self-center text-lg font-extrabold md:col-span-1">Axle {i + 1}</p>
                 <Field id={`axle-${i}-position`} label="Position" error={err(`axles.${i}.position`)}>
                   {(c) => (
-                    <select {...c} className={selectClass} value={a.position} onChange={(e) => setAxle(i, { position: e.target.value as AxleDraft['position'] })}>
+                    <select
+                      {...c}
+                      className={selectClass}
+                      value={a.position}
+                      onChange={(e) => setAxle(i, { position: e.target.value as AxleDraft['position'] })}
+                    >
                       {positionsFor.map((p) => (
                         <option key={p} value={p}>
                           {p === 'steer' ? 'Steer' : p === 'drive' ? 'Drive' : 'Trailer'}
@@ -210,18 +319,36 @@ export function UnitForm({
                 </Field>
                 <Field id={`axle-${i}-tires`} label="Tires" error={err(`axles.${i}.tires`)}>
                   {(c) => (
-                    <select {...c} className={selectClass} value={a.tireCount} onChange={(e) => setAxle(i, { tireCount: e.target.value === '2' ? 2 : 4 })}>
+                    <select
+                      {...c}
+                      className={selectClass}
+                      value={a.tireCount}
+                      onChange={(e) => setAxle(i, { tireCount: e.target.value === '2' ? 2 : 4 })}
+                    >
                       <option value={2}>2 singles</option>
                       <option value={4}>4 duals</option>
                     </select>
                   )}
                 </Field>
                 <Field id={`axle-${i}-psi`} label="Cold target, psi" error={err(`axles.${i}.coldPsi`)}>
-                  {(c) => <input {...c} className={inputClass} inputMode="numeric" value={a.coldPsi} onChange={(e) => setAxle(i, { coldPsi: e.target.value })} />}
+                  {(c) => (
+                    <input
+                      {...c}
+                      className={inputClass}
+                      inputMode="numeric"
+                      value={a.coldPsi}
+                      onChange={(e) => setAxle(i, { coldPsi: e.target.value })}
+                    />
+                  )}
                 </Field>
                 <Field id={`axle-${i}-chamber`} label="Chamber type" error={err(`axles.${i}.chamber`)}>
                   {(c) => (
-                    <select {...c} className={selectClass} value={a.chamber} onChange={(e) => setAxle(i, { chamber: e.target.value as AxleDraft['chamber'] })}>
+                    <select
+                      {...c}
+                      className={selectClass}
+                      value={a.chamber}
+                      onChange={(e) => setAxle(i, { chamber: e.target.value as AxleDraft['chamber'] })}
+                    >
                       <option value="">Pick…</option>
                       {brakeChamberTypes.map((t) => (
                         <option key={t} value={t}>
@@ -249,7 +376,9 @@ export function UnitForm({
             <button
               type="button"
               className={`${officeButtonClass('plain')} self-start`}
-              onClick={() => setAxles((list) => [...list, makeAxle(kind === 'trailer' ? 'trailer' : 'drive', list.length, targets)])}
+              onClick={() =>
+                setAxles((list) => [...list, makeAxle(kind === 'trailer' ? 'trailer' : 'drive', list.length, targets)])
+              }
             >
               + Add an axle
             </button>

@@ -11,7 +11,10 @@ export const metadata: Metadata = { title: 'Add a unit' };
 export default async function NewUnitPage() {
   const user = await requireRole('admin');
   const qc = new QueryClient();
-  await qc.prefetchQuery({ queryKey: fleetSettingsKeys.detail(), queryFn: async () => (await findFleetSettings(getDb(), { fleetId: user.fleetId })) ?? null });
+  await qc.prefetchQuery({
+    queryKey: fleetSettingsKeys.detail(),
+    queryFn: async () => (await findFleetSettings(getDb(), { fleetId: user.fleetId })) ?? null,
+  });
   return (
     <HydrationBoundary state={dehydrate(qc)}>
       <NewUnitClient />

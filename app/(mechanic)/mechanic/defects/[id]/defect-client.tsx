@@ -28,7 +28,11 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
   const addRepairPhoto = async (file: File) => {
     setPhotoState('Sending the photo…');
     try {
-      await fetchJson(`/api/defects/${id}/photos/${crypto.randomUUID()}`, { method: 'PUT', body: file, headers: { 'content-type': file.type || 'application/octet-stream' } });
+      await fetchJson(`/api/defects/${id}/photos/${crypto.randomUUID()}`, {
+        method: 'PUT',
+        body: file,
+        headers: { 'content-type': file.type || 'application/octet-stream' },
+      });
       setPhotoState('Photo added.');
       await queryClient.invalidateQueries({ queryKey: defectDetailOptions(id).queryKey });
     } catch (e) {
@@ -49,42 +53,49 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
       <Link href="/mechanic" className="text-base font-bold underline-offset-2 hover:underline">
         ← Open defects
       </Link>
-      <header className={`space-y-2 rounded-lg border-slab bg-panel p-4 ${d.severity === 'major' ? 'border-major border-l-[12px]' : 'border-edge'}`}>
+      <header
+        className={`space-y-2 rounded-lg border-slab bg-panel p-4 ${d.severity === 'major' ? 'border-l-[12px] border-major' : 'border-edge'}`}
+      >
         <SeverityMark severity={d.severity} />
         <h1 className="text-3xl font-extrabold">{d.description}</h1>
         <p className="flex flex-wrap items-center gap-3 text-lg">
           <span className="font-bold">
-            Unit {d.unitNumber} <span className="font-normal text-muted">({d.unitKind}{d.unitMake ? `, ${d.unitMake} ${d.unitModel ?? ''}` : ''})</span>
+            Unit {d.unitNumber}{' '}
+            <span className="font-normal text-muted">
+              ({d.unitKind}
+              {d.unitMake ? `, ${d.unitMake} ${d.unitModel ?? ''}` : ''})
+            </span>
           </span>
           <UnitStatusBadge status={d.unitStatus} />
         </p>
         <dl className="grid grid-cols-2 gap-3 text-base md:grid-cols-4">
           <div>
-            <dt className="text-sm font-bold uppercase text-muted">Found</dt>
+            <dt className="text-sm font-bold text-muted uppercase">Found</dt>
             <dd>
               {kindLabel(d.inspectionKind)}, {formatDateTime(d.inspectedAt)}
             </dd>
           </div>
           <div>
-            <dt className="text-sm font-bold uppercase text-muted">Driver</dt>
+            <dt className="text-sm font-bold text-muted uppercase">Driver</dt>
             <dd>{d.driverName}</dd>
           </div>
           <div>
-            <dt className="text-sm font-bold uppercase text-muted">Where</dt>
+            <dt className="text-sm font-bold text-muted uppercase">Where</dt>
             <dd>
               <span className="capitalize">{zoneLabel(d.zone)}</span> · {d.component}, {d.condition}
               {d.position ? `, ${d.position}` : ''}
             </dd>
           </div>
           <div>
-            <dt className="text-sm font-bold uppercase text-muted">Said</dt>
+            <dt className="text-sm font-bold text-muted uppercase">Said</dt>
             <dd>{d.finding.heard ? <q>{d.finding.heard}</q> : 'tapped'}</dd>
           </div>
           {d.finding.measurementKind && (
             <div className="col-span-2">
-              <dt className="text-sm font-bold uppercase text-muted">Measured</dt>
+              <dt className="text-sm font-bold text-muted uppercase">Measured</dt>
               <dd>
-                {d.finding.value} {d.finding.unit} ({d.finding.measurementKind.replace(/_/g, ' ')}); limit {d.finding.limitText ?? '—'}; {d.finding.source ?? 'no source'}
+                {d.finding.value} {d.finding.unit} ({d.finding.measurementKind.replace(/_/g, ' ')}); limit{' '}
+                {d.finding.limitText ?? '—'}; {d.finding.source ?? 'no source'}
               </dd>
             </div>
           )}
@@ -100,7 +111,11 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
             {d.photos.map((p) => (
               <a key={p.id} href={p.url} target="_blank" rel="noreferrer">
                 {/* eslint-disable-next-line @next/next/no-img-element */}
-                <img src={`${p.url}?size=thumb`} alt={`Photo of ${d.component}`} className="h-28 w-36 rounded border-2 border-edge object-cover" />
+                <img
+                  src={`${p.url}?size=thumb`}
+                  alt={`Photo of ${d.component}`}
+                  className="h-28 w-36 rounded border-2 border-edge object-cover"
+                />
               </a>
             ))}
           </div>
@@ -109,7 +124,17 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
           <div className="flex flex-wrap items-center gap-3">
             <label className="inline-flex min-h-target cursor-pointer items-center rounded-lg border-slab border-edge bg-panel px-4 text-lg font-bold">
               Add a repair photo
-              <input type="file" accept="image/*" capture="environment" className="sr-only" disabled={!live} onChange={(e) => (e.target.files?.[0] ? void addRepairPhoto(e.target.files[0]) : undefined, (e.target.value = ''))} />
+              <input
+                type="file"
+                accept="image/*"
+                capture="environment"
+                className="sr-only"
+                disabled={!live}
+                onChange={(e) => (
+                  e.target.files?.[0] ? void addRepairPhoto(e.target.files[0]) : undefined,
+                  (e.target.value = '')
+                )}
+              />
             </label>
             {photoState && (
               <span role="status" className="text-base" data-testid="repair-photo-status">
@@ -122,13 +147,20 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
 
       {certify.data && (
         <p role="status" className="rounded border-2 border-pass p-2 text-lg font-bold" data-testid="certify-result">
-          Certified. Unit {certify.data.unit.unitNumber} is {certify.data.unit.status === 'in_service' ? 'in service' : 'still OUT OF SERVICE'}
-          {certify.data.openMajor > 0 ? ` (${certify.data.openMajor} major defect${certify.data.openMajor > 1 ? 's' : ''} still open)` : ''}
+          Certified. Unit {certify.data.unit.unitNumber} is{' '}
+          {certify.data.unit.status === 'in_service' ? 'in service' : 'still OUT OF SERVICE'}
+          {certify.data.openMajor > 0
+            ? ` (${certify.data.openMajor} major defect${certify.data.openMajor > 1 ? 's' : ''} still open)`
+            : ''}
           {certify.data.unit.changed && certify.data.mailed ? '; maintenance and the supervisor were mailed.' : '.'}
         </p>
       )}
       {d.certification ? (
-        <section aria-labelledby="cert-heading" className="rounded-lg border-slab border-pass bg-panel p-4" data-testid="certification">
+        <section
+          aria-labelledby="cert-heading"
+          className="rounded-lg border-slab border-pass bg-panel p-4"
+          data-testid="certification"
+        >
           <h2 id="cert-heading" className="text-xl font-extrabold">
             <PassMark label={d.status === 'repaired' ? 'Repaired and certified' : 'No repair needed, certified'} />
           </h2>
@@ -138,7 +170,7 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
           {d.repair.work && <p>Work: {d.repair.work}</p>}
           {d.repair.parts && <p>Parts: {d.repair.parts}</p>}
           {d.repair.notes && <p>Notes: {d.repair.notes}</p>}
-          <p className="mt-2 italic text-muted">&ldquo;{d.certification.text}&rdquo;</p>
+          <p className="mt-2 text-muted italic">&ldquo;{d.certification.text}&rdquo;</p>
         </section>
       ) : (
         <div className="grid gap-5 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
@@ -153,12 +185,23 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
             <h2 className="text-xl font-extrabold">Repair</h2>
             <label className="block font-bold">
               Work done
-              <textarea className={input} rows={3} value={work} onChange={(e) => setWork(e.target.value)} placeholder="What you did, or what you checked" />
+              <textarea
+                className={input}
+                rows={3}
+                value={work}
+                onChange={(e) => setWork(e.target.value)}
+                placeholder="What you did, or what you checked"
+              />
               {fieldError('work')}
             </label>
             <label className="block font-bold">
               Parts
-              <input className={input} value={parts} onChange={(e) => setParts(e.target.value)} placeholder="Part numbers, or none" />
+              <input
+                className={input}
+                value={parts}
+                onChange={(e) => setParts(e.target.value)}
+                placeholder="Part numbers, or none"
+              />
             </label>
             <label className="block font-bold">
               Notes
@@ -168,8 +211,18 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
             <fieldset className="space-y-2">
               <legend className="text-xl font-extrabold">Certification</legend>
               {(['repaired', 'no_repair_needed'] as const).map((o) => (
-                <label key={o} className={`flex min-h-target cursor-pointer items-center gap-3 rounded-lg border-slab px-4 text-lg font-bold ${outcome === o ? 'border-edge bg-ground' : 'border-edge/30'}`}>
-                  <input type="radio" name="outcome" value={o} checked={outcome === o} onChange={() => setOutcome(o)} className="h-6 w-6" />
+                <label
+                  key={o}
+                  className={`flex min-h-target cursor-pointer items-center gap-3 rounded-lg border-slab px-4 text-lg font-bold ${outcome === o ? 'border-edge bg-ground' : 'border-edge/30'}`}
+                >
+                  <input
+                    type="radio"
+                    name="outcome"
+                    value={o}
+                    checked={outcome === o}
+                    onChange={() => setOutcome(o)}
+                    className="h-6 w-6"
+                  />
                   {o === 'repaired' ? 'Repaired' : 'No repair needed'}
                 </label>
               ))}
@@ -179,7 +232,12 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
                 {fieldError('certifiedName')}
               </label>
               <label className="flex items-start gap-3 text-base">
-                <input type="checkbox" checked={confirm} onChange={(e) => setConfirm(e.target.checked)} className="mt-1 h-6 w-6" />
+                <input
+                  type="checkbox"
+                  checked={confirm}
+                  onChange={(e) => setConfirm(e.target.checked)}
+                  className="mt-1 h-6 w-6"
+                />
                 <span>{repairCertificationStatement[outcome]} The time of signing is recorded.</span>
               </label>
               {fieldError('confirm')}
@@ -190,7 +248,11 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
               </p>
             )}
             {canCertify ? (
-              <button type="submit" disabled={!live || certify.isPending} className="w-full min-h-target rounded-lg border-slab border-edge bg-vest px-5 text-xl font-extrabold text-on-vest disabled:opacity-50">
+              <button
+                type="submit"
+                disabled={!live || certify.isPending}
+                className="min-h-target w-full rounded-lg border-slab border-edge bg-vest px-5 text-xl font-extrabold text-on-vest disabled:opacity-50"
+              >
                 {certify.isPending ? 'Signing…' : 'Sign the certification'}
               </button>
             ) : (

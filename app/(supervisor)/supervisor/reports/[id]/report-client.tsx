@@ -13,7 +13,7 @@ import { Transcript } from './transcript';
 function Field({ label, children }: { label: string; children: React.ReactNode }) {
   return (
     <div>
-      <dt className="text-sm font-bold uppercase tracking-wide text-muted">{label}</dt>
+      <dt className="text-sm font-bold tracking-wide text-muted uppercase">{label}</dt>
       <dd className="text-base">{children}</dd>
     </div>
   );
@@ -22,18 +22,25 @@ function Field({ label, children }: { label: string; children: React.ReactNode }
 function HashState({ hash }: { hash: ReportDetail['hash'] }) {
   if (hash.state === 'mismatch')
     return (
-      <div role="alert" data-testid="hash-mismatch" className="rounded-lg border-slab border-edge bg-major p-4 text-on-major">
+      <div
+        role="alert"
+        data-testid="hash-mismatch"
+        className="rounded-lg border-slab border-edge bg-major p-4 text-on-major"
+      >
         <p className="text-xl font-extrabold">THE RECORD DOES NOT MATCH ITS SIGNATURE</p>
-        <p>The steps stored for this report no longer give the hash signed with it: something changed after the driver signed. Keep this report as it is and tell the fleet administrator.</p>
-        <p className="mt-1 break-all font-mono text-sm">signed {hash.stored}</p>
-        <p className="break-all font-mono text-sm">now {hash.computed}</p>
+        <p>
+          The steps stored for this report no longer give the hash signed with it: something changed after the driver
+          signed. Keep this report as it is and tell the fleet administrator.
+        </p>
+        <p className="mt-1 font-mono text-sm break-all">signed {hash.stored}</p>
+        <p className="font-mono text-sm break-all">now {hash.computed}</p>
       </div>
     );
   if (hash.state === 'unsigned') return <p className="text-muted">Not signed yet: no content hash.</p>;
   return (
     <p className="flex flex-wrap items-center gap-2 text-sm" data-testid="hash-match">
       <PassMark label="Rows match the signed hash" />
-      <span className="break-all font-mono text-muted">{hash.stored}</span>
+      <span className="font-mono break-all text-muted">{hash.stored}</span>
     </p>
   );
 }
@@ -65,12 +72,14 @@ export function ReportClient({ id }: { id: string }) {
         <dl className="grid grid-cols-2 gap-x-6 gap-y-3 md:grid-cols-4">
           <Field label="Driver">{r.driverName}</Field>
           <Field label="Tractor">
-            {r.tractor.number} {r.tractor.plate ? `· ${r.tractor.plate}` : ''} <UnitStatusBadge status={r.tractor.status === 'out_of_service' ? 'out_of_service' : 'in_service'} />
+            {r.tractor.number} {r.tractor.plate ? `· ${r.tractor.plate}` : ''}{' '}
+            <UnitStatusBadge status={r.tractor.status === 'out_of_service' ? 'out_of_service' : 'in_service'} />
           </Field>
           <Field label="Trailer">
             {r.trailer ? (
               <>
-                {r.trailer.number} <UnitStatusBadge status={r.trailer.status === 'out_of_service' ? 'out_of_service' : 'in_service'} />
+                {r.trailer.number}{' '}
+                <UnitStatusBadge status={r.trailer.status === 'out_of_service' ? 'out_of_service' : 'in_service'} />
               </>
             ) : (
               'none (bobtail)'
@@ -105,7 +114,9 @@ export function ReportClient({ id }: { id: string }) {
         )}
         {r.lowConfidenceUnconfirmed > 0 && (
           <p className="rounded border-2 border-minor p-2">
-            <MinorMark label={`${r.lowConfidenceUnconfirmed} unsure match(es) accepted without the driver confirming`} />
+            <MinorMark
+              label={`${r.lowConfidenceUnconfirmed} unsure match(es) accepted without the driver confirming`}
+            />
           </p>
         )}
       </header>
@@ -120,7 +131,11 @@ export function ReportClient({ id }: { id: string }) {
           ) : (
             <ul className="space-y-2">
               {r.defects.map((d) => (
-                <li key={d.id} className={`rounded border-2 p-2 ${d.severity === 'major' ? 'border-major border-l-8' : 'border-edge/30'}`} data-testid="report-defect">
+                <li
+                  key={d.id}
+                  className={`rounded border-2 p-2 ${d.severity === 'major' ? 'border-l-8 border-major' : 'border-edge/30'}`}
+                  data-testid="report-defect"
+                >
                   <div className="flex flex-wrap items-baseline gap-x-3">
                     <SeverityMark severity={d.severity === 'major' ? 'major' : 'minor'} />
                     <span className="font-bold">{d.description}</span>
@@ -131,7 +146,8 @@ export function ReportClient({ id }: { id: string }) {
                   </div>
                   {d.status !== 'open' && (
                     <p className="text-sm">
-                      <PassMark label={d.status === 'repaired' ? 'Repaired' : 'No repair needed'} /> by {d.certifiedName}, {formatDateTime(d.certifiedAt, tz)}
+                      <PassMark label={d.status === 'repaired' ? 'Repaired' : 'No repair needed'} /> by{' '}
+                      {d.certifiedName}, {formatDateTime(d.certifiedAt, tz)}
                       {d.repairWork ? ` — ${d.repairWork}` : ''}
                     </p>
                   )}
@@ -139,7 +155,7 @@ export function ReportClient({ id }: { id: string }) {
               ))}
             </ul>
           )}
-          <h3 className="mb-1 mt-4 font-extrabold">Next driver&apos;s review (49 CFR 396.13)</h3>
+          <h3 className="mt-4 mb-1 font-extrabold">Next driver&apos;s review (49 CFR 396.13)</h3>
           {r.acknowledgements.length ? (
             <ul className="text-base">
               {r.acknowledgements.map((a) => (
@@ -149,7 +165,11 @@ export function ReportClient({ id }: { id: string }) {
               ))}
             </ul>
           ) : (
-            <p className="text-muted">{r.defects.length ? 'Not reviewed by the next driver yet.' : 'No defect listed: no review signature needed.'}</p>
+            <p className="text-muted">
+              {r.defects.length
+                ? 'Not reviewed by the next driver yet.'
+                : 'No defect listed: no review signature needed.'}
+            </p>
           )}
         </section>
 
@@ -173,8 +193,19 @@ export function ReportClient({ id }: { id: string }) {
               <label className="block text-sm font-bold" htmlFor="review-note">
                 Review note
               </label>
-              <textarea id="review-note" rows={3} maxLength={2000} className="w-full rounded-md border-2 border-edge/50 bg-ground p-2 text-base" value={note ?? r.review.note ?? ''} onChange={(e) => setNote(e.target.value)} />
-              <button type="submit" disabled={!live || review.isPending || r.status !== 'submitted'} className="w-full rounded-lg border-slab border-edge bg-vest px-4 py-3 text-lg font-extrabold text-on-vest disabled:opacity-50">
+              <textarea
+                id="review-note"
+                rows={3}
+                maxLength={2000}
+                className="w-full rounded-md border-2 border-edge/50 bg-ground p-2 text-base"
+                value={note ?? r.review.note ?? ''}
+                onChange={(e) => setNote(e.target.value)}
+              />
+              <button
+                type="submit"
+                disabled={!live || review.isPending || r.status !== 'submitted'}
+                className="w-full rounded-lg border-slab border-edge bg-vest px-4 py-3 text-lg font-extrabold text-on-vest disabled:opacity-50"
+              >
                 {review.isPending ? 'Saving…' : r.review.reviewedAt ? 'Update review' : 'Mark reviewed'}
               </button>
               {review.error && (
@@ -186,17 +217,33 @@ export function ReportClient({ id }: { id: string }) {
             </form>
           </section>
           <section className="space-y-2 rounded-lg border-slab border-edge bg-panel p-4">
-            <a href={`/api/reports/${r.id}/pdf`} target="_blank" rel="noreferrer" className="block rounded-lg border-slab border-edge px-4 py-2.5 text-center text-base font-bold hover:bg-ground">
+            <a
+              href={`/api/reports/${r.id}/pdf`}
+              target="_blank"
+              rel="noreferrer"
+              className="block rounded-lg border-slab border-edge px-4 py-2.5 text-center text-base font-bold hover:bg-ground"
+            >
               Printable report (PDF)
             </a>
             {openDefects.length > 0 && (
-              <button type="button" onClick={() => notify.mutate()} disabled={!live || notify.isPending} className="w-full rounded-lg border-slab border-edge px-4 py-2.5 text-base font-bold hover:bg-ground disabled:opacity-50">
+              <button
+                type="button"
+                onClick={() => notify.mutate()}
+                disabled={!live || notify.isPending}
+                className="w-full rounded-lg border-slab border-edge px-4 py-2.5 text-base font-bold hover:bg-ground disabled:opacity-50"
+              >
                 {notify.isPending ? 'Sending…' : 'Mail the shop about open defects'}
               </button>
             )}
             {notify.data && (
               <p role="status" className="text-sm">
-                {notify.data.sent.map((s) => `${s.kind === 'out_of_service' ? 'Out-of-service' : 'Repair-needed'} notice for unit ${s.unitNumber}${s.sent ? ' sent' : ' not sent'}`).join('; ')}.
+                {notify.data.sent
+                  .map(
+                    (s) =>
+                      `${s.kind === 'out_of_service' ? 'Out-of-service' : 'Repair-needed'} notice for unit ${s.unitNumber}${s.sent ? ' sent' : ' not sent'}`,
+                  )
+                  .join('; ')}
+                .
               </p>
             )}
             {notify.error && (

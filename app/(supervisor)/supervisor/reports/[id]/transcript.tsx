@@ -6,7 +6,16 @@ import type { ReportDetail } from '@/lib/services/get-report-detail';
 
 type Step = ReportDetail['zones'][number]['steps'][number];
 
-const kindWords: Record<string, string> = { visit: 'zone opened', zone_ok: 'zone all good', ok: 'item OK', defect: 'finding', measurement: 'measurement', undo: 'undo', note: 'note', photo: 'photo' };
+const kindWords: Record<string, string> = {
+  visit: 'zone opened',
+  zone_ok: 'zone all good',
+  ok: 'item OK',
+  defect: 'finding',
+  measurement: 'measurement',
+  undo: 'undo',
+  note: 'note',
+  photo: 'photo',
+};
 
 function Resolution({ s }: { s: Step }) {
   if (!s.resolution) return <span className="text-muted">{s.inputMode}</span>;
@@ -23,7 +32,12 @@ function Match({ s }: { s: Step }) {
         <span className="font-bold">
           {s.value ?? '—'} {s.unit}
         </span>{' '}
-        {s.measurementKind?.replace(/_/g, ' ')} · {s.verdict === 'fail' ? <SeverityMark severity={s.severity === 'major' ? 'major' : 'minor'} compact /> : <PassMark />}
+        {s.measurementKind?.replace(/_/g, ' ')} ·{' '}
+        {s.verdict === 'fail' ? (
+          <SeverityMark severity={s.severity === 'major' ? 'major' : 'minor'} compact />
+        ) : (
+          <PassMark />
+        )}
         <span className="block text-sm text-muted">
           limit {s.limitText ?? '—'} · {s.source ?? 'no source'}
         </span>
@@ -50,18 +64,25 @@ export function Transcript({ report }: { report: ReportDetail }) {
         <h2 id="transcript-heading" className="text-xl font-extrabold">
           Transcript of findings
         </h2>
-        <p className="text-sm text-muted">what was heard, what it matched and how sure · zone by zone with time spent</p>
+        <p className="text-sm text-muted">
+          what was heard, what it matched and how sure · zone by zone with time spent
+        </p>
       </header>
       {report.zones.length === 0 && <p className="p-4 text-muted">No step recorded.</p>}
       {report.zones.map((z) => (
-        <section key={z.id} aria-label={`Zone ${z.name}`} className="border-t-2 border-edge/20 first:border-t-0" data-testid="transcript-zone">
+        <section
+          key={z.id}
+          aria-label={`Zone ${z.name}`}
+          className="border-t-2 border-edge/20 first:border-t-0"
+          data-testid="transcript-zone"
+        >
           <h3 className="flex items-baseline gap-3 bg-ground px-4 py-1.5 font-extrabold capitalize">
             {z.name}
-            <span className="text-sm font-bold normal-case text-muted">{formatDuration(z.seconds)} in zone</span>
+            <span className="text-sm font-bold text-muted normal-case">{formatDuration(z.seconds)} in zone</span>
           </h3>
           <div className="overflow-x-auto">
             <table className="w-full min-w-[820px] table-fixed text-sm">
-              <thead className="text-left uppercase tracking-wide text-muted">
+              <thead className="text-left tracking-wide text-muted uppercase">
                 <tr>
                   <th className="w-20 px-4 py-1">Time</th>
                   <th className="w-[22%] px-2 py-1">Heard</th>
@@ -74,9 +95,19 @@ export function Transcript({ report }: { report: ReportDetail }) {
               </thead>
               <tbody>
                 {z.steps.map((s) => (
-                  <tr key={s.id} className={`border-t border-edge/10 align-top ${s.kind === 'defect' || s.verdict === 'fail' ? 'bg-ground/60' : ''}`} data-testid={`step-${s.kind}`}>
+                  <tr
+                    key={s.id}
+                    className={`border-t border-edge/10 align-top ${s.kind === 'defect' || s.verdict === 'fail' ? 'bg-ground/60' : ''}`}
+                    data-testid={`step-${s.kind}`}
+                  >
                     <td className="px-4 py-1 tabular-nums">{formatTime(s.deviceAt, report.timezone)}</td>
-                    <td className="px-2 py-1">{s.heard ? <q className="text-base">{s.heard}</q> : <span className="text-muted">{s.inputMode === 'tap' ? 'tapped' : '—'}</span>}</td>
+                    <td className="px-2 py-1">
+                      {s.heard ? (
+                        <q className="text-base">{s.heard}</q>
+                      ) : (
+                        <span className="text-muted">{s.inputMode === 'tap' ? 'tapped' : '—'}</span>
+                      )}
+                    </td>
                     <td className="px-2 py-1 text-muted">{s.alternatives.length ? s.alternatives.join(' · ') : ''}</td>
                     <td className="px-2 py-1">
                       <Match s={s} />
@@ -90,7 +121,11 @@ export function Transcript({ report }: { report: ReportDetail }) {
                         p.url ? (
                           <a key={p.id} href={p.url} target="_blank" rel="noreferrer">
                             {/* eslint-disable-next-line @next/next/no-img-element */}
-                            <img src={`${p.url}?size=thumb`} alt={`Photo of ${s.component ?? 'the finding'}`} className="h-12 w-16 rounded border border-edge object-cover" />
+                            <img
+                              src={`${p.url}?size=thumb`}
+                              alt={`Photo of ${s.component ?? 'the finding'}`}
+                              className="h-12 w-16 rounded border border-edge object-cover"
+                            />
                           </a>
                         ) : null,
                       )}

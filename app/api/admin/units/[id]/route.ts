@@ -11,6 +11,8 @@ export const GET = defineRoute({ roles: ['admin'], params: unitParamsSchema }, a
   return Response.json({ unit });
 });
 
-export const PATCH = defineRoute({ roles: ['admin'], params: unitParamsSchema, body: updateUnitBodySchema }, async ({ user, params, body }) =>
-  Response.json(await updateUnit({ fleetId: user.fleetId, actorId: user.id, unitId: params.id, ...body })),
+export const PATCH = defineRoute(
+  { roles: ['admin'], params: unitParamsSchema, body: updateUnitBodySchema },
+  async ({ user, params, body }) =>
+    Response.json(await updateUnit({ fleetId: user.fleetId, actorId: user.id, unitId: params.id, ...body })),
 );

@@ -12,6 +12,8 @@ export const GET = defineRoute({ roles: ['admin'], params: userParamsSchema }, a
 });
 
 /** Rename, change roles, deactivate (active: false) or reactivate (active: true). */
-export const PATCH = defineRoute({ roles: ['admin'], params: userParamsSchema, body: updateUserBodySchema }, async ({ user, params, body }) =>
-  Response.json(await updateUser({ fleetId: user.fleetId, actorId: user.id, userId: params.id, ...body })),
+export const PATCH = defineRoute(
+  { roles: ['admin'], params: userParamsSchema, body: updateUserBodySchema },
+  async ({ user, params, body }) =>
+    Response.json(await updateUser({ fleetId: user.fleetId, actorId: user.id, userId: params.id, ...body })),
 );

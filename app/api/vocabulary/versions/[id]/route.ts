@@ -10,6 +10,17 @@ export const GET = defineRoute({ roles: ['trainer'], params: idParamsSchema }, a
 );
 
 // The editor saves the whole grammar document of the draft; a published version answers 409.
-export const PUT = defineRoute({ roles: ['trainer'], params: idParamsSchema, body: updateDraftBodySchema, maxBodyBytes: 4 * 1024 * 1024 }, async ({ user, params, body }) =>
-  Response.json(await updateDraftGrammar({ fleetId: user.fleetId, actorId: user.id, id: params.id, grammar: body.grammar, label: body.label, baseUpdatedAt: body.baseUpdatedAt })),
+export const PUT = defineRoute(
+  { roles: ['trainer'], params: idParamsSchema, body: updateDraftBodySchema, maxBodyBytes: 4 * 1024 * 1024 },
+  async ({ user, params, body }) =>
+    Response.json(
+      await updateDraftGrammar({
+        fleetId: user.fleetId,
+        actorId: user.id,
+        id: params.id,
+        grammar: body.grammar,
+        label: body.label,
+        baseUpdatedAt: body.baseUpdatedAt,
+      }),
+    ),
 );

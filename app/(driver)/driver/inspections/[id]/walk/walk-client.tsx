@@ -16,14 +16,39 @@ import { cautionFooter, zoneCautions } from '@/lib/inspection/zone-cautions';
 import { createMatcher, type WalkZone } from '@/lib/matcher';
 import { checkInspectionDuration, evaluateMeasurement } from '@/lib/rules';
 import type { Grammar, Vocabulary, ZoneItem } from '@/lib/schemas/grammar';
-import { AirTimer, AnswerMark, capitalize, formatReading, HoldToTalk, inputClass, PendingMatchPanel, ReadingResult, SealCheckPanel, SeverityMark, SignaturePad, WalkStatusBar } from './walk-parts';
+import {
+  AirTimer,
+  AnswerMark,
+  capitalize,
+  formatReading,
+  HoldToTalk,
+  inputClass,
+  PendingMatchPanel,
+  ReadingResult,
+  SealCheckPanel,
+  SeverityMark,
+  SignaturePad,
+  WalkStatusBar,
+} from './walk-parts';
 
 /** One step into the device outbox, on its way to the server. */
 const enqueueStep = (inspectionId: string, step: WalkStep) =>
-  enqueueRequest({ label: step.label ?? step.kind, url: `/api/inspections/${inspectionId}/steps`, method: 'POST', json: toStepBody(step) });
+  enqueueRequest({
+    label: step.label ?? step.kind,
+    url: `/api/inspections/${inspectionId}/steps`,
+    method: 'POST',
+    json: toStepBody(step),
+  });
 
 type Props = {
-  inspection: { id: string; kind: 'pre_trip' | 'post_trip'; status: 'draft' | 'submitted'; startedAt: string; sealNumber: string | null; ruleProfile: string };
+  inspection: {
+    id: string;
+    kind: 'pre_trip' | 'post_trip';
+    status: 'draft' | 'submitted';
+    startedAt: string;
+    sealNumber: string | null;
+    ruleProfile: string;
+  };
   tractorNumber: string;
   trailerNumber: string | null;
   minimumMinutes: number;
@@ -36,10 +61,14 @@ type Props = {
 };
 
 const profileKey = (p: string) => (p.startsWith('ca') ? 'ca' : 'us');
-const certification = 'I performed this inspection and the report lists every defect I found or that was reported to me.';
+const certification =
+  'I performed this inspection and the report lists every defect I found or that was reported to me.';
 
 function namesOf(vocab: Vocabulary) {
-  return { conditionName: new Map(vocab.conditions.map((c) => [c.id, c.name])), componentById: new Map(vocab.components.map((c) => [c.id, c])) };
+  return {
+    conditionName: new Map(vocab.conditions.map((c) => [c.id, c.name])),
+    componentById: new Map(vocab.components.map((c) => [c.id, c])),
+  };
 }
 
 export function WalkClient(props: Props) {
@@ -79,7 +108,18 @@ export function WalkClient(props: Props) {
     },
     [store, inspection.id],
   );
-  const base = (zoneId: string) => ({ zone: zoneId, item: null, heard: null, alternatives: [], termKey: null, position: null, score: null, resolution: null, undoesStepId: null, reading: null });
+  const base = (zoneId: string) => ({
+    zone: zoneId,
+    item: null,
+    heard: null,
+    alternatives: [],
+    termKey: null,
+    position: null,
+    score: null,
+    resolution: null,
+    undoesStepId: null,
+    reading: null,
+  });
 
   useEffect(() => {
     const done = () => {
@@ -135,13 +175,40 @@ export function WalkClient(props: Props) {
   );
 
   const logFinding = useCallback(
-    (f: { termKey: string; position: string | null; score: number | null; resolution: WalkStep['resolution']; heard: string | null; alternatives: string[]; inputMode: WalkStep['inputMode']; itemId: string | null }) => {
+    (f: {
+      termKey: string;
+      position: string | null;
+      score: number | null;
+      resolution: WalkStep['resolution'];
+      heard: string | null;
+      alternatives: string[];
+      inputMode: WalkStep['inputMode'];
+      itemId: string | null;
+    }) => {
       const [componentId, conditionId] = f.termKey.split(':');
       const component = componentById.get(componentId ?? '');
       const pair = component?.defects.find((d) => d.condition === conditionId);
       const severity = pair ? pair.severity[profileKey(inspection.ruleProfile)] : 'major';
-      const words = { component: component?.name ?? componentId ?? '', condition: conditionName.get(conditionId ?? '') ?? conditionId ?? '', position: f.position, severity };
-      record({ ...base(zone.id), item: f.itemId, kind: 'defect', termKey: f.termKey, position: f.position, score: f.score, resolution: f.resolution, heard: f.heard, alternatives: f.alternatives, inputMode: f.inputMode, label: `${words.component}, ${words.condition}`, severity });
+      const words = {
+        component: component?.name ?? componentId ?? '',
+        condition: conditionName.get(conditionId ?? '') ?? conditionId ?? '',
+        position: f.position,
+        severity,
+      };
+      record({
+        ...base(zone.id),
+        item: f.itemId,
+        kind: 'defect',
+        termKey: f.termKey,
+        position: f.position,
+        score: f.score,
+        resolution: f.resolution,
+        heard: f.heard,
+        alternatives: f.alternatives,
+        inputMode: f.inputMode,
+        label: `${words.component}, ${words.condition}`,
+        severity,
+      });
       const text = readBackFinding(words);
       store.getState().setReadback(text);
       say(text);
@@ -151,7 +218,15 @@ export function WalkClient(props: Props) {
 
   const markZoneGood = useCallback(
     (inputMode: WalkStep['inputMode'], heard: string | null) => {
-      record({ ...base(zone.id), kind: 'zone_ok', heard, inputMode, score: heard ? 1 : null, resolution: heard ? 'auto' : null, label: `${zone.name}: all good` });
+      record({
+        ...base(zone.id),
+        kind: 'zone_ok',
+        heard,
+        inputMode,
+        score: heard ? 1 : null,
+        resolution: heard ? 'auto' : null,
+        label: `${zone.name}: all good`,
+      });
       store.getState().setReadback(`${zone.name}: all good.`);
       if (zoneIndex < zones.length - 1) store.getState().moveToZone(zoneIndex + 1);
       else say('Last zone done. Review and sign.');
@@ -163,7 +238,14 @@ export function WalkClient(props: Props) {
     (inputMode: WalkStep['inputMode']) => {
       const target = findUndoableStep(store.getState().steps);
       if (!target) return store.getState().setReadback('Nothing to take back.');
-      record({ ...base(target.zone), kind: 'undo', undoesStepId: target.id, heard: inputMode === 'voice' ? 'undo' : null, inputMode, label: `took back: ${target.label ?? target.kind}` });
+      record({
+        ...base(target.zone),
+        kind: 'undo',
+        undoesStepId: target.id,
+        heard: inputMode === 'voice' ? 'undo' : null,
+        inputMode,
+        label: `took back: ${target.label ?? target.kind}`,
+      });
       const text = `Took back: ${target.label ?? target.kind}.`;
       store.getState().setReadback(text);
       say(text);
@@ -179,12 +261,23 @@ export function WalkClient(props: Props) {
       if (!heard.trim()) return;
       setLastHeard(heard);
       const focus = findFocusItem(zone, answers);
-      const result = matcher.matchAlternatives(alternatives, { zone: zone.id, component: focus?.component ?? null, measure: focus?.measure ?? null, profile: profileKey(inspection.ruleProfile) });
+      const result = matcher.matchAlternatives(alternatives, {
+        zone: zone.id,
+        component: focus?.component ?? null,
+        measure: focus?.measure ?? null,
+        profile: profileKey(inspection.ruleProfile),
+      });
       const waiting = store.getState().pending;
       if (waiting && result.kind === 'command' && (result.command === 'yes' || result.command === 'no')) {
         if (result.command === 'yes') {
           store.getState().holdForConfirmation(null);
-          logFinding({ ...waiting.top, resolution: 'confirmed', heard: waiting.heard, alternatives: waiting.alternatives, inputMode: waiting.inputMode });
+          logFinding({
+            ...waiting.top,
+            resolution: 'confirmed',
+            heard: waiting.heard,
+            alternatives: waiting.alternatives,
+            inputMode: waiting.inputMode,
+          });
         } else {
           store.getState().declinePending();
           say('Pick one, or say it again.');
@@ -198,20 +291,60 @@ export function WalkClient(props: Props) {
           return markZoneGood(inputMode, heard);
         case 'item_ok': {
           const item = zone.items.find((i) => i.id === d.itemId)!;
-          record({ ...base(zone.id), item: d.itemId, kind: 'ok', heard, inputMode, score: result.score, resolution: 'auto', label: `${item.label}: OK` });
+          record({
+            ...base(zone.id),
+            item: d.itemId,
+            kind: 'ok',
+            heard,
+            inputMode,
+            score: result.score,
+            resolution: 'auto',
+            label: `${item.label}: OK`,
+          });
           return store.getState().setReadback(`${item.label}: OK.`);
         }
         case 'reading':
-          return logReading(zone.items.find((i) => i.id === d.itemId)!, d.value, inputMode, heard);
+          return logReading(
+            zone.items.find((i) => i.id === d.itemId)!,
+            d.value,
+            inputMode,
+            heard,
+          );
         case 'no_reading_here':
           store.getState().setReadback(`No ${d.measure.replace(/_/g, ' ')} to read in this zone.`);
           return say('No reading of that kind here.');
         case 'finding':
           if (d.needsConfirmation) {
-            store.getState().holdForConfirmation({ heard, alternatives, inputMode, top: { termKey: d.termKey, component: d.component, condition: d.condition, position: d.position, severity: d.severity, score: d.score, itemId: d.itemId }, others: d.alternatives, declined: false });
+            store
+              .getState()
+              .holdForConfirmation({
+                heard,
+                alternatives,
+                inputMode,
+                top: {
+                  termKey: d.termKey,
+                  component: d.component,
+                  condition: d.condition,
+                  position: d.position,
+                  severity: d.severity,
+                  score: d.score,
+                  itemId: d.itemId,
+                },
+                others: d.alternatives,
+                declined: false,
+              });
             return say(`Did you mean ${d.component}, ${d.condition}? Yes or no.`);
           }
-          return logFinding({ termKey: d.termKey, position: d.position, score: d.score, resolution: 'auto', heard, alternatives, inputMode, itemId: d.itemId });
+          return logFinding({
+            termKey: d.termKey,
+            position: d.position,
+            score: d.score,
+            resolution: 'auto',
+            heard,
+            alternatives,
+            inputMode,
+            itemId: d.itemId,
+          });
         case 'command':
           switch (d.command) {
             case 'next':
@@ -234,12 +367,34 @@ export function WalkClient(props: Props) {
           }
         default:
           // Kept for the trainers: what the vocabulary did not catch.
-          if (inputMode === 'voice') record({ ...base(zone.id), kind: 'note', heard, alternatives, inputMode, label: `not understood: ${heard}` });
+          if (inputMode === 'voice')
+            record({
+              ...base(zone.id),
+              kind: 'note',
+              heard,
+              alternatives,
+              inputMode,
+              label: `not understood: ${heard}`,
+            });
           store.getState().setReadback(`Not understood: “${heard}”. Say it again or tap.`);
           return say('Not understood.');
       }
     },
-    [answers, goTo, inspection.ruleProfile, logFinding, logReading, markZoneGood, matcher, record, say, store, takeBack, zone, zoneIndex],
+    [
+      answers,
+      goTo,
+      inspection.ruleProfile,
+      logFinding,
+      logReading,
+      markZoneGood,
+      matcher,
+      record,
+      say,
+      store,
+      takeBack,
+      zone,
+      zoneIndex,
+    ],
   );
 
   // The recogniser calls back into the newest handler.
@@ -250,7 +405,11 @@ export function WalkClient(props: Props) {
       setMic({ state: 'unavailable', detail: 'No voice in this browser: tap and type, everything works the same.' });
       return;
     }
-    listener.current = createListener({ onInterim: setInterim, onFinal: (alts) => heardRef.current(alts, 'voice'), onState: (state, detail) => setMic({ state, detail }) });
+    listener.current = createListener({
+      onInterim: setInterim,
+      onFinal: (alts) => heardRef.current(alts, 'voice'),
+      onState: (state, detail) => setMic({ state, detail }),
+    });
     return () => listener.current?.stop();
   }, []);
 
@@ -267,7 +426,12 @@ export function WalkClient(props: Props) {
     const id = crypto.randomUUID();
     const lastDefect = listDefectSteps(store.getState().steps).at(-1);
     const stepId = lastDefect?.id ?? null;
-    await enqueueRequest({ label: 'photo', url: `/api/inspections/${inspection.id}/photos/${id}${stepId ? `?stepId=${stepId}` : ''}`, method: 'PUT', blob: file });
+    await enqueueRequest({
+      label: 'photo',
+      url: `/api/inspections/${inspection.id}/photos/${id}${stepId ? `?stepId=${stepId}` : ''}`,
+      method: 'PUT',
+      blob: file,
+    });
     store.getState().addPhoto({ id, stepId, zone: zone.id, takenAt: new Date().toISOString() });
     store.getState().setReadback(lastDefect ? `Photo added to: ${lastDefect.label}.` : 'Photo added.');
   };
@@ -276,13 +440,28 @@ export function WalkClient(props: Props) {
   if (phase !== 'walking') return <ReviewAndSign {...props} store={store} queue={queue} />;
 
   const itemsLeft = zone.items.filter((i) => !answers.has(i.id)).length;
-  const lastReading = (itemId: string) => [...steps].reverse().find((s) => s.kind === 'measurement' && s.item === itemId);
+  const lastReading = (itemId: string) =>
+    [...steps].reverse().find((s) => s.kind === 'measurement' && s.item === itemId);
   const listening = mic.state === 'listening' || mic.state === 'starting';
   return (
     <div className="-mx-4 -my-6 pb-40">
-      <WalkStatusBar zoneName={zone.name} zoneNumber={zoneIndex + 1} zoneCount={zones.length} startedAt={inspection.startedAt} minimumMinutes={props.minimumMinutes} queue={queue} itemsLeft={itemsLeft}>
+      <WalkStatusBar
+        zoneName={zone.name}
+        zoneNumber={zoneIndex + 1}
+        zoneCount={zones.length}
+        startedAt={inspection.startedAt}
+        minimumMinutes={props.minimumMinutes}
+        queue={queue}
+        itemsLeft={itemsLeft}
+      >
         <section aria-live="polite" className="mt-2 rounded-lg border-slab border-edge bg-panel px-3 py-2">
-          <p className="text-base text-muted">{mic.state === 'listening' ? '● Listening' : mic.state === 'starting' ? '… Starting the microphone' : mic.detail ?? 'Microphone off'}</p>
+          <p className="text-base text-muted">
+            {mic.state === 'listening'
+              ? '● Listening'
+              : mic.state === 'starting'
+                ? '… Starting the microphone'
+                : (mic.detail ?? 'Microphone off')}
+          </p>
           <p className="text-xl font-bold" data-testid="heard">
             {interim || lastHeard || 'Say a finding, a reading, or “all good”.'}
           </p>
@@ -295,13 +474,20 @@ export function WalkClient(props: Props) {
       </WalkStatusBar>
       <div className="flex flex-col gap-4 px-3 pt-3">
         {(queue.offline || queue.serverAway) && (
-          <p role="alert" className="rounded-lg border-slab border-edge bg-minor p-3 text-lg font-bold text-ground" data-testid="away-banner">
-            {queue.offline ? 'No connection.' : 'RigCall’s server is not answering.'} Keep going: everything is saved on this phone and will be sent.
+          <p
+            role="alert"
+            className="rounded-lg border-slab border-edge bg-minor p-3 text-lg font-bold text-ground"
+            data-testid="away-banner"
+          >
+            {queue.offline ? 'No connection.' : 'RigCall’s server is not answering.'} Keep going: everything is saved on
+            this phone and will be sent.
           </p>
         )}
         {queue.failed.length > 0 && (
           <div role="alert" className="rounded-lg border-slab border-major bg-panel p-3 text-lg">
-            <p className="font-bold text-major">▲ The server refused {queue.failed.length} entr{queue.failed.length > 1 ? 'ies' : 'y'}:</p>
+            <p className="font-bold text-major">
+              ▲ The server refused {queue.failed.length} entr{queue.failed.length > 1 ? 'ies' : 'y'}:
+            </p>
             <ul className="list-disc pl-6">
               {queue.failed.map((f) => (
                 <li key={f.key}>
@@ -316,23 +502,48 @@ export function WalkClient(props: Props) {
             pending={pending}
             onYes={() => {
               store.getState().holdForConfirmation(null);
-              logFinding({ ...pending.top, resolution: 'confirmed', heard: pending.heard, alternatives: pending.alternatives, inputMode: pending.inputMode });
+              logFinding({
+                ...pending.top,
+                resolution: 'confirmed',
+                heard: pending.heard,
+                alternatives: pending.alternatives,
+                inputMode: pending.inputMode,
+              });
             }}
             onNo={() => store.getState().declinePending()}
             onPick={(termKey) => {
               store.getState().holdForConfirmation(null);
               const item = zone.items.find((i) => i.component === termKey.split(':')[0]);
-              logFinding({ termKey, position: pending.top.position, score: pending.others.find((o) => o.termId === termKey)?.score ?? null, resolution: 'corrected', heard: pending.heard, alternatives: pending.alternatives, inputMode: pending.inputMode, itemId: item?.id ?? null });
+              logFinding({
+                termKey,
+                position: pending.top.position,
+                score: pending.others.find((o) => o.termId === termKey)?.score ?? null,
+                resolution: 'corrected',
+                heard: pending.heard,
+                alternatives: pending.alternatives,
+                inputMode: pending.inputMode,
+                itemId: item?.id ?? null,
+              });
             }}
             onNone={() => {
               store.getState().holdForConfirmation(null);
-              record({ ...base(zone.id), kind: 'note', heard: pending.heard, alternatives: pending.alternatives, inputMode: pending.inputMode, label: `not matched: ${pending.heard}` });
+              record({
+                ...base(zone.id),
+                kind: 'note',
+                heard: pending.heard,
+                alternatives: pending.alternatives,
+                inputMode: pending.inputMode,
+                label: `not matched: ${pending.heard}`,
+              });
               store.getState().setReadback('Not recorded as a defect. Tap the item and pick the defect instead.');
             }}
           />
         )}
         {pickerFor && (
-          <section aria-label={`Defect on ${pickerFor.label}`} className="space-y-2 rounded-lg border-slab border-edge bg-panel p-3">
+          <section
+            aria-label={`Defect on ${pickerFor.label}`}
+            className="space-y-2 rounded-lg border-slab border-edge bg-panel p-3"
+          >
             <p className="text-xl font-bold">What is wrong with the {pickerFor.label}?</p>
             <div className="grid grid-cols-2 gap-2">
               {(componentById.get(pickerFor.component)?.defects ?? []).map((d) => (
@@ -340,7 +551,16 @@ export function WalkClient(props: Props) {
                   key={d.condition}
                   onClick={() => {
                     setPickerFor(null);
-                    logFinding({ termKey: `${pickerFor.component}:${d.condition}`, position: null, score: null, resolution: null, heard: null, alternatives: [], inputMode: 'tap', itemId: pickerFor.id });
+                    logFinding({
+                      termKey: `${pickerFor.component}:${d.condition}`,
+                      position: null,
+                      score: null,
+                      resolution: null,
+                      heard: null,
+                      alternatives: [],
+                      inputMode: 'tap',
+                      itemId: pickerFor.id,
+                    });
                   }}
                 >
                   {conditionName.get(d.condition) ?? d.condition}
@@ -361,10 +581,25 @@ export function WalkClient(props: Props) {
             <p className="text-base text-muted">{cautionFooter}</p>
           </aside>
         )}
-        {zone.id === 'rear' && inspection.sealNumber && <SealCheckPanel expected={inspection.sealNumber} lastHeard={lastHeard?.toLowerCase().startsWith('seal') ? lastHeard.slice(4) : null} />}
+        {zone.id === 'rear' && inspection.sealNumber && (
+          <SealCheckPanel
+            expected={inspection.sealNumber}
+            lastHeard={lastHeard?.toLowerCase().startsWith('seal') ? lastHeard.slice(4) : null}
+          />
+        )}
         <ol className="flex flex-col gap-3" aria-label="Checklist">
           {zone.items.map((item) => (
-            <ChecklistRow key={item.id} item={item} answer={answers.get(item.id)} reading={lastReading(item.id)} onOk={() => record({ ...base(zone.id), item: item.id, kind: 'ok', inputMode: 'tap', label: `${item.label}: OK` })} onDefect={() => setPickerFor(item)} onReading={(v, mode) => logReading(item, v, mode, null)} />
+            <ChecklistRow
+              key={item.id}
+              item={item}
+              answer={answers.get(item.id)}
+              reading={lastReading(item.id)}
+              onOk={() =>
+                record({ ...base(zone.id), item: item.id, kind: 'ok', inputMode: 'tap', label: `${item.label}: OK` })
+              }
+              onDefect={() => setPickerFor(item)}
+              onReading={(v, mode) => logReading(item, v, mode, null)}
+            />
           ))}
         </ol>
         <form
@@ -375,8 +610,17 @@ export function WalkClient(props: Props) {
             setTyped('');
           }}
         >
-          <input className={`${inputClass} min-w-0 flex-1`} value={typed} onChange={(e) => setTyped(e.target.value)} placeholder="Type a finding or a reading" aria-label="Type a finding or a reading" />
-          <button type="submit" className="min-h-target min-w-target shrink-0 rounded-lg border-slab border-edge bg-panel px-4 text-xl font-bold">
+          <input
+            className={`${inputClass} min-w-0 flex-1`}
+            value={typed}
+            onChange={(e) => setTyped(e.target.value)}
+            placeholder="Type a finding or a reading"
+            aria-label="Type a finding or a reading"
+          />
+          <button
+            type="submit"
+            className="min-h-target min-w-target shrink-0 rounded-lg border-slab border-edge bg-panel px-4 text-xl font-bold"
+          >
             Send
           </button>
         </form>
@@ -387,21 +631,37 @@ export function WalkClient(props: Props) {
           <SlabButton onClick={() => goTo(zoneIndex + 1)} disabled={zoneIndex === zones.length - 1}>
             Next ▶
           </SlabButton>
-          <SlabButton onClick={() => photoInput.current?.click()}>Photo{photos.length ? ` (${photos.length})` : ''}</SlabButton>
+          <SlabButton onClick={() => photoInput.current?.click()}>
+            Photo{photos.length ? ` (${photos.length})` : ''}
+          </SlabButton>
           <SlabButton onClick={() => takeBack('tap')}>Undo</SlabButton>
           <SlabButton onClick={() => setMuted((m) => !m)} aria-pressed={muted}>
             {muted ? 'Voice prompts off' : 'Voice prompts on'}
           </SlabButton>
           <SlabButton onClick={() => store.getState().setPhase('reviewing')}>Review &amp; sign</SlabButton>
         </div>
-        <input ref={photoInput} type="file" accept="image/*" capture="environment" className="sr-only" tabIndex={-1} aria-label="Photo of the defect" onChange={(e) => (e.target.files?.[0] ? void onPhoto(e.target.files[0]) : undefined, (e.target.value = ''))} />
+        <input
+          ref={photoInput}
+          type="file"
+          accept="image/*"
+          capture="environment"
+          className="sr-only"
+          tabIndex={-1}
+          aria-label="Photo of the defect"
+          onChange={(e) => (e.target.files?.[0] ? void onPhoto(e.target.files[0]) : undefined, (e.target.value = ''))}
+        />
         <p className="text-base text-muted">
           {visited.size} of {zones.length} zones visited · unit {props.tractorNumber}
           {props.trailerNumber ? ` + ${props.trailerNumber}` : ''}
         </p>
       </div>
       <div className="fixed inset-x-0 bottom-0 z-10 grid grid-cols-2 gap-2 border-t-slab border-edge bg-ground p-2">
-        <SlabButton tone={listening ? 'plain' : 'primary'} onClick={toggleListen} disabled={!listener.current || mic.state === 'denied'} aria-pressed={listening}>
+        <SlabButton
+          tone={listening ? 'plain' : 'primary'}
+          onClick={toggleListen}
+          disabled={!listener.current || mic.state === 'denied'}
+          aria-pressed={listening}
+        >
           {listening ? '■ Stop listening' : '● Listen'}
         </SlabButton>
         {mic.state === 'unavailable' || mic.state === 'denied' ? (
@@ -409,7 +669,11 @@ export function WalkClient(props: Props) {
             All good ▶
           </SlabButton>
         ) : (
-          <HoldToTalk disabled={!listener.current} onDown={() => listener.current?.start()} onUp={() => listener.current?.stop()} />
+          <HoldToTalk
+            disabled={!listener.current}
+            onDown={() => listener.current?.start()}
+            onUp={() => listener.current?.stop()}
+          />
         )}
         <div className="col-span-2">
           <SlabButton tone="primary" onClick={() => markZoneGood('tap', null)}>
@@ -421,7 +685,21 @@ export function WalkClient(props: Props) {
   );
 }
 
-function ChecklistRow({ item, answer, reading, onOk, onDefect, onReading }: { item: ZoneItem; answer: ReturnType<typeof mapItemAnswers> extends Map<string, infer A> ? A | undefined : never; reading: WalkStep | undefined; onOk: () => void; onDefect: () => void; onReading: (value: number, mode: 'typed') => void }) {
+function ChecklistRow({
+  item,
+  answer,
+  reading,
+  onOk,
+  onDefect,
+  onReading,
+}: {
+  item: ZoneItem;
+  answer: ReturnType<typeof mapItemAnswers> extends Map<string, infer A> ? A | undefined : never;
+  reading: WalkStep | undefined;
+  onOk: () => void;
+  onDefect: () => void;
+  onReading: (value: number, mode: 'typed') => void;
+}) {
   const [value, setValue] = useState('');
   const measure = item.measure;
   return (
@@ -443,8 +721,18 @@ function ChecklistRow({ item, answer, reading, onOk, onDefect, onReading }: { it
               setValue('');
             }}
           >
-            <input className={`${inputClass} min-w-0 flex-1`} inputMode="decimal" value={value} onChange={(e) => setValue(e.target.value)} aria-label={`${item.label} in ${measureUnit[measure]}`} placeholder={measureUnit[measure] === '32nds' ? 'e.g. 6 (/32 in)' : measureUnit[measure]} />
-            <button type="submit" className="min-h-target min-w-target shrink-0 rounded-lg border-slab border-edge bg-vest px-4 text-xl font-bold text-on-vest">
+            <input
+              className={`${inputClass} min-w-0 flex-1`}
+              inputMode="decimal"
+              value={value}
+              onChange={(e) => setValue(e.target.value)}
+              aria-label={`${item.label} in ${measureUnit[measure]}`}
+              placeholder={measureUnit[measure] === '32nds' ? 'e.g. 6 (/32 in)' : measureUnit[measure]}
+            />
+            <button
+              type="submit"
+              className="min-h-target min-w-target shrink-0 rounded-lg border-slab border-edge bg-vest px-4 text-xl font-bold text-on-vest"
+            >
               Record
             </button>
           </form>
@@ -464,7 +752,9 @@ function ChecklistRow({ item, answer, reading, onOk, onDefect, onReading }: { it
   );
 }
 
-function ReviewAndSign(props: Props & { store: ReturnType<typeof createWalkStore>; queue: ReturnType<typeof useFlushQueue> }) {
+function ReviewAndSign(
+  props: Props & { store: ReturnType<typeof createWalkStore>; queue: ReturnType<typeof useFlushQueue> },
+) {
   const { store, queue, inspection, zones } = props;
   const steps = useStore(store, (s) => s.steps);
   const phase = useStore(store, (s) => s.phase);
@@ -475,25 +765,49 @@ function ReviewAndSign(props: Props & { store: ReturnType<typeof createWalkStore
   const defects = listDefectSteps(steps);
   const answers = mapItemAnswers(zones, steps);
   const visited = listVisitedZones(steps);
-  const unchecked = zones.flatMap((z) => z.items.filter((i) => !answers.has(i.id)).map((i) => ({ zone: z.name, label: i.label })));
-  const duration = checkInspectionDuration(inspection.startedAt, phase === 'signed' ? finishedAt : new Date().toISOString(), { minimumPretripMinutes: props.minimumMinutes });
+  const unchecked = zones.flatMap((z) =>
+    z.items.filter((i) => !answers.has(i.id)).map((i) => ({ zone: z.name, label: i.label })),
+  );
+  const duration = checkInspectionDuration(
+    inspection.startedAt,
+    phase === 'signed' ? finishedAt : new Date().toISOString(),
+    { minimumPretripMinutes: props.minimumMinutes },
+  );
   const majors = defects.filter((d) => d.severity !== 'minor');
   const [signedClickAt, setSignedClickAt] = useState<number | null>(null);
   // Locked on the server: known from the page, or the outbox emptied after the signature went in.
   const sent =
-    inspection.status === 'submitted' || (phase === 'signed' && signedClickAt !== null && (queue.lastSentAt ?? 0) >= signedClickAt && queue.pending === 0 && queue.failed.length === 0);
+    inspection.status === 'submitted' ||
+    (phase === 'signed' &&
+      signedClickAt !== null &&
+      (queue.lastSentAt ?? 0) >= signedClickAt &&
+      queue.pending === 0 &&
+      queue.failed.length === 0);
 
   const pad = useRef<HTMLCanvasElement | null>(null);
   const [inked, setInked] = useState(false);
   const finishUrl = `/api/inspections/${inspection.id}/finish`;
   const sign = async () => {
     setSignedClickAt(Date.now());
-    const drawn = await new Promise<Blob | null>((resolve) => (pad.current ? pad.current.toBlob(resolve, 'image/png') : resolve(null)));
+    const drawn = await new Promise<Blob | null>((resolve) =>
+      pad.current ? pad.current.toBlob(resolve, 'image/png') : resolve(null),
+    );
     // The drawn signature goes first; the outbox keeps the order, online or not.
-    if (drawn) await enqueueRequest({ label: 'drawn signature', url: `/api/inspections/${inspection.id}/signature`, method: 'PUT', blob: drawn });
+    if (drawn)
+      await enqueueRequest({
+        label: 'drawn signature',
+        url: `/api/inspections/${inspection.id}/signature`,
+        method: 'PUT',
+        blob: drawn,
+      });
     // The signature names every step on this phone, so that the server cannot lock a report short of one.
     const stepIds = store.getState().steps.map((s) => s.id);
-    await enqueueRequest({ label: 'signature', url: finishUrl, method: 'POST', json: { signatureName: name, certify: true, finishedAt: new Date().toISOString(), stepIds } });
+    await enqueueRequest({
+      label: 'signature',
+      url: finishUrl,
+      method: 'POST',
+      json: { signatureName: name, certify: true, finishedAt: new Date().toISOString(), stepIds },
+    });
     store.getState().setPhase('signed', name);
   };
 
@@ -509,11 +823,19 @@ function ReviewAndSign(props: Props & { store: ReturnType<typeof createWalkStore
       try {
         const outbox = await deviceQueue.list();
         const plan = planResend({ outbox, steps: store.getState().steps, finishUrl });
-        setStillMissing(!plan && outbox.some((r) => r.url === finishUrl && r.state === 'failed' && !!r.errorFields?.stepIds));
+        setStillMissing(
+          !plan && outbox.some((r) => r.url === finishUrl && r.state === 'failed' && !!r.errorFields?.stepIds),
+        );
         if (!plan) return;
         await dropFailedRequest(plan.dropKey);
         for (const step of plan.steps) await enqueueStep(inspection.id, step);
-        await enqueueRequest({ label: 'signature', url: finishUrl, method: 'POST', json: plan.finishJson, resendRound: plan.round });
+        await enqueueRequest({
+          label: 'signature',
+          url: finishUrl,
+          method: 'POST',
+          json: plan.finishJson,
+          resendRound: plan.round,
+        });
       } finally {
         resending.current = false;
       }
@@ -535,7 +857,8 @@ function ReviewAndSign(props: Props & { store: ReturnType<typeof createWalkStore
         </p>
       </div>
       <p className={`text-xl ${duration.short ? 'font-bold text-minor' : 'text-pass'}`}>
-        {duration.short ? '△' : '✓'} {Math.round(duration.minutes)} min spent · fleet minimum {duration.minimumMinutes} min{duration.short ? ': shorter than the minimum' : ''}
+        {duration.short ? '△' : '✓'} {Math.round(duration.minutes)} min spent · fleet minimum {duration.minimumMinutes}{' '}
+        min{duration.short ? ': shorter than the minimum' : ''}
       </p>
       <p className="text-lg">
         {visited.size} of {zones.length} zones visited.
@@ -550,13 +873,17 @@ function ReviewAndSign(props: Props & { store: ReturnType<typeof createWalkStore
         {defects.map((d) => (
           <li key={d.id} className="rounded-lg border-slab border-edge bg-panel p-3 text-lg">
             <SeverityMark severity={d.severity ?? 'major'} /> {d.label}
-            {d.kind === 'measurement' && d.limit ? ` (limit ${formatReading(Number(d.limit.split(' ')[0]), d.limit.split(' ').slice(1).join(' '))})` : ''}
+            {d.kind === 'measurement' && d.limit
+              ? ` (limit ${formatReading(Number(d.limit.split(' ')[0]), d.limit.split(' ').slice(1).join(' '))})`
+              : ''}
           </li>
         ))}
       </ul>
       {unchecked.length > 0 && (
         <details className="rounded-lg border-slab border-edge bg-panel p-3 text-lg">
-          <summary className="min-h-target cursor-pointer content-center font-bold">Items not checked ({unchecked.length})</summary>
+          <summary className="min-h-target cursor-pointer content-center font-bold">
+            Items not checked ({unchecked.length})
+          </summary>
           <ul className="list-disc pl-6">
             {unchecked.map((u) => (
               <li key={`${u.zone}-${u.label}`}>
@@ -586,16 +913,31 @@ function ReviewAndSign(props: Props & { store: ReturnType<typeof createWalkStore
         <>
           <SlabButton onClick={() => store.getState().setPhase('walking')}>◀ Back to the walk</SlabButton>
           <label className="flex min-h-target items-center gap-3 rounded-lg border-slab border-edge bg-panel p-3 text-lg">
-            <input type="checkbox" className="size-8 shrink-0" checked={certified} onChange={(e) => setCertified(e.target.checked)} />
+            <input
+              type="checkbox"
+              className="size-8 shrink-0"
+              checked={certified}
+              onChange={(e) => setCertified(e.target.checked)}
+            />
             {certification}
           </label>
           <label className="flex flex-col gap-2 text-lg font-bold">
             Type your full name to sign
-            <input className={inputClass} value={name} onChange={(e) => setName(e.target.value)} placeholder={props.driverName} autoComplete="name" />
+            <input
+              className={inputClass}
+              value={name}
+              onChange={(e) => setName(e.target.value)}
+              placeholder={props.driverName}
+              autoComplete="name"
+            />
           </label>
           <p className="text-lg font-bold">Sign with your finger</p>
           <SignaturePad canvasRef={pad} onInk={setInked} />
-          <SlabButton tone="primary" disabled={!certified || name.trim().length < 2 || !inked} onClick={() => void sign()}>
+          <SlabButton
+            tone="primary"
+            disabled={!certified || name.trim().length < 2 || !inked}
+            onClick={() => void sign()}
+          >
             Sign and lock the report
           </SlabButton>
         </>

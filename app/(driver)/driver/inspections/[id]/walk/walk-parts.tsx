@@ -12,13 +12,15 @@ export const inputClass = 'min-h-target w-full rounded-lg border-slab border-edg
 
 /** Severity in words and shape, never by colour alone. */
 export function SeverityMark({ severity }: { severity: 'minor' | 'major' | null | undefined }) {
-  if (severity === 'major') return <span className="rounded bg-major px-2 py-0.5 font-extrabold text-on-major">■ MAJOR · OUT OF SERVICE</span>;
+  if (severity === 'major')
+    return <span className="rounded bg-major px-2 py-0.5 font-extrabold text-on-major">■ MAJOR · OUT OF SERVICE</span>;
   if (severity === 'minor') return <span className="font-bold text-minor">△ minor</span>;
   return null;
 }
 
 export function AnswerMark({ answer }: { answer: ItemAnswer | undefined }) {
-  if (answer === 'ok' || answer === 'measured') return <span className="font-bold text-pass">✓ {answer === 'ok' ? 'OK' : 'passed'}</span>;
+  if (answer === 'ok' || answer === 'measured')
+    return <span className="font-bold text-pass">✓ {answer === 'ok' ? 'OK' : 'passed'}</span>;
   if (answer === 'defect' || answer === 'failed') return <span className="font-bold text-major">▲ defect</span>;
   return <span className="text-muted">○ open</span>;
 }
@@ -33,7 +35,25 @@ export function formatReading(value: number | undefined | null, unit: string): s
 
 export const capitalize = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
-export function WalkStatusBar({ zoneName, zoneNumber, zoneCount, startedAt, minimumMinutes, queue, itemsLeft, children }: { zoneName: string; zoneNumber: number; zoneCount: number; startedAt: string; minimumMinutes: number; queue: QueueStatus; itemsLeft: number; children?: ReactNode }) {
+export function WalkStatusBar({
+  zoneName,
+  zoneNumber,
+  zoneCount,
+  startedAt,
+  minimumMinutes,
+  queue,
+  itemsLeft,
+  children,
+}: {
+  zoneName: string;
+  zoneNumber: number;
+  zoneCount: number;
+  startedAt: string;
+  minimumMinutes: number;
+  queue: QueueStatus;
+  itemsLeft: number;
+  children?: ReactNode;
+}) {
   const [now, setNow] = useState(() => Date.now());
   useEffect(() => {
     const t = window.setInterval(() => setNow(Date.now()), 1000);
@@ -62,7 +82,12 @@ export function WalkStatusBar({ zoneName, zoneNumber, zoneCount, startedAt, mini
         <span className={short ? 'text-minor' : 'text-pass'}>
           Time {minutes(elapsed)} of {minimumMinutes} min
         </span>
-        <span role="status" aria-live="polite" data-testid="sync-status" className={`rounded px-2 font-bold ${sync.tone}`}>
+        <span
+          role="status"
+          aria-live="polite"
+          data-testid="sync-status"
+          className={`rounded px-2 font-bold ${sync.tone}`}
+        >
           {sync.text}
         </span>
       </div>
@@ -71,7 +96,19 @@ export function WalkStatusBar({ zoneName, zoneNumber, zoneCount, startedAt, mini
   );
 }
 
-export function PendingMatchPanel({ pending, onYes, onNo, onPick, onNone }: { pending: PendingMatch; onYes: () => void; onNo: () => void; onPick: (termKey: string) => void; onNone: () => void }) {
+export function PendingMatchPanel({
+  pending,
+  onYes,
+  onNo,
+  onPick,
+  onNone,
+}: {
+  pending: PendingMatch;
+  onYes: () => void;
+  onNo: () => void;
+  onPick: (termKey: string) => void;
+  onNone: () => void;
+}) {
   return (
     <section aria-label="Did you mean" className="space-y-3 rounded-lg border-slab border-edge bg-panel p-4">
       <p className="text-lg text-muted">Heard: “{pending.heard}”</p>
@@ -120,7 +157,10 @@ export function AirTimer({ mode, onResult }: { mode: 'minute' | 'stopwatch'; onR
     return startedAt === null ? (
       <SlabButton onClick={() => (setStartedAt(Date.now()), setNow(Date.now()))}>Start the 1-minute timer</SlabButton>
     ) : (
-      <p className="flex min-h-target items-center justify-center rounded-lg border-slab border-edge text-3xl font-extrabold" role="timer">
+      <p
+        className="flex min-h-target items-center justify-center rounded-lg border-slab border-edge text-3xl font-extrabold"
+        role="timer"
+      >
         {left > 0 ? `${left} s` : 'Time: read the gauge'}
       </p>
     );
@@ -146,8 +186,16 @@ export function SealCheckPanel({ expected, lastHeard }: { expected: string; last
   const result = heard ? compareSeal(expected, heard) : null;
   return (
     <section aria-label="Seal check" className="space-y-2 rounded-lg border-slab border-edge bg-panel p-4">
-      <p className="text-xl font-bold">Seal check: read the seal number aloud (say “seal” then the digits) or type it.</p>
-      <input className={inputClass} inputMode="text" value={typed} onChange={(e) => setTyped(e.target.value)} aria-label="Seal number on the trailer" />
+      <p className="text-xl font-bold">
+        Seal check: read the seal number aloud (say “seal” then the digits) or type it.
+      </p>
+      <input
+        className={inputClass}
+        inputMode="text"
+        value={typed}
+        onChange={(e) => setTyped(e.target.value)}
+        aria-label="Seal number on the trailer"
+      />
       {result &&
         (result.matches ? (
           <p className="text-xl font-bold text-pass" role="status">
@@ -155,7 +203,8 @@ export function SealCheckPanel({ expected, lastHeard }: { expected: string; last
           </p>
         ) : (
           <p className="text-xl font-bold text-major" role="alert">
-            ▲ Seal {result.heard || '—'} does not match {result.expected}: digit{result.wrongPositions.length > 1 ? 's' : ''} {result.wrongPositions.join(', ')}.
+            ▲ Seal {result.heard || '—'} does not match {result.expected}: digit
+            {result.wrongPositions.length > 1 ? 's' : ''} {result.wrongPositions.join(', ')}.
           </p>
         ))}
     </section>
@@ -166,12 +215,18 @@ export function ReadingResult({ step }: { step: WalkStep | undefined }) {
   if (!step) return null;
   const unit = step.limit?.split(' ').slice(1).join(' ') ?? '';
   const limit = step.limit ? formatReading(Number(step.limit.split(' ')[0]), unit) : null;
-  if (step.verdict === 'pass') return <p className="text-lg font-bold text-pass">✓ Pass · {formatReading(step.reading?.value, unit)} {limit ? `(limit ${limit})` : ''}</p>;
+  if (step.verdict === 'pass')
+    return (
+      <p className="text-lg font-bold text-pass">
+        ✓ Pass · {formatReading(step.reading?.value, unit)} {limit ? `(limit ${limit})` : ''}
+      </p>
+    );
   if (step.verdict === 'fail')
     return (
       <div className="space-y-1 text-lg">
         <p className="font-bold">
-          <SeverityMark severity={step.severity} /> {formatReading(step.reading?.value, unit)}: fails the limit {limit ? `(${limit})` : ''}
+          <SeverityMark severity={step.severity} /> {formatReading(step.reading?.value, unit)}: fails the limit{' '}
+          {limit ? `(${limit})` : ''}
         </p>
         {step.message && <p>{step.message}</p>}
         {step.source && <p className="text-base text-muted">Source: {step.source}</p>}
@@ -187,7 +242,7 @@ export function HoldToTalk({ onDown, onUp, disabled }: { onDown: () => void; onU
     <button
       type="button"
       disabled={disabled}
-      className="flex min-h-target w-full touch-none select-none items-center justify-center rounded-lg border-slab border-edge bg-panel px-4 text-xl font-bold active:bg-vest active:text-on-vest disabled:opacity-60"
+      className="flex min-h-target w-full touch-none items-center justify-center rounded-lg border-slab border-edge bg-panel px-4 text-xl font-bold select-none active:bg-vest active:text-on-vest disabled:opacity-60"
       onPointerDown={(e) => {
         e.currentTarget.setPointerCapture(e.pointerId);
         held.current = true;
@@ -208,11 +263,20 @@ export function HoldToTalk({ onDown, onUp, disabled }: { onDown: () => void; onU
 }
 
 /** A pad to sign with a finger (gloves work on a pad this big); reports whether it holds ink. */
-export function SignaturePad({ onInk, canvasRef }: { onInk: (hasInk: boolean) => void; canvasRef: React.RefObject<HTMLCanvasElement | null> }) {
+export function SignaturePad({
+  onInk,
+  canvasRef,
+}: {
+  onInk: (hasInk: boolean) => void;
+  canvasRef: React.RefObject<HTMLCanvasElement | null>;
+}) {
   const drawing = useRef(false);
   const pos = (e: React.PointerEvent<HTMLCanvasElement>) => {
     const r = e.currentTarget.getBoundingClientRect();
-    return { x: ((e.clientX - r.left) * e.currentTarget.width) / r.width, y: ((e.clientY - r.top) * e.currentTarget.height) / r.height };
+    return {
+      x: ((e.clientX - r.left) * e.currentTarget.width) / r.width,
+      y: ((e.clientY - r.top) * e.currentTarget.height) / r.height,
+    };
   };
   const clear = () => {
     const c = canvasRef.current;

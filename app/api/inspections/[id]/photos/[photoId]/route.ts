@@ -6,7 +6,14 @@ import { MAX_PHOTO_BYTES, savePhoto } from '@/lib/services/save-photo';
 export const PUT = defineRoute(
   { roles: ['driver'], params: photoParamsSchema, query: photoQuerySchema, rawBody: { maxBytes: MAX_PHOTO_BYTES } },
   async ({ user, params, query, bytes }) => {
-    const { attachment, created } = await savePhoto({ fleetId: user.fleetId, actorId: user.id, inspectionId: params.id, photoId: params.photoId, stepId: query.stepId ?? null, bytes: bytes ?? new Uint8Array() });
+    const { attachment, created } = await savePhoto({
+      fleetId: user.fleetId,
+      actorId: user.id,
+      inspectionId: params.id,
+      photoId: params.photoId,
+      stepId: query.stepId ?? null,
+      bytes: bytes ?? new Uint8Array(),
+    });
     return Response.json({ attachment }, { status: created ? 201 : 200 });
   },
 );

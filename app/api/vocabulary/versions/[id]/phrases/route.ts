@@ -4,6 +4,10 @@ import { addPhraseBodySchema } from '@/lib/schemas/vocabulary';
 import { addFieldPhrase } from '@/lib/services/add-field-phrase';
 
 // Add what a driver said as a phrase of a term in the draft (the inbox's one-click action).
-export const POST = defineRoute({ roles: ['trainer'], params: idParamsSchema, body: addPhraseBodySchema }, async ({ user, params, body }) =>
-  Response.json(await addFieldPhrase({ fleetId: user.fleetId, actorId: user.id, versionId: params.id, body }), { status: 201 }),
+export const POST = defineRoute(
+  { roles: ['trainer'], params: idParamsSchema, body: addPhraseBodySchema },
+  async ({ user, params, body }) =>
+    Response.json(await addFieldPhrase({ fleetId: user.fleetId, actorId: user.id, versionId: params.id, body }), {
+      status: 201,
+    }),
 );
