@@ -15,7 +15,7 @@ export function getDb(): DB {
 /**
  * The client for an open walk's steps: its commits do not wait for the disk. The phone keeps
  * every step until the report is signed, and signing (on getDb, waiting for the disk) names them
- * all and is refused while one is missing; see lib/services/record-step.ts.
+ * all and is refused while one is missing; see lib/services/inspections/record-step.ts.
  */
 export function getStepDb(): DB {
   if (!globalForDb.rigcallStepDb)

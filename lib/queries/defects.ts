@@ -1,7 +1,7 @@
 import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import { fetchJson } from '@/lib/http/fetch-json';
 import type { CertifyRepairBody } from '@/lib/schemas/defects';
-import type { DefectDetail } from '@/lib/services/get-defect-or-throw';
+import type { DefectDetail } from '@/lib/services/defects/get-defect-or-throw';
 import { reportKeys } from './reports';
 
 export const defectKeys = {

@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import { requireRole } from '@/lib/auth/guards';
-import { getAdminSummary } from '@/lib/services/get-admin-summary';
+import { getAdminSummary } from '@/lib/services/people/get-admin-summary';
 import { AdminOverview } from './admin-overview';
 
 export const metadata: Metadata = { title: 'Administration' };

@@ -1,7 +1,7 @@
 import { RoleHome } from '@/components/app-shell/role-home';
 import { requireRole } from '@/lib/auth/guards';
 import { listDefectsQuerySchema } from '@/lib/schemas/defects';
-import { listDefectQueue } from '@/lib/services/list-defect-queue';
+import { listDefectQueue } from '@/lib/services/defects/list-defect-queue';
 import { DefectQueue } from './defect-queue';
 
 export default async function MechanicHomePage({

@@ -1,6 +1,6 @@
 import Link from 'next/link';
 import { formatDateTime, formatDuration, kindLabel } from '@/components/office/format';
-import type { SupervisorBoard } from '@/lib/services/get-supervisor-board';
+import type { SupervisorBoard } from '@/lib/services/units/get-supervisor-board';
 
 const reasonText: Record<string, string> = {
   major_defect: 'major defect',

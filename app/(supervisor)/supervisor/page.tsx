@@ -1,6 +1,6 @@
 import { RoleHome } from '@/components/app-shell/role-home';
 import { requireRole } from '@/lib/auth/guards';
-import { getSupervisorBoard } from '@/lib/services/get-supervisor-board';
+import { getSupervisorBoard } from '@/lib/services/units/get-supervisor-board';
 import { AttentionList } from './attention-list';
 import { UnitsBoard } from './units-board';
 

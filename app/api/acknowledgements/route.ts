@@ -1,6 +1,6 @@
 import { defineRoute } from '@/lib/api/define-route';
 import { acknowledgeBodySchema } from '@/lib/schemas/inspections';
-import { recordAcknowledgement } from '@/lib/services/record-acknowledgement';
+import { recordAcknowledgement } from '@/lib/services/inspections/record-acknowledgement';
 
 export const POST = defineRoute({ roles: ['driver'], body: acknowledgeBodySchema }, async ({ user, body }) => {
   const { acknowledgement, created } = await recordAcknowledgement({

@@ -1,5 +1,5 @@
 import { defineRoute } from '@/lib/api/define-route';
-import { getOfficeDashboard } from '@/lib/services/get-office-dashboard';
+import { getOfficeDashboard } from '@/lib/services/reports/get-office-dashboard';
 
 export const GET = defineRoute({ roles: ['supervisor'] }, async ({ user }) =>
   Response.json(await getOfficeDashboard({ fleetId: user.fleetId })),

@@ -1,6 +1,6 @@
 import { defineRoute } from '@/lib/api/define-route';
 import { listDefectsQuerySchema } from '@/lib/schemas/defects';
-import { listDefectQueue } from '@/lib/services/list-defect-queue';
+import { listDefectQueue } from '@/lib/services/defects/list-defect-queue';
 
 export const GET = defineRoute(
   { roles: ['mechanic', 'supervisor'], query: listDefectsQuerySchema },

@@ -1,5 +1,5 @@
 import { defineRoute } from '@/lib/api/define-route';
-import { checkHealth } from '@/lib/services/check-health';
+import { checkHealth } from '@/lib/services/platform/check-health';
 
 export const dynamic = 'force-dynamic';
 

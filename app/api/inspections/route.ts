@@ -2,7 +2,7 @@ import { defineRoute } from '@/lib/api/define-route';
 import { getDb } from '@/lib/db';
 import { listDriverInspections } from '@/lib/db/inspections';
 import { startInspectionBodySchema } from '@/lib/schemas/inspections';
-import { startInspection } from '@/lib/services/start-inspection';
+import { startInspection } from '@/lib/services/inspections/start-inspection';
 
 export const POST = defineRoute({ roles: ['driver'], body: startInspectionBodySchema }, async ({ user, body }) => {
   const { inspection, created } = await startInspection({ fleetId: user.fleetId, actorId: user.id, body });

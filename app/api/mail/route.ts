@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { defineRoute } from '@/lib/api/define-route';
-import { listCaughtMessages } from '@/lib/services/list-caught-messages';
+import { listCaughtMessages } from '@/lib/services/mail/list-caught-messages';
 
 const query = z.object({ to: z.string().email().optional() });
 

@@ -1,6 +1,6 @@
 import { defineRoute } from '@/lib/api/define-route';
 import { listReportsQuerySchema } from '@/lib/schemas/reports';
-import { listReports } from '@/lib/services/list-reports';
+import { listReports } from '@/lib/services/reports/list-reports';
 
 export const GET = defineRoute({ roles: ['supervisor'], query: listReportsQuerySchema }, async ({ user, query }) =>
   Response.json(await listReports({ fleetId: user.fleetId, query })),

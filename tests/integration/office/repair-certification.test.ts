@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import * as certificationRoute from '@/app/api/defects/[id]/certification/route';
 import * as defectsRoute from '@/app/api/defects/route';
 import * as pendingRoute from '@/app/api/reports/acknowledgements/route';
-import { listPendingAcknowledgements } from '@/lib/services/list-pending-acknowledgements';
+import { listPendingAcknowledgements } from '@/lib/services/inspections/list-pending-acknowledgements';
 import { callRoute, makeRequest } from '../../setup/session';
 import { caughtMailTo, makeOfficeFleet, makeSignedReport, type OfficeFleet } from './office-fixtures';
 

@@ -5,8 +5,8 @@ import { extractText, getDocumentProxy } from 'unpdf';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import * as exportRoute from '@/app/api/reports/export/route';
 import * as pdfRoute from '@/app/api/reports/[id]/pdf/route';
-import { escapeCsvCell, reportCsvColumns } from '@/lib/services/export-reports-csv';
-import { certifyRepair } from '@/lib/services/certify-repair';
+import { escapeCsvCell, reportCsvColumns } from '@/lib/services/reports/export-reports-csv';
+import { certifyRepair } from '@/lib/services/defects/certify-repair';
 import { callRoute, makeRequest } from '../../setup/session';
 import { makeOfficeFleet, makeSignedReport, type OfficeFleet } from './office-fixtures';
 

@@ -2,7 +2,7 @@
 // on a fleet with seeded-style history (db/seeds/02-history).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import * as reportsRoute from '@/app/api/reports/route';
-import { listReports } from '@/lib/services/list-reports';
+import { listReports } from '@/lib/services/reports/list-reports';
 import { listReportsQuerySchema, type ListReportsQuery } from '@/lib/schemas/reports';
 import { callRoute, makeRequest } from '../../setup/session';
 import { makeOfficeFleet, type OfficeFleet } from './office-fixtures';

@@ -8,7 +8,7 @@ import * as me from '@/app/api/me/route';
 import * as inspections from '@/app/api/inspections/route';
 import { authOptions, sessionMaxAgeSeconds } from '@/lib/auth/config';
 import { signInLimits } from '@/lib/auth/rate-limit';
-import { checkReportIntegrity } from '@/lib/services/get-report-integrity';
+import { checkReportIntegrity } from '@/lib/services/reports/get-report-integrity';
 import { makeUser } from '../../../db/factories';
 import { makeFleetFixture, type FleetFixture } from '../../setup/fleet-fixture';
 import { callRoute, makeRequest } from '../../setup/session';

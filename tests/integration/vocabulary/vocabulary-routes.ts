@@ -13,7 +13,7 @@ import * as version from '@/app/api/vocabulary/versions/[id]/route';
 import * as versions from '@/app/api/vocabulary/versions/route';
 import zones from '@/grammars/zones.json' with { type: 'json' };
 import { getDefaultGrammar } from '@/lib/db/vocabulary';
-import { createDraftVersion } from '@/lib/services/create-draft-version';
+import { createDraftVersion } from '@/lib/services/vocabulary/create-draft-version';
 import type { FleetFixture } from '../../setup/fleet-fixture';
 import { callRoute, makeRequest } from '../../setup/session';
 

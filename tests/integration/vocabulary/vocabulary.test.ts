@@ -25,8 +25,8 @@ import {
   type LabelledUtterance,
 } from '@/lib/matcher/fixture-scoring';
 import type { EvaluationReport, VersionDetail } from '@/lib/schemas/vocabulary';
-import { scoreLabelledSet } from '@/lib/services/evaluate-vocabulary';
-import { loadWalkOrNull } from '@/lib/services/load-walk';
+import { scoreLabelledSet } from '@/lib/services/vocabulary/evaluate-vocabulary';
+import { loadWalkOrNull } from '@/lib/services/inspections/load-walk';
 import { makeFleetFixture, type FleetFixture } from '../../setup/fleet-fixture';
 import { callRoute, makeRequest } from '../../setup/session';
 import { getTestDb } from '../../setup/test-db';

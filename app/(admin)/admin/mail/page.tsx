@@ -1,5 +1,5 @@
 import { requireRole } from '@/lib/auth/guards';
-import { listCaughtMessages } from '@/lib/services/list-caught-messages';
+import { listCaughtMessages } from '@/lib/services/mail/list-caught-messages';
 
 export const metadata = { title: 'Caught mail' };
 export const dynamic = 'force-dynamic';

@@ -1,5 +1,5 @@
 import { requireRole } from '@/lib/auth/guards';
-import { getOfficeDashboard } from '@/lib/services/get-office-dashboard';
+import { getOfficeDashboard } from '@/lib/services/reports/get-office-dashboard';
 import { DashboardCharts } from './dashboard-charts';
 
 export const metadata = { title: 'Trends' };

@@ -4,7 +4,7 @@ import { getDb } from '@/lib/db';
 import { listReportFilterOptions } from '@/lib/db/reports';
 import { paramsFromSearch, reportKeys } from '@/lib/queries/reports';
 import { listReportsQuerySchema } from '@/lib/schemas/reports';
-import { getFleetMinimumsOrThrow, listReports } from '@/lib/services/list-reports';
+import { getFleetMinimumsOrThrow, listReports } from '@/lib/services/reports/list-reports';
 import { ReportsClient } from './reports-client';
 
 export const metadata = { title: 'Reports' };

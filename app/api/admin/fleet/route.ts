@@ -3,7 +3,7 @@ import { getDb } from '@/lib/db';
 import { findFleetSettings } from '@/lib/db/fleets';
 import { AppError } from '@/lib/errors';
 import { updateFleetSettingsBodySchema } from '@/lib/schemas/fleet';
-import { updateFleetSettings } from '@/lib/services/update-fleet-settings';
+import { updateFleetSettings } from '@/lib/services/people/update-fleet-settings';
 
 export const GET = defineRoute({ roles: ['admin'] }, async ({ user }) => {
   const fleet = await findFleetSettings(getDb(), { fleetId: user.fleetId });

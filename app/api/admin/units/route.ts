@@ -2,7 +2,7 @@ import { defineRoute } from '@/lib/api/define-route';
 import { getDb } from '@/lib/db';
 import { listFleetUnits } from '@/lib/db/units';
 import { createUnitBodySchema, listUnitsQuerySchema } from '@/lib/schemas/units';
-import { createUnit } from '@/lib/services/create-unit';
+import { createUnit } from '@/lib/services/units/create-unit';
 
 /** The fleet's tractors and trailers; ?kind=tractor|trailer, ?retired=include|exclude|only. */
 export const GET = defineRoute({ roles: ['admin'], query: listUnitsQuerySchema }, async ({ user, query }) =>

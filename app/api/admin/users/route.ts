@@ -2,7 +2,7 @@ import { defineRoute } from '@/lib/api/define-route';
 import { getDb } from '@/lib/db';
 import { listFleetUsers } from '@/lib/db/users';
 import { inviteUserBodySchema } from '@/lib/schemas/users';
-import { inviteUser } from '@/lib/services/invite-user';
+import { inviteUser } from '@/lib/services/people/invite-user';
 
 /** Everyone in the admin's fleet. */
 export const GET = defineRoute({ roles: ['admin'] }, async ({ user }) =>

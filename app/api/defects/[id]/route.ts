@@ -1,6 +1,6 @@
 import { defineRoute } from '@/lib/api/define-route';
 import { idParamsSchema } from '@/lib/schemas/common';
-import { getDefectOrThrow } from '@/lib/services/get-defect-or-throw';
+import { getDefectOrThrow } from '@/lib/services/defects/get-defect-or-throw';
 
 export const GET = defineRoute(
   { roles: ['mechanic', 'supervisor'], params: idParamsSchema },

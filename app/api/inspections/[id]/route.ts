@@ -1,6 +1,6 @@
 import { defineRoute } from '@/lib/api/define-route';
 import { idParamsSchema } from '@/lib/schemas/common';
-import { getInspectionOrThrow } from '@/lib/services/get-inspection-or-throw';
+import { getInspectionOrThrow } from '@/lib/services/inspections/get-inspection-or-throw';
 
 // Drivers read reports too: the last report of a unit is reviewed before driving (49 CFR 396.13).
 export const GET = defineRoute(

@@ -1,6 +1,6 @@
 import { defineRoute } from '@/lib/api/define-route';
 import { exportReportsQuerySchema } from '@/lib/schemas/reports';
-import { exportReportsCsv } from '@/lib/services/export-reports-csv';
+import { exportReportsCsv } from '@/lib/services/reports/export-reports-csv';
 
 // The filtered reports table as CSV, for audits: same filters and order as GET /api/reports.
 export const GET = defineRoute({ roles: ['supervisor'], query: exportReportsQuerySchema }, async ({ user, query }) => {

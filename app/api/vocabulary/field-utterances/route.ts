@@ -1,7 +1,7 @@
 import { defineRoute } from '@/lib/api/define-route';
 import { dismissUtterancesBodySchema } from '@/lib/schemas/vocabulary';
-import { dismissFieldUtterances } from '@/lib/services/dismiss-field-utterances';
-import { listFieldUtterances } from '@/lib/services/list-field-utterances';
+import { dismissFieldUtterances } from '@/lib/services/vocabulary/dismiss-field-utterances';
+import { listFieldUtterances } from '@/lib/services/vocabulary/list-field-utterances';
 
 // The inbox: what drivers said that matched nothing, matched unsurely, or was corrected.
 export const GET = defineRoute({ roles: ['trainer'] }, async ({ user }) =>

@@ -1,6 +1,6 @@
 import { defineRoute } from '@/lib/api/define-route';
 import { importGrammarBodySchema } from '@/lib/schemas/vocabulary';
-import { importGrammar } from '@/lib/services/import-grammar';
+import { importGrammar } from '@/lib/services/vocabulary/import-grammar';
 
 // Load grammars/ files into the fleet's draft.
 export const POST = defineRoute(

@@ -2,8 +2,8 @@ import { z } from 'zod';
 import { defineRoute } from '@/lib/api/define-route';
 import { getDb } from '@/lib/db';
 import { saveTestSetBodySchema } from '@/lib/schemas/vocabulary';
-import { loadTestSet } from '@/lib/services/load-test-set';
-import { saveTestSet } from '@/lib/services/save-test-set';
+import { loadTestSet } from '@/lib/services/vocabulary/load-test-set';
+import { saveTestSet } from '@/lib/services/vocabulary/save-test-set';
 
 const testSetQuerySchema = z.object({ format: z.enum(['json', 'jsonl']).default('json') });
 

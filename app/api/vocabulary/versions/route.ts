@@ -2,7 +2,7 @@ import { defineRoute } from '@/lib/api/define-route';
 import { getDb } from '@/lib/db';
 import { listVocabularyVersions } from '@/lib/db/vocabulary';
 import { createVersionBodySchema } from '@/lib/schemas/vocabulary';
-import { createDraftVersion } from '@/lib/services/create-draft-version';
+import { createDraftVersion } from '@/lib/services/vocabulary/create-draft-version';
 
 // The fleet's vocabulary versions: the open draft and every published one.
 export const GET = defineRoute({ roles: ['trainer'] }, async ({ user }) =>

@@ -4,7 +4,7 @@ import { requireRole } from '@/lib/auth/guards';
 import { AppError } from '@/lib/errors';
 import { defectKeys } from '@/lib/queries/defects';
 import { idSchema } from '@/lib/schemas/common';
-import { getDefectOrThrow } from '@/lib/services/get-defect-or-throw';
+import { getDefectOrThrow } from '@/lib/services/defects/get-defect-or-throw';
 import { DefectClient } from './defect-client';
 
 export const metadata = { title: 'Defect' };

@@ -4,7 +4,7 @@ import { requireRole } from '@/lib/auth/guards';
 import { AppError } from '@/lib/errors';
 import { reportKeys } from '@/lib/queries/reports';
 import { idSchema } from '@/lib/schemas/common';
-import { getReportDetail } from '@/lib/services/get-report-detail';
+import { getReportDetail } from '@/lib/services/reports/get-report-detail';
 import { ReportClient } from './report-client';
 
 export const metadata = { title: 'Report' };

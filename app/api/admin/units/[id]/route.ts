@@ -3,7 +3,7 @@ import { getDb } from '@/lib/db';
 import { findFleetUnit } from '@/lib/db/units';
 import { AppError } from '@/lib/errors';
 import { unitParamsSchema, updateUnitBodySchema } from '@/lib/schemas/units';
-import { updateUnit } from '@/lib/services/update-unit';
+import { updateUnit } from '@/lib/services/units/update-unit';
 
 export const GET = defineRoute({ roles: ['admin'], params: unitParamsSchema }, async ({ user, params }) => {
   const unit = await findFleetUnit(getDb(), { fleetId: user.fleetId, id: params.id });

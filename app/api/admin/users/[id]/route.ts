@@ -3,7 +3,7 @@ import { getDb } from '@/lib/db';
 import { findFleetUser } from '@/lib/db/users';
 import { AppError } from '@/lib/errors';
 import { updateUserBodySchema, userParamsSchema } from '@/lib/schemas/users';
-import { updateUser } from '@/lib/services/update-user';
+import { updateUser } from '@/lib/services/people/update-user';
 
 export const GET = defineRoute({ roles: ['admin'], params: userParamsSchema }, async ({ user, params }) => {
   const found = await findFleetUser(getDb(), { fleetId: user.fleetId, id: params.id });

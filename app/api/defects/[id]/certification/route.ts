@@ -1,7 +1,7 @@
 import { defineRoute } from '@/lib/api/define-route';
 import { idParamsSchema } from '@/lib/schemas/common';
 import { certifyRepairBodySchema } from '@/lib/schemas/defects';
-import { certifyRepair } from '@/lib/services/certify-repair';
+import { certifyRepair } from '@/lib/services/defects/certify-repair';
 
 // The carrier's repair certification on the report, 49 CFR 396.11(a)(3).
 export const POST = defineRoute(

@@ -1,7 +1,7 @@
 import { defineRoute } from '@/lib/api/define-route';
 import { idParamsSchema } from '@/lib/schemas/common';
 import { finishInspectionBodySchema } from '@/lib/schemas/inspections';
-import { finishInspection } from '@/lib/services/finish-inspection';
+import { finishInspection } from '@/lib/services/inspections/finish-inspection';
 
 export const POST = defineRoute(
   { roles: ['driver'], params: idParamsSchema, body: finishInspectionBodySchema },

@@ -1,6 +1,6 @@
 import { defineRoute } from '@/lib/api/define-route';
 import { idParamsSchema } from '@/lib/schemas/common';
-import { MAX_SIGNATURE_BYTES, saveSignature } from '@/lib/services/save-signature';
+import { MAX_SIGNATURE_BYTES, saveSignature } from '@/lib/services/inspections/save-signature';
 
 // The drawn signature's PNG bytes are the body.
 export const PUT = defineRoute(

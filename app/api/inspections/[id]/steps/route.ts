@@ -1,7 +1,7 @@
 import { defineRoute } from '@/lib/api/define-route';
 import { idParamsSchema } from '@/lib/schemas/common';
 import { recordStepBodySchema } from '@/lib/schemas/inspections';
-import { recordStep } from '@/lib/services/record-step';
+import { recordStep } from '@/lib/services/inspections/record-step';
 
 export const POST = defineRoute(
   { roles: ['driver'], params: idParamsSchema, body: recordStepBodySchema },

@@ -1,6 +1,6 @@
 import { defineRoute } from '@/lib/api/define-route';
 import { idParamsSchema } from '@/lib/schemas/common';
-import { notifyReportDefects } from '@/lib/services/notify-report-defects';
+import { notifyReportDefects } from '@/lib/services/mail/notify-report-defects';
 
 // Mail the shop about this report's open defects (out of service, or repair needed).
 export const POST = defineRoute({ roles: ['supervisor'], params: idParamsSchema }, async ({ user, params }) =>

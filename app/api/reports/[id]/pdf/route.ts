@@ -1,6 +1,6 @@
 import { defineRoute } from '@/lib/api/define-route';
 import { idParamsSchema } from '@/lib/schemas/common';
-import { renderReportPdf } from '@/lib/services/render-report-pdf';
+import { renderReportPdf } from '@/lib/services/reports/render-report-pdf';
 
 // The printable report for a roadside officer or an auditor (49 CFR 396.11(a)(2)–(3)).
 export const GET = defineRoute(

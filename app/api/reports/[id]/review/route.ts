@@ -1,7 +1,7 @@
 import { defineRoute } from '@/lib/api/define-route';
 import { idParamsSchema } from '@/lib/schemas/common';
 import { reviewReportBodySchema } from '@/lib/schemas/reports';
-import { reviewReport } from '@/lib/services/review-report';
+import { reviewReport } from '@/lib/services/reports/review-report';
 
 export const POST = defineRoute(
   { roles: ['supervisor'], params: idParamsSchema, body: reviewReportBodySchema },

@@ -4,7 +4,7 @@ import { findFleetSettings } from '@/lib/db/fleets';
 import { findFleetUnit } from '@/lib/db/units';
 import { AppError } from '@/lib/errors';
 import { idParamsSchema } from '@/lib/schemas/common';
-import { findUnitReview } from '@/lib/services/find-unit-review';
+import { findUnitReview } from '@/lib/services/inspections/find-unit-review';
 
 // The unit's last report and its repair certifications, for the next driver's review (49 CFR 396.13).
 export const GET = defineRoute(

@@ -2,8 +2,8 @@ import { defineRoute } from '@/lib/api/define-route';
 import { getDb } from '@/lib/db';
 import { idParamsSchema } from '@/lib/schemas/common';
 import { updateDraftBodySchema } from '@/lib/schemas/vocabulary';
-import { getVocabularyVersionOrThrow } from '@/lib/services/get-vocabulary-version-or-throw';
-import { updateDraftGrammar } from '@/lib/services/update-draft-grammar';
+import { getVocabularyVersionOrThrow } from '@/lib/services/vocabulary/get-vocabulary-version-or-throw';
+import { updateDraftGrammar } from '@/lib/services/vocabulary/update-draft-grammar';
 
 export const GET = defineRoute({ roles: ['trainer'], params: idParamsSchema }, async ({ user, params }) =>
   Response.json(await getVocabularyVersionOrThrow(getDb(), { fleetId: user.fleetId, id: params.id })),

@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { requireRole } from '@/lib/auth/guards';
 import { getDb } from '@/lib/db';
-import { loadWalkOrNull } from '@/lib/services/load-walk';
+import { loadWalkOrNull } from '@/lib/services/inspections/load-walk';
 import { WalkClient } from './walk-client';
 
 export const metadata: Metadata = { title: 'Walk-around' };

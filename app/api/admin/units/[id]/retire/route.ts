@@ -1,6 +1,6 @@
 import { defineRoute } from '@/lib/api/define-route';
 import { retireUnitBodySchema, unitParamsSchema } from '@/lib/schemas/units';
-import { retireUnit } from '@/lib/services/retire-unit';
+import { retireUnit } from '@/lib/services/units/retire-unit';
 
 /** Retire a unit: kept with its records, no longer offered for new inspections. */
 export const POST = defineRoute(

@@ -1,7 +1,7 @@
 import { defineRoute } from '@/lib/api/define-route';
 import { photoParamsSchema } from '@/lib/schemas/inspections';
-import { MAX_PHOTO_BYTES } from '@/lib/services/save-photo';
-import { saveRepairPhoto } from '@/lib/services/save-repair-photo';
+import { MAX_PHOTO_BYTES } from '@/lib/services/inspections/save-photo';
+import { saveRepairPhoto } from '@/lib/services/defects/save-repair-photo';
 
 // A photo of the repair: the bytes are the body, the type is read from them.
 export const PUT = defineRoute(

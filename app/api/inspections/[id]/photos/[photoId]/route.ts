@@ -1,6 +1,6 @@
 import { defineRoute } from '@/lib/api/define-route';
 import { photoParamsSchema, photoQuerySchema } from '@/lib/schemas/inspections';
-import { MAX_PHOTO_BYTES, savePhoto } from '@/lib/services/save-photo';
+import { MAX_PHOTO_BYTES, savePhoto } from '@/lib/services/inspections/save-photo';
 
 // The photo's bytes are the body (any declared type: the server reads the bytes themselves).
 export const PUT = defineRoute(

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { defineRoute } from '@/lib/api/define-route';
 import { idParamsSchema } from '@/lib/schemas/common';
-import { exportGrammar, formatGrammarFile, grammarFiles } from '@/lib/services/export-grammar';
+import { exportGrammar, formatGrammarFile, grammarFiles } from '@/lib/services/vocabulary/export-grammar';
 
 const exportQuerySchema = z.object({ file: z.enum(grammarFiles).optional() });
 

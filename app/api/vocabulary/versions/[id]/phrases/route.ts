@@ -1,7 +1,7 @@
 import { defineRoute } from '@/lib/api/define-route';
 import { idParamsSchema } from '@/lib/schemas/common';
 import { addPhraseBodySchema } from '@/lib/schemas/vocabulary';
-import { addFieldPhrase } from '@/lib/services/add-field-phrase';
+import { addFieldPhrase } from '@/lib/services/vocabulary/add-field-phrase';
 
 // Add what a driver said as a phrase of a term in the draft (the inbox's one-click action).
 export const POST = defineRoute(

@@ -1,7 +1,7 @@
 import { defineRoute } from '@/lib/api/define-route';
 import { idParamsSchema } from '@/lib/schemas/common';
 import { publishBodySchema } from '@/lib/schemas/vocabulary';
-import { publishVersion } from '@/lib/services/publish-version';
+import { publishVersion } from '@/lib/services/vocabulary/publish-version';
 
 // Publish the draft; 409 when it lowers accuracy and no override reason is given.
 export const POST = defineRoute(

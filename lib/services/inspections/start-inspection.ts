@@ -6,7 +6,7 @@ import { findUsableUnit } from '@/lib/db/units';
 import { AppError } from '@/lib/errors';
 import type { StartInspectionBody } from '@/lib/schemas/inspections';
 import { findUnitReview } from './find-unit-review';
-import { recordAudit } from './record-audit';
+import { recordAudit } from '../platform/record-audit';
 
 type Parsed = Omit<StartInspectionBody, 'location' | 'billOfLading' | 'sealNumber'> & {
   location: string | null;

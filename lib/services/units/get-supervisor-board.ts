@@ -1,9 +1,9 @@
 import 'server-only';
 import { getDb } from '@/lib/db';
 import { listAttentionRows, listUnitBoardRows } from '@/lib/db/dashboard';
-import { LOW_CONFIDENCE } from './get-report-detail';
-import { getFleetMinimumsOrThrow } from './list-reports';
-import { listExpectedZones } from './walk-zones';
+import { LOW_CONFIDENCE } from '../reports/get-report-detail';
+import { getFleetMinimumsOrThrow } from '../reports/list-reports';
+import { listExpectedZones } from '../inspections/walk-zones';
 
 /** The supervisor's home: the units board and the recent inspections that need a look. */
 export async function getSupervisorBoard({

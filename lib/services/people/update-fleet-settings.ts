@@ -3,7 +3,7 @@ import { getDb } from '@/lib/db';
 import { findFleetSettings, updateFleetSettingsRow, type FleetSettingsChange } from '@/lib/db/fleets';
 import { AppError } from '@/lib/errors';
 import type { FleetSettings } from '@/lib/schemas/fleet';
-import { diffFields, recordAdminAudit } from './record-admin-audit';
+import { diffFields, recordAdminAudit } from '../platform/record-admin-audit';
 
 /** Change the fleet's minimum inspection times, default tire pressures, rule profile or mail addresses. */
 export async function updateFleetSettings(

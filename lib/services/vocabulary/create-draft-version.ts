@@ -9,7 +9,7 @@ import {
 } from '@/lib/db/vocabulary';
 import type { CreateVersionBody } from '@/lib/schemas/vocabulary';
 import { getVocabularyVersionOrThrow } from './get-vocabulary-version-or-throw';
-import { recordAudit } from './record-audit';
+import { recordAudit } from '../platform/record-audit';
 
 /**
  * Open the fleet's draft: a copy of the chosen version, else of the newest published one, else

@@ -3,7 +3,7 @@ import vocabulary from '@/grammars/vocabulary.json' with { type: 'json' };
 import { getDb } from '@/lib/db';
 import { listDefectsByWeek, listDurationCounts, listFirstTryByZone, listOpenMajorByDay } from '@/lib/db/dashboard';
 import { getFleetMinimumsOrThrow } from './list-reports';
-import { zoneName } from './walk-zones';
+import { zoneName } from '../inspections/walk-zones';
 
 const vocab = vocabulary as unknown as {
   systems: { id: string; name: string }[];

@@ -4,7 +4,7 @@ import { getDb } from '@/lib/db';
 import { findFleetUser, updateFleetUserRow } from '@/lib/db/users';
 import { AppError } from '@/lib/errors';
 import type { AdminUser } from '@/lib/schemas/users';
-import { recordAdminAudit } from './record-admin-audit';
+import { recordAdminAudit } from '../platform/record-admin-audit';
 
 /**
  * Rename a user, change their roles, or deactivate / reactivate them. Nobody is deleted.

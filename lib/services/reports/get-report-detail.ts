@@ -6,7 +6,7 @@ import { findFleetMinimums, findReportRecord } from '@/lib/db/reports';
 import { AppError } from '@/lib/errors';
 import { pickReportHeader, serializeReport, toCanonicalSteps } from '@/lib/reports/canonical-report';
 import { checkInspectionDuration } from '@/lib/rules';
-import { listExpectedZones, zoneName } from './walk-zones';
+import { listExpectedZones, zoneName } from '../inspections/walk-zones';
 
 /** Low-confidence threshold: a match under this score should have been confirmed by the driver. */
 export const LOW_CONFIDENCE = 0.8;

@@ -15,7 +15,7 @@ import {
 import { listGrammarProblems, type ImportGrammarBody } from '@/lib/schemas/vocabulary';
 import { createDraftVersion } from './create-draft-version';
 import { getVocabularyVersionOrThrow } from './get-vocabulary-version-or-throw';
-import { recordAudit } from './record-audit';
+import { recordAudit } from '../platform/record-audit';
 
 const schemas: Record<keyof Grammar, ZodType> = {
   vocabulary: vocabularySchema,

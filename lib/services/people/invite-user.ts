@@ -10,7 +10,7 @@ import { getEnv } from '@/lib/env';
 import { AppError } from '@/lib/errors';
 import { sendMail } from '@/lib/mail';
 import type { AdminUser } from '@/lib/schemas/users';
-import { isUniqueViolation, recordAdminAudit } from './record-admin-audit';
+import { isUniqueViolation, recordAdminAudit } from '../platform/record-admin-audit';
 
 // No 0/o, 1/l/i: a temporary password is read off a phone and typed with a thumb.
 const alphabet = 'abcdefghjkmnpqrstuvwxyz23456789';

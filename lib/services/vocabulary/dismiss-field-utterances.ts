@@ -1,7 +1,7 @@
 import 'server-only';
 import { getDb } from '@/lib/db';
 import { resolveFieldUtterances } from '@/lib/db/vocabulary';
-import { recordAudit } from './record-audit';
+import { recordAudit } from '../platform/record-audit';
 
 /** Take utterances out of the inbox without changing the vocabulary (chatter, noise). */
 export async function dismissFieldUtterances({

@@ -5,7 +5,7 @@ import { findFleetUnit } from '@/lib/db/units';
 import { AppError } from '@/lib/errors';
 import type { AcknowledgeBody } from '@/lib/schemas/inspections';
 import { findUnitReview } from './find-unit-review';
-import { recordAudit } from './record-audit';
+import { recordAudit } from '../platform/record-audit';
 
 export const acknowledgementStatement =
   'I reviewed the last inspection report of this unit and the repair certification of its defects.';

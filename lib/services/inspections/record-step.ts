@@ -10,8 +10,8 @@ import { evaluateMeasurement } from '@/lib/rules';
 import type { Zones } from '@/lib/schemas/grammar';
 import type { recordStepBodySchema } from '@/lib/schemas/inspections';
 import type { z } from 'zod';
-import { recordAudit } from './record-audit';
-import { loadGrammar, resolveTerm } from './resolve-vocabulary';
+import { recordAudit } from '../platform/record-audit';
+import { loadGrammar, resolveTerm } from '../vocabulary/resolve-vocabulary';
 
 // Durability. An open walk's steps are written on getStepDb, whose commits do not wait for the
 // disk: a database crash can lose the last fraction of a second of them after the phone was told

@@ -5,7 +5,7 @@ import { getDb } from '@/lib/db';
 import { findInspectionForUpdate, findStep } from '@/lib/db/inspections';
 import { AppError } from '@/lib/errors';
 import { putObject } from '@/lib/storage';
-import { recordAudit } from './record-audit';
+import { recordAudit } from '../platform/record-audit';
 
 export const MAX_PHOTO_BYTES = 15 * 1024 * 1024;
 

@@ -3,8 +3,8 @@ import { createHash } from 'node:crypto';
 import { getDb } from '@/lib/db';
 import { AppError } from '@/lib/errors';
 import { putObject } from '@/lib/storage';
-import { recordAudit } from './record-audit';
-import { encodePhoto } from './save-photo';
+import { recordAudit } from '../platform/record-audit';
+import { encodePhoto } from '../inspections/save-photo';
 
 /** The mechanic's photo of a repair, kept with the defect. The same photo id twice stores once. */
 export async function saveRepairPhoto({

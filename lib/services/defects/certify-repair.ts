@@ -5,7 +5,7 @@ import { AppError } from '@/lib/errors';
 import { renderBackInServiceMail } from '@/lib/mail/templates';
 import { getUnitServiceStatus, type DefectRecord } from '@/lib/rules';
 import { repairCertificationStatement, type CertifyRepairBody } from '@/lib/schemas/defects';
-import { appUrl, sendUnitStatusMail } from './send-unit-status-mail';
+import { appUrl, sendUnitStatusMail } from '../mail/send-unit-status-mail';
 
 type Row = { id: string; unitId: string; severity: string; status: string; certifiedAt: Date | null };
 

@@ -8,7 +8,7 @@ import type { AddPhraseBody } from '@/lib/schemas/vocabulary';
 import { addPhraseBodySchema } from '@/lib/schemas/vocabulary';
 import { describeMatch } from './describe-match';
 import { getDraftVersionOrThrow, getVocabularyVersionOrThrow } from './get-vocabulary-version-or-throw';
-import { recordAudit } from './record-audit';
+import { recordAudit } from '../platform/record-audit';
 
 type Slot = 'component' | 'condition';
 

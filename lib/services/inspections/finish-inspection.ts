@@ -10,8 +10,8 @@ import { listDefectSteps } from '@/lib/inspection/walk-progress';
 import { pickReportHeader, serializeReport, toCanonicalSteps } from '@/lib/reports/canonical-report';
 import type { FinishInspectionBody } from '@/lib/schemas/inspections';
 import { renderOutOfServiceMail } from '@/lib/mail/templates';
-import { deliverOutbox } from './deliver-outbox';
-import { recordAudit } from './record-audit';
+import { deliverOutbox } from '../mail/deliver-outbox';
+import { recordAudit } from '../platform/record-audit';
 
 export const certificationStatement =
   'I performed this inspection and the report lists every defect I found or that was reported to me.';

@@ -4,7 +4,7 @@ import { updateDraftGrammar as writeDraftGrammar } from '@/lib/db/vocabulary';
 import { AppError } from '@/lib/errors';
 import type { Grammar } from '@/lib/schemas/grammar';
 import { getDraftVersionOrThrow, getVocabularyVersionOrThrow } from './get-vocabulary-version-or-throw';
-import { recordAudit } from './record-audit';
+import { recordAudit } from '../platform/record-audit';
 
 const countPhrases = (g: Grammar) =>
   g.vocabulary.components.reduce((n, c) => n + c.phrases.length, 0) +

@@ -4,7 +4,7 @@ import { AppError } from '@/lib/errors';
 import type { PublishBody } from '@/lib/schemas/vocabulary';
 import { evaluateVocabulary } from './evaluate-vocabulary';
 import { getDraftVersionOrThrow, getVocabularyVersionOrThrow } from './get-vocabulary-version-or-throw';
-import { recordAudit } from './record-audit';
+import { recordAudit } from '../platform/record-audit';
 
 /**
  * Publish the draft: from now on new inspections use it, and the row can no longer change (a

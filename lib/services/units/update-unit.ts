@@ -4,7 +4,7 @@ import { findFleetUnit, findUnitByNumber, updateFleetUnitRow, type UnitFields } 
 import { AppError } from '@/lib/errors';
 import { findAxleProblems, type UnitDto } from '@/lib/schemas/units';
 import { unitNumberTaken } from './create-unit';
-import { diffFields, isUniqueViolation, recordAdminAudit } from './record-admin-audit';
+import { diffFields, isUniqueViolation, recordAdminAudit } from '../platform/record-admin-audit';
 
 /** Edit a unit's number, plate, VIN, make/model/year or axle layout. Retired units are read-only. */
 export async function updateUnit(

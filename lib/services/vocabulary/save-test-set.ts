@@ -3,7 +3,7 @@ import { getDb } from '@/lib/db';
 import { upsertTestSet } from '@/lib/db/vocabulary';
 import type { SaveTestSetBody } from '@/lib/schemas/vocabulary';
 import { parseTestSetOrThrow } from './load-test-set';
-import { recordAudit } from './record-audit';
+import { recordAudit } from '../platform/record-audit';
 
 /** Import a labelled JSONL set as the fleet's own (replacing the one it had). */
 export async function saveTestSet({

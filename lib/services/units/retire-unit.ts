@@ -3,7 +3,7 @@ import { getDb } from '@/lib/db';
 import { findFleetUnit, updateFleetUnitRow } from '@/lib/db/units';
 import { AppError } from '@/lib/errors';
 import type { UnitDto } from '@/lib/schemas/units';
-import { recordAdminAudit } from './record-admin-audit';
+import { recordAdminAudit } from '../platform/record-admin-audit';
 
 /**
  * Take a unit out of the fleet for good: it keeps its records and its number, and can no

@@ -3,7 +3,7 @@ import { getDb } from '@/lib/db';
 import { findUnitByNumber, insertFleetUnit, type UnitFields } from '@/lib/db/units';
 import { AppError } from '@/lib/errors';
 import type { UnitDto, UnitKind } from '@/lib/schemas/units';
-import { isUniqueViolation, recordAdminAudit } from './record-admin-audit';
+import { isUniqueViolation, recordAdminAudit } from '../platform/record-admin-audit';
 
 export function unitNumberTaken(unitNumber: string, retired: boolean): AppError {
   const message = retired
