@@ -1,7 +1,16 @@
 import type { Metadata } from 'next';
+import { findSafeNextPath } from '@/lib/http/find-safe-next-path';
 import { SignInForm } from './sign-in-form';
 
 export const metadata: Metadata = { title: 'Sign in' };
+
+function ownOrigin(): string {
+  try {
+    return new URL(process.env.NEXTAUTH_URL ?? '').origin;
+  } catch {
+    return 'http://localhost';
+  }
+}
 
 export default async function SignInPage({
   searchParams,
@@ -9,7 +18,8 @@ export default async function SignInPage({
   searchParams: Promise<Record<string, string | string[] | undefined>>;
 }) {
   const sp = await searchParams;
-  const next = typeof sp.next === 'string' && sp.next.startsWith('/') && !sp.next.startsWith('//') ? sp.next : '/go';
+  // Parsed against our own origin the way the browser will read it; anything else goes home.
+  const next = findSafeNextPath(typeof sp.next === 'string' ? sp.next : undefined, ownOrigin());
   return (
     <main className="mx-auto flex min-h-dvh max-w-md flex-col justify-center gap-6 px-5 py-8">
       <p className="text-3xl font-extrabold tracking-tight">

@@ -3,9 +3,12 @@
 import { signIn } from 'next-auth/react';
 import { useState, type FormEvent } from 'react';
 import { slabClass } from '@/components/ui/slab-button';
+import { findSafeNextPath } from '@/lib/http/find-safe-next-path';
 
 const field =
   'min-h-target w-full rounded-lg border-slab border-edge bg-panel px-4 text-xl text-ink placeholder:text-muted';
+
+const textOf = (v: FormDataEntryValue | null) => (typeof v === 'string' ? v : '');
 
 export function SignInForm({ next }: { next: string }) {
   const [error, setError] = useState<string | null>(null);
@@ -18,12 +21,12 @@ export function SignInForm({ next }: { next: string }) {
     setError(null);
     try {
       const res = await signIn('credentials', {
-        email: String(form.get('email') ?? ''),
-        password: String(form.get('password') ?? ''),
+        email: textOf(form.get('email')),
+        password: textOf(form.get('password')),
         redirect: false,
       });
       if (res?.ok && !res.error) {
-        window.location.assign(next);
+        window.location.assign(findSafeNextPath(next, window.location.origin));
         return;
       }
       // A lock-out says so (and for how long); anything else is the same plain refusal.
