@@ -8,8 +8,7 @@ import tseslint from 'typescript-eslint';
 
 /** Server-only modules: never imported by client code, pure code or shared components. */
 const serverOnly = {
-  regex:
-    '^@/(lib/(db|services|api|mail|storage)(/.*)?|lib/auth(/(config|guards|rate-limit|index|session-version))?|lib/env|db/.*)$',
+  regex: '^@/(lib/(db|services|api|mail|storage)(/.*)?|lib/auth(/(?!roles$).*)?|lib/env|db/.*)$',
   message:
     'Server-only module: client code, pure code and shared components must not import it (DEVELOPERS.md, layers).',
 };
@@ -31,7 +30,7 @@ const layersPlugin = {
         if (!isClient) return {};
         const patterns = [
           /^@\/lib\/(db|services|api|mail|storage)(\/|$)/,
-          /^@\/lib\/auth(\/(config|guards|rate-limit|index|session-version))?$/,
+          /^@\/lib\/auth(\/(?!roles$).*)?$/,
           /^@\/lib\/env$/,
           /^@\/db\//,
           /^server-only$/,

@@ -1,10 +1,10 @@
 import Link from 'next/link';
 import { ThemeToggle } from '@/components/app-shell/theme-toggle';
 import { slabClass } from '@/components/ui/slab-button';
-import { auth } from '@/lib/auth';
+import { findPageUser } from '@/lib/auth/guards';
 
 export default async function HomePage() {
-  const session = await auth();
+  const user = await findPageUser();
   return (
     <main className="mx-auto flex min-h-dvh max-w-2xl flex-col gap-8 px-5 py-8">
       <div className="flex items-center justify-between">
@@ -22,9 +22,9 @@ export default async function HomePage() {
         </p>
       </section>
       <div className="space-y-3">
-        {session ? (
+        {user ? (
           <Link href="/go" className={slabClass('primary')}>
-            Continue as {session.user.name}
+            Continue as {user.name}
           </Link>
         ) : (
           <Link href="/sign-in" className={slabClass('primary')}>

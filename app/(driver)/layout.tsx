@@ -1,6 +1,12 @@
 import type { ReactNode } from 'react';
 import { RoleLayout } from '@/components/app-shell/role-layout';
+import { requireRole } from '@/lib/auth/guards';
 
-export default function DriverLayout({ children }: { children: ReactNode }) {
-  return <RoleLayout role="driver">{children}</RoleLayout>;
+export default async function DriverLayout({ children }: { children: ReactNode }) {
+  const user = await requireRole('driver');
+  return (
+    <RoleLayout user={user} role="driver">
+      {children}
+    </RoleLayout>
+  );
 }

@@ -1,6 +1,7 @@
 import type { ReactNode } from 'react';
 import { RoleLayout } from '@/components/app-shell/role-layout';
 import { OfficeNav } from '@/components/office/office-nav';
+import { requireRole } from '@/lib/auth/guards';
 
 const items = [
   { href: '/supervisor', label: 'Units and attention' },
@@ -9,9 +10,10 @@ const items = [
   { href: '/mechanic', label: 'Defect queue' },
 ];
 
-export default function SupervisorLayout({ children }: { children: ReactNode }) {
+export default async function SupervisorLayout({ children }: { children: ReactNode }) {
+  const user = await requireRole('supervisor');
   return (
-    <RoleLayout role="supervisor">
+    <RoleLayout user={user} role="supervisor">
       <OfficeNav label="Supervisor screens" items={items} />
       {children}
     </RoleLayout>

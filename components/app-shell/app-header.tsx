@@ -1,5 +1,5 @@
 import Link from 'next/link';
-import type { SessionUser } from '@/lib/auth/guards';
+import type { SessionUser } from '@/lib/schemas/session';
 import { roleHome, roleLabel, roles, type Role } from '@/lib/auth/roles';
 import { SignOutButton } from './sign-out-button';
 import { ThemeToggle } from './theme-toggle';

@@ -1,11 +1,10 @@
 import type { ReactNode } from 'react';
-import { requireRole } from '@/lib/auth/guards';
 import type { Role } from '@/lib/auth/roles';
+import type { SessionUser } from '@/lib/schemas/session';
 import { AppHeader } from './app-header';
 
-/** The frame of one role's screens. Pages check the role again themselves. */
-export async function RoleLayout({ role, children }: { role: Role; children: ReactNode }) {
-  const user = await requireRole(role);
+/** The frame of one role's screens: the header bar for this user and view, then the page. */
+export function RoleLayout({ user, role, children }: { user: SessionUser; role: Role; children: ReactNode }) {
   return (
     <>
       <AppHeader user={user} view={role} />

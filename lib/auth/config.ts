@@ -4,6 +4,7 @@ import type { NextAuthOptions } from 'next-auth';
 import CredentialsProvider from 'next-auth/providers/credentials';
 import { z } from 'zod';
 import { findUserForSignIn, recordSignIn } from '@/lib/db/users';
+import type { SessionUser } from '@/lib/schemas/session';
 import {
   clearSignInFailures,
   findSignInLockout,
@@ -15,7 +16,7 @@ import { isRole, type Role } from './roles';
 
 declare module 'next-auth' {
   interface Session {
-    user: { id: string; name: string; email: string; fleetId: string; roles: Role[] };
+    user: SessionUser;
   }
   interface User {
     id: string;

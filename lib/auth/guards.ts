@@ -1,28 +1,21 @@
 import 'server-only';
-import type { Session } from 'next-auth';
+import { headers } from 'next/headers';
 import { redirect } from 'next/navigation';
-import { findActiveUser } from '@/lib/db/users';
-import { auth } from './index';
-import { isRole, type Role } from './roles';
+import { cache } from 'react';
+import type { SessionUser } from '@/lib/schemas/session';
+import { readSessionUser } from './read-session-user';
+import type { Role } from './roles';
 
-export type SessionUser = Session['user'];
+export type { SessionUser };
 
-/**
- * For pages: the signed-in user, or a redirect to the sign-in page. The account is read again,
- * so a deactivated user is out at once and a changed role shows on the next page.
- */
+/** For pages: the signed-in user or null, read once per request (layout and page share it). */
+export const findPageUser = cache(async (): Promise<SessionUser | null> => readSessionUser(await headers()));
+
+/** For pages: the signed-in user, or a redirect to the sign-in page. */
 export async function requireUser(): Promise<SessionUser> {
-  const session = await auth();
-  if (!session) redirect('/sign-in');
-  const current = await findActiveUser(session.user.id);
-  if (!current) redirect('/sign-in');
-  return {
-    ...session.user,
-    name: current.name,
-    email: current.email,
-    fleetId: current.fleetId,
-    roles: current.roles.filter(isRole),
-  };
+  const user = await findPageUser();
+  if (!user) redirect('/sign-in');
+  return user;
 }
 
 /** For pages: the signed-in user holding one of these roles; others go to a plain refusal page. */

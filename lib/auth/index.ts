@@ -1,12 +1,6 @@
 import 'server-only';
-import { getServerSession, type Session } from 'next-auth';
-import { cache } from 'react';
 import { authOptions } from './config';
 
+// next-auth's options, for its own endpoints (app/api/auth/[...nextauth]). Pages and handlers
+// read the signed-in user through readSessionUser (lib/auth/read-session-user.ts) instead.
 export { authOptions };
-
-/** The signed-in user's session, or null; read once per request. */
-export const auth = cache(async (): Promise<Session | null> => {
-  const session = await getServerSession(authOptions);
-  return session?.user?.id ? session : null;
-});

@@ -1,11 +1,13 @@
 import 'server-only';
 import {
   ruleProfiles,
+  requiredReadingsSchema,
   tirePressureTargetsSchema,
   type FleetSettings,
   type RuleProfile,
   type TirePressureTargets,
 } from '@/lib/schemas/fleet';
+import { DEFAULT_REQUIRED_READINGS } from '@/lib/walk/zones';
 import type { DB } from './index';
 
 export async function findFleet(db: DB, { fleetId }: { fleetId: string }) {
@@ -14,6 +16,12 @@ export async function findFleet(db: DB, { fleetId }: { fleetId: string }) {
     .select(['id', 'name', 'timezone', 'ruleProfile', 'minPretripMinutes', 'minPosttripMinutes', 'tirePressureTargets'])
     .where('id', '=', fleetId)
     .executeTakeFirst();
+}
+
+/** The fleet's name, for the top of each role's home screen. */
+export async function findFleetName(db: DB, { fleetId }: { fleetId: string }): Promise<string | null> {
+  const row = await db.selectFrom('fleet').select('name').where('id', '=', fleetId).executeTakeFirst();
+  return row?.name ?? null;
 }
 
 // ---- admin: the fleet's own settings
@@ -27,6 +35,8 @@ const settingsColumns = [
   'ruleProfile',
   'maintenanceEmail',
   'supervisorEmail',
+  'requiredReadings',
+  'tirePressureTolerancePsi',
   'updatedAt',
 ] as const;
 
@@ -39,6 +49,8 @@ type SettingsRow = {
   ruleProfile: string;
   maintenanceEmail: string | null;
   supervisorEmail: string | null;
+  requiredReadings: unknown;
+  tirePressureTolerancePsi: number;
   updatedAt: Date;
 };
 
@@ -49,6 +61,7 @@ function toFleetSettings(row: SettingsRow): FleetSettings {
   return {
     ...row,
     tirePressureTargets: targets.success ? targets.data : fallbackTargets,
+    requiredReadings: requiredReadingsSchema.safeParse(row.requiredReadings).data ?? [...DEFAULT_REQUIRED_READINGS],
     ruleProfile: (ruleProfiles as readonly string[]).includes(row.ruleProfile)
       ? (row.ruleProfile as RuleProfile)
       : 'us-federal',
@@ -67,10 +80,14 @@ export async function updateFleetSettingsRow(
   db: DB,
   { fleetId, set }: { fleetId: string; set: FleetSettingsChange },
 ): Promise<FleetSettings | undefined> {
-  const { tirePressureTargets, ...rest } = set;
+  const { tirePressureTargets, requiredReadings, ...rest } = set;
   const row = await db
     .updateTable('fleet')
-    .set({ ...rest, ...(tirePressureTargets ? { tirePressureTargets: JSON.stringify(tirePressureTargets) } : {}) })
+    .set({
+      ...rest,
+      ...(tirePressureTargets ? { tirePressureTargets: JSON.stringify(tirePressureTargets) } : {}),
+      ...(requiredReadings ? { requiredReadings: JSON.stringify(requiredReadings) } : {}),
+    })
     .where('id', '=', fleetId)
     .returning(settingsColumns)
     .executeTakeFirst();

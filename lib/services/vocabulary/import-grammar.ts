@@ -1,6 +1,6 @@
 import 'server-only';
 import type { ZodType } from 'zod';
-import { fieldsFromZod } from '@/lib/api/define-route';
+import { fieldsFromZod } from '@/lib/api/parse-input';
 import { getDb } from '@/lib/db';
 import { findDraftVersionId, updateDraftGrammar as writeDraftGrammar } from '@/lib/db/vocabulary';
 import { AppError } from '@/lib/errors';

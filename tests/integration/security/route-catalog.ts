@@ -2,7 +2,7 @@
 // defineRoute's spec) and real ids to put in its path, so a test can throw input at all of them.
 import fs from 'node:fs';
 import path from 'node:path';
-import { readRouteSpec, type RouteSpec } from '@/lib/api/define-route';
+import { readRouteSpec, type RouteSpec } from '@/lib/api/route-spec';
 
 export type RouteFn = (
   req: Request,

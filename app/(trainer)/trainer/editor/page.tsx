@@ -2,14 +2,17 @@ import type { Metadata } from 'next';
 import { RoleHome } from '@/components/app-shell/role-home';
 import { TrainerNav } from '@/components/trainer/trainer-nav';
 import { requireRole } from '@/lib/auth/guards';
+import { getDb } from '@/lib/db';
+import { findFleetName } from '@/lib/db/fleets';
 import { EditorClient } from './editor-client';
 
 export const metadata: Metadata = { title: 'Vocabulary editor' };
 
 export default async function VocabularyEditorPage() {
   const user = await requireRole('trainer');
+  const fleetName = await findFleetName(getDb(), { fleetId: user.fleetId });
   return (
-    <RoleHome user={user} title="Vocabulary editor">
+    <RoleHome fleetName={fleetName} title="Vocabulary editor">
       <TrainerNav />
       <EditorClient />
     </RoleHome>
