@@ -48,7 +48,7 @@ export function AttentionList({
       ) : (
         <ul className="divide-y divide-edge/15">
           {rows.map((r) => (
-            <li key={r.id} className={r.reviewedAt ? 'opacity-70' : ''}>
+            <li key={r.id} className={r.reviewedAt ? 'bg-ground' : ''}>
               <Link
                 href={`/supervisor/reports/${r.id}`}
                 className="block px-4 py-2.5 hover:bg-ground"

@@ -48,7 +48,13 @@ export default async function CaughtMailPage({ searchParams }: { searchParams: P
       ) : messages.length === 0 ? (
         <p className="rounded-lg border-slab border-edge bg-panel p-4">No message caught{to ? ` for ${to}` : ''}.</p>
       ) : (
-        <div className="overflow-x-auto rounded-lg border-slab border-edge bg-panel">
+        // Wider than a phone: a named stop in the tab order, so a keyboard can scroll it.
+        <div
+          className="overflow-x-auto rounded-lg border-slab border-edge bg-panel"
+          tabIndex={0}
+          role="region"
+          aria-label="Caught messages"
+        >
           <table className="w-full min-w-[760px] text-base">
             <thead className="text-left text-sm tracking-wide text-muted uppercase">
               <tr>

@@ -80,7 +80,8 @@ export function Transcript({ report }: { report: ReportDetail }) {
             {z.name}
             <span className="text-sm font-bold text-muted normal-case">{formatDuration(z.seconds)} in zone</span>
           </h3>
-          <div className="overflow-x-auto">
+          {/* Wider than a phone: a named stop in the tab order, so a keyboard can scroll it. */}
+          <div className="overflow-x-auto" tabIndex={0} role="region" aria-label={`Steps in zone ${z.name}`}>
             <table className="w-full min-w-[820px] table-fixed text-sm">
               <thead className="text-left tracking-wide text-muted uppercase">
                 <tr>
