@@ -1,7 +1,7 @@
 // Local mail catcher on loopback, standing in for the hosted mail provider.
 // SMTP in (smtp-server), each message parsed (mailparser) and kept as JSON in --dir;
 // a small HTTP API lists them for the app's admin page and the tests:
-//   GET /messages            newest first, without bodies
+//   GET /messages            newest first, without bodies (?to=ADDRESS, ?fleet=FLEET_ID)
 //   GET /messages/:id        one message with text and html
 //   DELETE /messages         empty the box
 // Usage: node scripts/mail-catcher.mjs --smtp 2525 --http 1080 --dir .data/mail
@@ -25,6 +25,8 @@ fs.mkdirSync(dir, { recursive: true });
 
 const addressList = (a) => (Array.isArray(a) ? a : a ? [a] : []).flatMap((x) => x.value.map((v) => v.address ?? ''));
 
+const headerText = (v) => (typeof v === 'string' && v.trim() ? v.trim() : null);
+
 const smtp = new SMTPServer({
   authOptional: true,
   disabledCommands: ['STARTTLS'],
@@ -37,6 +39,8 @@ const smtp = new SMTPServer({
         const record = {
           id,
           receivedAt: new Date().toISOString(),
+          // The app names the fleet a message belongs to in this header; the admin page lists per fleet.
+          fleetId: headerText(mail.headers.get('x-rigcall-fleet')),
           envelopeFrom: session.envelope.mailFrom ? session.envelope.mailFrom.address : null,
           envelopeTo: session.envelope.rcptTo.map((r) => r.address),
           from: addressList(mail.from)[0] ?? null,
@@ -76,9 +80,11 @@ const api = http.createServer((req, res) => {
     if (req.method === 'GET' && url.pathname === '/health') return send(200, { ok: true });
     if (req.method === 'GET' && url.pathname === '/messages') {
       const to = url.searchParams.get('to');
+      const fleet = url.searchParams.get('fleet');
       const list = listMessages()
         .filter((m) => !to || m.envelopeTo.includes(to) || m.to.includes(to))
-        .map(({ text, html, ...head }) => head);
+        .filter((m) => fleet === null || m.fleetId === fleet)
+        .map(({ text: _text, html: _html, ...head }) => head);
       return send(200, { messages: list });
     }
     const one = url.pathname.match(/^\/messages\/([a-z0-9-]+)$/);

@@ -329,11 +329,26 @@ async function stopDetached(name) {
   return true;
 }
 
+/** What a running service was started from: its command, arguments, environment and script. */
+function serviceStamp(cmd, args, env) {
+  const h = crypto.createHash('sha256').update(JSON.stringify([cmd, args, env]));
+  const script = args[0] ? path.join(root, args[0]) : null;
+  if (script && fs.existsSync(script)) h.update(fs.readFileSync(script));
+  return h.digest('hex');
+}
+
 async function ensureService(name, port, cmd, args, env = {}) {
-  if (readPid(name) && (await portOpen(port))) return;
+  const stampFile = path.join(runDir, `${name}.stamp`);
+  const want = serviceStamp(cmd, args, env);
+  const same = fs.existsSync(stampFile) && fs.readFileSync(stampFile, 'utf8') === want;
+  if (readPid(name) && (await portOpen(port)) && same) return;
+  // Started from an older script or other settings: restart it so it runs what is on disk.
+  if (readPid(name) && !same) say(`restarting ${name} (its script or settings changed)`);
   await stopDetached(name);
+  for (let i = 0; i < 30 && (await portOpen(port)); i++) await sleep(100);
   if (await portOpen(port)) fail(`port ${port} for ${name} is taken by another program`);
   startDetached(name, cmd, args, env);
+  fs.writeFileSync(stampFile, want);
   await waitForPort(port, name);
 }
 

@@ -2,7 +2,11 @@ import 'server-only';
 import nodemailer, { type Transporter } from 'nodemailer';
 import { getEnv } from '@/lib/env';
 
-export type OutgoingMail = { to: string[]; subject: string; text: string; html?: string };
+/** `fleetId`: whose mail this is; it travels in a header so the local catcher can list it per fleet. */
+export type OutgoingMail = { fleetId: string; to: string[]; subject: string; text: string; html?: string };
+
+/** The header that names a message's fleet (read by scripts/mail-catcher.mjs). */
+export const fleetHeader = 'X-RigCall-Fleet';
 
 const globalForMail = globalThis as unknown as { rigcallMail?: Transporter };
 
@@ -12,8 +16,9 @@ function transport(): Transporter {
 }
 
 /** Send one message through the configured SMTP server (the local catcher, or the provider). */
-export async function sendMail(mail: OutgoingMail): Promise<{ messageId: string }> {
-  const info = await transport().sendMail({ from: getEnv().MAIL_FROM, ...mail });
+export async function sendMail({ fleetId, ...mail }: OutgoingMail): Promise<{ messageId: string }> {
+  const headers: Record<string, string> = { [fleetHeader]: fleetId };
+  const info = (await transport().sendMail({ from: getEnv().MAIL_FROM, ...mail, headers })) as { messageId: string };
   return { messageId: info.messageId };
 }
 
@@ -27,14 +32,28 @@ export async function checkMail(): Promise<boolean> {
   }
 }
 
-export type CaughtMail = { id: string; receivedAt: string; from: string | null; to: string[]; subject: string };
+export type CaughtMail = {
+  id: string;
+  receivedAt: string;
+  fleetId: string | null;
+  from: string | null;
+  to: string[];
+  subject: string;
+};
 
-/** What the local mail catcher received (development and tests; absent with a real provider). */
-export async function listCaughtMail(): Promise<CaughtMail[] | null> {
+/**
+ * What the local mail catcher received for one fleet (development and tests; absent with a real
+ * provider). A message without the fleet header belongs to nobody and is never listed.
+ */
+export async function listCaughtMail({ fleetId }: { fleetId: string }): Promise<CaughtMail[] | null> {
   const url = getEnv().MAIL_CATCHER_URL;
   if (!url) return null;
-  const res = await fetch(`${url}/messages`, { cache: 'no-store' });
+  const res = await fetch(`${url}/messages?fleet=${encodeURIComponent(fleetId)}`, {
+    cache: 'no-store',
+    signal: AbortSignal.timeout(5_000),
+  });
   if (!res.ok) throw new Error(`mail catcher answered ${res.status}`);
   const body = (await res.json()) as { messages: CaughtMail[] };
-  return body.messages;
+  // Checked here too, so an older catcher that ignores ?fleet= still shows nothing of others'.
+  return body.messages.filter((m) => m.fleetId === fleetId);
 }

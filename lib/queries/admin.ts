@@ -4,7 +4,7 @@ import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query
 import { fetchJson } from '@/lib/http/fetch-json';
 import type { FleetSettings, UpdateFleetSettingsBody } from '@/lib/schemas/fleet';
 import type { CreateUnitBody, ListUnitsQuery, RetireUnitBody, UnitDto, UpdateUnitBody } from '@/lib/schemas/units';
-import type { AdminUser, InviteUserBody, UpdateUserBody } from '@/lib/schemas/users';
+import type { AdminUser, InviteUserBody, Role, UpdateUserBody } from '@/lib/schemas/users';
 
 export const adminUserKeys = {
   all: ['admin', 'users'] as const,
@@ -55,7 +55,10 @@ export function useInviteUserMutation() {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (body: InviteUserBody) =>
-      fetchJson<{ user: AdminUser }>('/api/admin/users', { method: 'POST', json: body }),
+      fetchJson<{ invitation: { email: string; name: string; roles: Role[] } }>('/api/admin/users', {
+        method: 'POST',
+        json: body,
+      }),
     onSuccess: () => qc.invalidateQueries({ queryKey: adminUserKeys.all }),
   });
 }

@@ -33,6 +33,7 @@ export async function deliverOutbox({
       if (!row) return null;
       try {
         await sendMail({
+          fleetId,
           to: row.toAddresses,
           subject: row.subject,
           text: row.textBody,

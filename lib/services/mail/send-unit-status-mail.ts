@@ -51,7 +51,7 @@ export async function sendUnitStatusMail({
     .returning('id')
     .executeTakeFirstOrThrow();
   try {
-    await sendMail({ to, subject: mail.subject, text: mail.text, html: mail.html });
+    await sendMail({ fleetId, to, subject: mail.subject, text: mail.text, html: mail.html });
     await db.updateTable('mailOutbox').set({ status: 'sent', sentAt: new Date() }).where('id', '=', row.id).execute();
     return { sent: true as const, to };
   } catch (err) {

@@ -5,11 +5,11 @@ import type { Role } from '@/lib/auth/roles';
 import { roleLabel } from '@/lib/auth/roles';
 import { getDb } from '@/lib/db';
 import { findFleet } from '@/lib/db/fleets';
-import { insertFleetUser, isEmailTaken } from '@/lib/db/users';
+import { insertFleetUser } from '@/lib/db/users';
 import { getEnv } from '@/lib/env';
 import { AppError } from '@/lib/errors';
 import { sendMail } from '@/lib/mail';
-import type { AdminUser } from '@/lib/schemas/users';
+import type { Role as InvitedRole } from '@/lib/schemas/users';
 import { isUniqueViolation, recordAdminAudit } from '../platform/record-admin-audit';
 
 // No 0/o, 1/l/i: a temporary password is read off a phone and typed with a thumb.
@@ -69,6 +69,36 @@ export function composeInviteMail(m: {
   return { subject, text, html };
 }
 
+/** What the admin is told after inviting: the same for every address outside their own fleet. */
+export type SentInvitation = { email: string; name: string; roles: InvitedRole[] };
+
+async function findEmailHolder(trx: Parameters<typeof findFleet>[0], { email }: { email: string }) {
+  return trx.selectFrom('appUser').select(['id', 'fleetId', 'name']).where('email', '=', email).executeTakeFirst();
+}
+
+/** Tell a person with an account that someone tried to set up a second one for their address. */
+async function sendExistingAccountNotice(m: { fleetId: string; email: string; name: string }) {
+  const base = (getEnv().NEXTAUTH_URL ?? 'http://127.0.0.1:3000').replace(/\/$/, '');
+  const text = [
+    `Hello ${m.name},`,
+    '',
+    'Someone asked RigCall to set up an account for this e-mail address, which already has one.',
+    'Nothing was changed: your account and password stay as they are.',
+    '',
+    `Sign in as usual at ${base}/sign-in. If you did not expect this, tell your fleet office.`,
+  ].join('\n');
+  try {
+    await sendMail({ fleetId: m.fleetId, to: [m.email], subject: 'RigCall: your address was invited again', text });
+  } catch (err) {
+    // Same as a failed invitation, so the answer does not differ either.
+    console.error('[rigcall] invitation notice failed', err);
+    throw new AppError(
+      'internal',
+      'The invitation e-mail could not be sent, so no account was created. Try again in a moment.',
+    );
+  }
+}
+
 /**
  * Create an account with a random temporary password and e-mail the password to the person.
  * The mail goes out before the transaction commits: if it cannot be sent, no account is left
@@ -80,18 +110,26 @@ export async function inviteUser(opts: {
   name: string;
   email: string;
   roles: Role[];
-}): Promise<{ user: AdminUser }> {
+}): Promise<{ invitation: SentInvitation }> {
   const email = opts.email.toLowerCase();
   const password = generateTemporaryPassword();
   const passwordHash = await bcrypt.hash(password, 10);
+  const invitation: SentInvitation = { email, name: opts.name, roles: opts.roles };
   try {
     return await getDb()
       .transaction()
       .execute(async (trx) => {
-        if (await isEmailTaken(trx, { email }))
+        const holder = await findEmailHolder(trx, { email });
+        if (holder && holder.fleetId === opts.fleetId)
           throw new AppError('conflict', `${email} already has an account.`, {
             email: [`${email} already has an account.`],
           });
+        if (holder) {
+          // An account in another fleet: the answer is the same as for a fresh invitation, so an
+          // admin cannot probe other fleets' people. The person hears of it; nothing is created.
+          await sendExistingAccountNotice({ fleetId: holder.fleetId, email, name: holder.name });
+          return { invitation };
+        }
         const fleet = await findFleet(trx, { fleetId: opts.fleetId });
         if (!fleet) throw new AppError('not_found', 'This fleet no longer exists.');
         const inviter = await trx
@@ -127,7 +165,7 @@ export async function inviteUser(opts: {
           signInUrl: `${base}/sign-in`,
         });
         try {
-          await sendMail({ to: [email], ...mail });
+          await sendMail({ fleetId: opts.fleetId, to: [email], ...mail });
         } catch (err) {
           console.error('[rigcall] invitation mail failed', err);
           throw new AppError(
@@ -135,7 +173,7 @@ export async function inviteUser(opts: {
             'The invitation e-mail could not be sent, so no account was created. Try again in a moment.',
           );
         }
-        return { user };
+        return { invitation };
       });
   } catch (err) {
     if (isUniqueViolation(err))

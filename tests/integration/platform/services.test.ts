@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { GET as health } from '@/app/api/health/route';
 import { sendMail } from '@/lib/mail';
 import { getObjectBytes, presignPut, putObject } from '@/lib/storage';
+import { readJson } from '../../setup/read-json';
 
 const catcher = () => {
   const url = process.env.MAIL_CATCHER_URL;
@@ -25,17 +26,16 @@ describe('local services', () => {
   it('GET /api/health reports database, mail and storage ok, and the version', async () => {
     const res = await health(new Request('http://127.0.0.1/api/health'), { params: Promise.resolve({}) });
     expect(res.status).toBe(200);
-    const body = await res.json();
-    expect(body).toMatchObject({
-      ok: true,
-      version: expect.stringMatching(/^\d+\.\d+\.\d+/),
-      services: { database: 'ok', mail: 'ok', storage: 'ok' },
-    });
+    const body = await readJson<{ ok: boolean; version: string; services: Record<string, string> }>(res);
+    expect(body).toMatchObject({ ok: true, services: { database: 'ok', mail: 'ok', storage: 'ok' } });
+    expect(body.version).toMatch(/^\d+\.\d+\.\d+/);
   });
 
   it('a mail sent by the app reaches the catcher, with text and HTML', async () => {
     const to = `shop-${randomUUID().slice(0, 8)}@test.example`;
+    const fleetId = randomUUID();
     await sendMail({
+      fleetId,
       to: [to],
       subject: 'Unit 214 out of service',
       text: 'Steer tire bulge, major.',
@@ -43,8 +43,11 @@ describe('local services', () => {
     });
     const messages = await waitForMail(to);
     expect(messages).toHaveLength(1);
-    const full = await (await fetch(`${catcher()}/messages/${messages[0]!.id}`)).json();
-    expect(full).toMatchObject({ subject: 'Unit 214 out of service', to: [to] });
+    const full = await readJson<{ subject: string; to: string[]; text: string; html: string; fleetId: string }>(
+      await fetch(`${catcher()}/messages/${messages[0]!.id}`),
+    );
+    // The catcher files the message under its fleet, from the header the app sets.
+    expect(full).toMatchObject({ subject: 'Unit 214 out of service', to: [to], fleetId });
     expect(full.text).toContain('Steer tire bulge, major.');
     expect(full.html).toContain('<b>bulge</b>');
   });

@@ -18,14 +18,14 @@ function kindOf(subject: string) {
 
 // What the local mail catcher received. With a real mail provider configured, there is nothing to show here.
 export default async function CaughtMailPage({ searchParams }: { searchParams: Promise<{ to?: string }> }) {
-  await requireRole('admin');
+  const admin = await requireRole('admin');
   const { to } = await searchParams;
-  const { configured, messages } = await listCaughtMessages({ to: to || undefined });
+  const { configured, messages } = await listCaughtMessages({ fleetId: admin.fleetId, to: to || undefined });
   return (
     <section className="space-y-4">
       <h1 className="text-3xl font-extrabold">Caught mail</h1>
       <p className="text-base text-muted">
-        Messages the local mail catcher received instead of sending them out. Newest first.
+        Messages of this fleet that the local mail catcher received instead of sending them out. Newest first.
       </p>
       <form className="flex flex-wrap items-end gap-2" method="get">
         <label className="flex flex-col text-sm font-bold">

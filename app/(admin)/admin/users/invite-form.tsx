@@ -1,13 +1,14 @@
 'use client';
 
 import { useState, type FormEvent } from 'react';
-import { Field, FormNotice } from '@/components/admin/field';
+import { Field, FormNotice, inputClass } from '@/components/ui/field';
 import { useHydrated } from '@/components/ui/use-hydrated';
 import { fieldsOfZod, firstError, readFailure, type FieldErrors } from '@/components/admin/form-errors';
-import { inputClass, officeButtonClass, panelClass } from '@/components/admin/office-controls';
 import { useInviteUserMutation } from '@/lib/queries/admin';
 import { inviteUserBodySchema, type Role } from '@/lib/schemas/users';
 import { RoleChoices } from './role-choices';
+import { buttonClass } from '@/components/ui/button';
+import { panelClass } from '@/components/ui/panel';
 
 export function InviteForm() {
   const hydrated = useHydrated();
@@ -31,8 +32,8 @@ export function InviteForm() {
     }
     setErrors({});
     try {
-      const { user } = await invite.mutateAsync(body);
-      setSentTo(user.email);
+      const { invitation } = await invite.mutateAsync(body);
+      setSentTo(invitation.email);
       setName('');
       setEmail('');
       setRoles(['driver']);
@@ -44,7 +45,7 @@ export function InviteForm() {
   }
 
   return (
-    <section aria-labelledby="invite-heading" className={`${panelClass} flex flex-col gap-4 p-4`}>
+    <section aria-labelledby="invite-heading" className={`${panelClass({ padding: 'none' })} flex flex-col gap-4 p-4`}>
       <div>
         <h2 id="invite-heading" className="text-2xl font-extrabold">
           Invite someone
@@ -84,7 +85,7 @@ export function InviteForm() {
         />
         {failure ? <FormNotice kind="error">{failure}</FormNotice> : null}
         {sentTo ? <FormNotice kind="saved">Invitation sent to {sentTo}.</FormNotice> : null}
-        <button type="submit" className={officeButtonClass('primary')} disabled={invite.isPending || !hydrated}>
+        <button type="submit" className={buttonClass('primary', 'compact')} disabled={invite.isPending || !hydrated}>
           {invite.isPending ? 'Sending…' : 'Send invitation'}
         </button>
       </form>
