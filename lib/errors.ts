@@ -12,6 +12,7 @@ export const errorStatus = {
   invalid_body: 422,
   rate_limited: 429,
   internal: 500,
+  unavailable: 503, // a database limit was hit (a held lock, a slow statement, no free connection)
 } as const;
 
 export type ErrorCode = keyof typeof errorStatus;
@@ -38,4 +39,25 @@ export class AppError extends Error {
   toBody(): ErrorBody {
     return { error: { code: this.code, message: this.message, ...(this.fields ? { fields: this.fields } : {}) } };
   }
+}
+
+/**
+ * A database error that means "busy, try again" rather than a fault: a lock not granted within
+ * lock_timeout, a statement past statement_timeout, no free connection in time. Null otherwise.
+ * Codes: https://www.postgresql.org/docs/current/errcodes-appendix.html
+ */
+export function findBusyDatabaseError(err: unknown): AppError | null {
+  const code = (err as { code?: unknown } | null)?.code;
+  const message = err instanceof Error ? err.message : '';
+  const busy =
+    code === '55P03' || // lock_not_available (lock_timeout)
+    code === '57014' || // query_canceled (statement_timeout)
+    code === '25P03' || // idle_in_transaction_session_timeout
+    code === '53300' || // too_many_connections
+    /timeout exceeded when trying to connect|Query read timeout|Connection terminated due to connection timeout/i.test(
+      message,
+    );
+  return busy
+    ? new AppError('unavailable', 'RigCall is busy right now and could not finish this in time. Try again in a moment.')
+    : null;
 }

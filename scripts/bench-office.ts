@@ -7,6 +7,7 @@
 import { spawnSync } from 'node:child_process';
 import { CamelCasePlugin, Kysely, PostgresDialect, sql, type CompiledQuery } from 'kysely';
 import pg from 'pg';
+import type { DB as Database } from '../db/schema';
 
 // The query functions live in server-only modules; run them with the server condition.
 if (!process.execArgv.some((a) => a.includes('react-server'))) {
@@ -19,9 +20,9 @@ if (!process.execArgv.some((a) => a.includes('react-server'))) {
 }
 
 const { migrateToLatest } = await import('../db/migrate');
+const { poolLimits, toolDbLimits } = await import('../db/connect');
 const { countReportRows, findFleetMinimums, findReportRecord, listReportRows } = await import('../lib/db/reports');
 const { findInspectionDetail } = await import('../lib/db/inspections');
-type Database = import('../db/schema').DB;
 
 const json = process.argv.includes('--json');
 const say = (...a: unknown[]) => (json ? console.error(...a) : console.log(...a));
@@ -57,7 +58,7 @@ if (!['127.0.0.1', 'localhost', '::1'].includes(host)) throw new Error(`refusing
 
 const captured: CompiledQuery[] = [];
 let capturing = false;
-const pool = new pg.Pool({ connectionString: withDb('rigcall_bench'), max: 4 });
+const pool = new pg.Pool({ connectionString: withDb('rigcall_bench'), max: 4, ...poolLimits(toolDbLimits) });
 const db = new Kysely<Database>({
   dialect: new PostgresDialect({ pool }),
   plugins: [new CamelCasePlugin({ maintainNestedObjectKeys: true })],

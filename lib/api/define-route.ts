@@ -2,7 +2,7 @@ import 'server-only';
 import type { ZodType } from 'zod';
 import { readSessionUser } from '@/lib/auth/read-session-user';
 import type { Role } from '@/lib/auth/roles';
-import { AppError } from '@/lib/errors';
+import { AppError, findBusyDatabaseError } from '@/lib/errors';
 import type { SessionUser } from '@/lib/schemas/session';
 import { checkSameOrigin } from './check-same-origin';
 import { parseOrThrow } from './parse-input';
@@ -43,7 +43,7 @@ function checkRole(user: SessionUser | null, allowed: readonly Role[] | 'public'
 
 /**
  * Every route handler goes through here, in order: same origin for writes (403) → session (401) → role (403) → params →
- * JSON body (400/415) → zod (422) → handler → AppError mapped by its code; anything else 500.
+ * JSON body (400/415) → zod (422) → handler → AppError mapped by its code; a database limit 503; anything else 500.
  */
 export function defineRoute<P = undefined, B = undefined, Q = undefined>(
   opts: Options<P, B, Q> & { roles: 'public' },
@@ -72,6 +72,12 @@ export function defineRoute<P, B, Q>(opts: Options<P, B, Q>, handler: Handler<P,
       return await handler({ req, user: user as never, params, body, query, bytes });
     } catch (err) {
       if (err instanceof AppError) return errorResponse(err);
+      // A held lock, a statement past its limit, no free connection: busy, not broken (503).
+      const busy = findBusyDatabaseError(err);
+      if (busy) {
+        console.warn('[rigcall] database busy', req.method, new URL(req.url).pathname, (err as Error).message);
+        return errorResponse(busy);
+      }
       console.error('[rigcall] unhandled error in route handler', req.method, new URL(req.url).pathname, err);
       return errorResponse(new AppError('internal', 'Something went wrong on our side. Try again in a moment.'));
     }

@@ -8,7 +8,7 @@ const globalForDb = globalThis as unknown as { rigcallDb?: DB; rigcallStepDb?: D
 
 /** The one database client of the app, kept across hot reloads outside production. */
 export function getDb(): DB {
-  if (!globalForDb.rigcallDb) globalForDb.rigcallDb = createDb(getEnv().DATABASE_URL, 20);
+  if (!globalForDb.rigcallDb) globalForDb.rigcallDb = createDb(getEnv().DATABASE_URL, 20, { limits: 'app' });
   return globalForDb.rigcallDb;
 }
 
@@ -19,6 +19,6 @@ export function getDb(): DB {
  */
 export function getStepDb(): DB {
   if (!globalForDb.rigcallStepDb)
-    globalForDb.rigcallStepDb = createDb(getEnv().DATABASE_URL, 10, { waitForDisk: false });
+    globalForDb.rigcallStepDb = createDb(getEnv().DATABASE_URL, 10, { waitForDisk: false, limits: 'app' });
   return globalForDb.rigcallStepDb;
 }

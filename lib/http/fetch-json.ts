@@ -20,12 +20,28 @@ export class ApiError extends Error {
   }
 }
 
-export async function fetchJson<T>(url: string, init: RequestInit & { json?: unknown } = {}): Promise<T> {
-  const { json, headers, ...rest } = init;
+/** How long a call waits for the server before it gives up (the phone keeps what it was sending). */
+export const defaultTimeoutMs = 20_000;
+
+/** A signal that aborts after `ms`, or when `outer` aborts. */
+export function timeoutSignal(ms: number, outer?: AbortSignal | null): AbortSignal {
+  const timer = AbortSignal.timeout(ms);
+  return outer ? AbortSignal.any([outer, timer]) : timer;
+}
+
+const isTimeout = (err: unknown) => err instanceof DOMException && err.name === 'TimeoutError';
+
+export async function fetchJson<T>(
+  url: string,
+  init: RequestInit & { json?: unknown; timeoutMs?: number } = {},
+): Promise<T> {
+  const { json, headers, timeoutMs = defaultTimeoutMs, signal, ...rest } = init;
   let res: Response;
+  let text: string;
   try {
     res = await fetch(url, {
       ...rest,
+      signal: timeoutSignal(timeoutMs, signal),
       headers: {
         accept: 'application/json',
         ...(json !== undefined ? { 'content-type': 'application/json' } : {}),
@@ -33,10 +49,17 @@ export async function fetchJson<T>(url: string, init: RequestInit & { json?: unk
       },
       body: json !== undefined ? JSON.stringify(json) : rest.body,
     });
-  } catch {
+    text = await res.text();
+  } catch (err) {
+    if (signal?.aborted) throw err;
+    if (isTimeout(err))
+      throw new ApiError(
+        0,
+        'network',
+        `RigCall did not answer within ${Math.round(timeoutMs / 1000)} seconds. What you entered is kept; try again.`,
+      );
     throw new ApiError(0, 'network', 'No connection to RigCall right now. What you entered is kept and will be sent.');
   }
-  const text = await res.text();
   let body: unknown = null;
   try {
     body = text ? JSON.parse(text) : null;

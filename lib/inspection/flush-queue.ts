@@ -76,18 +76,33 @@ export async function flushQueue(
   return { sent, failed, waiting: 0, offline: false, lastError: null };
 }
 
+/** How long one queued step waits for an answer; a photo (up to 15 MB on a weak signal) waits longer. */
+export const stepTimeoutMs = 20_000;
+export const photoTimeoutMs = 120_000;
+
 /** One queued request over fetch, with the server's error message when it refuses. */
-export async function sendQueued(item: QueuedRequest): Promise<SendResult> {
+export async function sendQueued(
+  item: QueuedRequest,
+  { timeoutMs = item.blob ? photoTimeoutMs : stepTimeoutMs }: { timeoutMs?: number } = {},
+): Promise<SendResult> {
   let res: Response;
   try {
     res = await fetch(item.url, {
+      signal: AbortSignal.timeout(timeoutMs),
       method: item.method,
       headers: item.blob
         ? { 'content-type': item.blob.type || 'application/octet-stream' }
         : { 'content-type': 'application/json' },
       body: item.blob ?? JSON.stringify(item.json),
     });
-  } catch {
+  } catch (err) {
+    if (err instanceof DOMException && err.name === 'TimeoutError')
+      return {
+        ok: false,
+        retry: true,
+        status: 0,
+        message: `RigCall did not answer within ${Math.round(timeoutMs / 1000)} seconds. Saved on this phone; it will be sent.`,
+      };
     return { ok: false, retry: true, status: 0, message: 'No connection. Saved on this phone; it will be sent.' };
   }
   if (res.ok) return { ok: true };
