@@ -4,25 +4,31 @@
 import { promises as fs } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { FileMigrationProvider, Migrator, NO_MIGRATIONS, type Kysely } from 'kysely';
-import { createDb, databaseUrlFromEnv } from './connect';
+import { inspect } from 'node:util';
+import { FileMigrationProvider, Migrator, NO_MIGRATIONS, type MigrationResultSet } from 'kysely';
+import { createDb, databaseUrlFromEnv, type DB } from './connect';
 
 const migrationFolder = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', 'migrations');
 
-function migratorFor(db: Kysely<any>) {
+function migratorFor(db: DB) {
   return new Migrator({ db, provider: new FileMigrationProvider({ fs, path, migrationFolder }) });
 }
 
-/** Migrate to the latest version; throws with the failing migration's name. */
-export async function migrateToLatest(db: Kysely<any>, log: (msg: string) => void = () => {}): Promise<void> {
-  const { error, results } = await migratorFor(db).migrateToLatest();
-  for (const r of results ?? []) log(`migration ${r.migrationName}: ${r.status}`);
-  if (error) throw error instanceof Error ? error : new Error(String(error));
+/** Kysely reports a failed migration as an `unknown` error; throw it as an Error. */
+function throwIfFailed({ error }: MigrationResultSet): void {
+  if (!error) return;
+  throw error instanceof Error ? error : new Error(`migration failed: ${inspect(error)}`, { cause: error });
 }
 
-export async function migrateToEmpty(db: Kysely<any>): Promise<void> {
-  const { error } = await migratorFor(db).migrateTo(NO_MIGRATIONS);
-  if (error) throw error instanceof Error ? error : new Error(String(error));
+/** Migrate to the latest version; throws with the failing migration's name. */
+export async function migrateToLatest(db: DB, log: (msg: string) => void = () => {}): Promise<void> {
+  const result = await migratorFor(db).migrateToLatest();
+  for (const r of result.results ?? []) log(`migration ${r.migrationName}: ${r.status}`);
+  throwIfFailed(result);
+}
+
+export async function migrateToEmpty(db: DB): Promise<void> {
+  throwIfFailed(await migratorFor(db).migrateTo(NO_MIGRATIONS));
 }
 
 const isMain = process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url);

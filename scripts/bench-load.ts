@@ -16,6 +16,7 @@ import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { inspect } from 'node:util';
 import autocannon from 'autocannon';
 import { sql } from 'kysely';
 import { encode } from 'next-auth/jwt';
@@ -453,7 +454,7 @@ async function main() {
           initialContext: {},
           requests,
         },
-        (err, res) => (err ? reject(err) : resolve(res)),
+        (err: unknown, res) => (err ? reject(err instanceof Error ? err : new Error(inspect(err))) : resolve(res)),
       );
       instance.on('response', (_client: unknown, statusCode: number, _bytes: number, responseTime: number) => {
         latencies.push(responseTime);

@@ -44,8 +44,11 @@ async function main() {
   const probe = new pg.Client({ connectionString: probeUrl.toString() });
   await probe.connect();
   const tables = Number(
-    (await probe.query(`select count(*)::int as n from information_schema.tables where table_schema = 'public'`))
-      .rows[0].n,
+    (
+      await probe.query<{ n: number }>(
+        `select count(*)::int as n from information_schema.tables where table_schema = 'public'`,
+      )
+    ).rows[0]?.n,
   );
   await probe.end();
   if (tables > 0 && !replace)

@@ -373,7 +373,7 @@ export async function seedHistory(db: DB, opts: { fleetSlug: string; days?: numb
             id: uuidFrom(`${step.id}:defect`),
             fleetId: fleet.id,
             inspectionId,
-            stepId: step.id!,
+            stepId: step.id,
             unitId,
             zone: step.zone,
             component: step.component ?? 'unknown',
@@ -541,7 +541,7 @@ export async function seedHistory(db: DB, opts: { fleetSlug: string; days?: numb
           ...header,
           steps: toCanonicalSteps(
             mine.map((s) => ({
-              id: s.id!,
+              id: s.id,
               seq: s.seq,
               zone: s.zone,
               item: s.item ?? null,

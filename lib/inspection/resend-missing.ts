@@ -45,7 +45,7 @@ export function planResend({
       .filter((id): id is string => !!id),
   );
   const onPhone = new Set(steps.map((s) => s.id));
-  const missing = new Set(refusedFinish.errorFields!.stepIds!);
+  const missing = new Set(refusedFinish.errorFields?.stepIds);
   const resend = steps.filter((s) => missing.has(s.id) && !refusedSteps.has(s.id));
   // Named steps the phone no longer holds, or that were refused, are dropped from the list.
   const stepIds = json.stepIds.filter((id) => onPhone.has(id) && !refusedSteps.has(id));

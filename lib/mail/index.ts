@@ -1,5 +1,6 @@
 import 'server-only';
 import nodemailer, { type Transporter } from 'nodemailer';
+import type SMTPTransport from 'nodemailer/lib/smtp-transport';
 import { getEnv } from '@/lib/env';
 
 /** `fleetId`: whose mail this is; it travels in a header so the local catcher can list it per fleet. */
@@ -8,9 +9,12 @@ export type OutgoingMail = { fleetId: string; to: string[]; subject: string; tex
 /** The header that names a message's fleet (read by scripts/mail-catcher.mjs). */
 export const fleetHeader = 'X-RigCall-Fleet';
 
-const globalForMail = globalThis as unknown as { rigcallMail?: Transporter };
+/** An SMTP transport (SMTP_URL), so a sent message's info is typed. */
+type SmtpTransporter = Transporter<SMTPTransport.SentMessageInfo, SMTPTransport.Options>;
 
-function transport(): Transporter {
+const globalForMail = globalThis as unknown as { rigcallMail?: SmtpTransporter };
+
+function transport(): SmtpTransporter {
   if (!globalForMail.rigcallMail) globalForMail.rigcallMail = nodemailer.createTransport(getEnv().SMTP_URL);
   return globalForMail.rigcallMail;
 }

@@ -11,7 +11,7 @@ function isCheckName(value: string): value is CheckName {
 function readFleet(value: unknown): FleetSettings | { error: string } | undefined {
   if (value === undefined || value === null) return undefined;
   if (typeof value !== 'object' || Array.isArray(value)) return { error: '"fleet" must be an object' };
-  return value as FleetSettings;
+  return value;
 }
 
 /**

@@ -1,5 +1,5 @@
 import { findProfile } from './rule-profiles';
-import type { Jurisdiction, ProfileId, RuleProfile, Severity } from './types';
+import type { Jurisdiction, RuleProfile, Severity } from './types';
 
 /**
  * One component–condition pair of the defect vocabulary, as the rules need it. For Canada the
@@ -21,7 +21,8 @@ export type FindingSeverity = {
   source: string | null;
 };
 
-function resolveJurisdiction(profile: ProfileId | RuleProfile | string): Jurisdiction | undefined {
+/** `profile`: a profile, or a profile id (`ProfileId`) as stored; an unknown id resolves to none. */
+function resolveJurisdiction(profile: RuleProfile | string): Jurisdiction | undefined {
   if (typeof profile === 'object') return profile.jurisdiction;
   return findProfile(profile)?.jurisdiction;
 }
@@ -32,7 +33,7 @@ function resolveJurisdiction(profile: ProfileId | RuleProfile | string): Jurisdi
  */
 export function getFindingSeverity(
   pair: VocabularyPair,
-  profile: ProfileId | RuleProfile | string = 'us-federal',
+  profile: RuleProfile | string = 'us-federal',
 ): FindingSeverity {
   const jurisdiction = resolveJurisdiction(profile);
   const severity = jurisdiction === undefined ? undefined : pair.severity?.[jurisdiction];
@@ -54,7 +55,7 @@ export type UnclassifiedPair = VocabularyPair & { missing: Jurisdiction[] };
  */
 export function listUnclassifiedPairs(
   pairs: readonly VocabularyPair[],
-  profile?: ProfileId | RuleProfile | string,
+  profile?: RuleProfile | string,
 ): UnclassifiedPair[] {
   const single = profile === undefined ? undefined : resolveJurisdiction(profile);
   const wanted: Jurisdiction[] = single === undefined ? ['us', 'ca'] : [single];

@@ -1,6 +1,6 @@
 import { COMMON_PRACTICE } from './judge-limit';
 import { findProfile } from './rule-profiles';
-import type { FleetSettings, ProfileId, RuleProfile, Severity } from './types';
+import type { FleetSettings, RuleProfile, Severity } from './types';
 
 /** A point in time: epoch milliseconds, an ISO string, or a Date. */
 export type Instant = number | string | Date;
@@ -122,11 +122,7 @@ const DAY_MS = 24 * 60 * 60 * 1000;
  * (NSC 13). US profile: no fixed period; a pre-trip is owed before each day's driving
  * (49 CFR 396.13) and a report at the end of each day's work (396.11), so validity is not timed.
  */
-export function getReportValidity(
-  profile: ProfileId | RuleProfile | string,
-  inspectedAt: Instant,
-  now: Instant,
-): ReportValidity {
+export function getReportValidity(profile: RuleProfile | string, inspectedAt: Instant, now: Instant): ReportValidity {
   const resolved = typeof profile === 'object' ? profile : findProfile(profile);
   const start = toMillis(inspectedAt);
   const at = toMillis(now);
@@ -175,7 +171,7 @@ export type AcknowledgementDue = {
 export function listDefectsToAcknowledge(
   previous: PreviousReport | null | undefined,
   currentUnitIds: readonly string[],
-  profile: ProfileId | RuleProfile | string = 'us-federal',
+  profile: RuleProfile | string = 'us-federal',
 ): AcknowledgementDue {
   const jurisdiction = (typeof profile === 'object' ? profile : findProfile(profile))?.jurisdiction ?? 'us';
   const source = jurisdiction === 'ca' ? 'NSC 13 (later drivers sign a valid report); 49 CFR 396.13' : '49 CFR 396.13';

@@ -36,6 +36,12 @@ async function runCli(input: string[], args: string[] = []) {
   return { code, lines: cli.lines };
 }
 
+/** An error line is `{"error": "..."}` and nothing else, its message matching. */
+function expectErrorLine(line: Record<string, unknown> | undefined, message: RegExp) {
+  expect(Object.keys(line ?? {})).toEqual(['error']);
+  expect(line?.error).toMatch(message);
+}
+
 describe('npm run -s evaluate', () => {
   it('answers malformed lines with an error line and goes on', async () => {
     const input = [
@@ -54,7 +60,7 @@ describe('npm run -s evaluate', () => {
     expect(code).toBe(0);
     expect(lines).toHaveLength(input.length);
     const out = lines.map((line) => JSON.parse(line) as Record<string, unknown>);
-    expect(out[0]).toEqual({ error: expect.stringMatching(/not JSON/) });
+    expectErrorLine(out[0], /not JSON/);
     // 49 CFR 393.75(b): steer tread at least 4/32 in.
     expect(out[1]).toMatchObject({
       check: 'tread_depth',
@@ -63,14 +69,14 @@ describe('npm run -s evaluate', () => {
       limit: 4,
       source: '49 CFR 393.75(b)',
     });
-    expect(out[2]).toEqual({ error: expect.stringMatching(/unknown check/) });
-    expect(out[3]).toEqual({ error: expect.stringMatching(/missing field "value"/) });
-    expect(out[4]).toEqual({ error: expect.stringMatching(/must not be negative/) });
-    expect(out[5]).toEqual({ error: expect.stringMatching(/must be a number/) });
-    expect(out[6]).toEqual({ error: expect.stringMatching(/empty line/) });
+    expectErrorLine(out[2], /unknown check/);
+    expectErrorLine(out[3], /missing field "value"/);
+    expectErrorLine(out[4], /must not be negative/);
+    expectErrorLine(out[5], /must be a number/);
+    expectErrorLine(out[6], /empty line/);
     // 49 CFR 393.47(e): type 30 long stroke, 2-1/2 in.
     expect(out[7]).toMatchObject({ check: 'pushrod_stroke', verdict: 'pass', severity: null, limit: 2.5 });
-    expect(out[8]).toEqual({ error: expect.stringMatching(/not JSON/) });
+    expectErrorLine(out[8], /not JSON/);
     // CDL manual §5.3: applied leakage, combination ≤ 4 psi/min.
     expect(out[9]).toMatchObject({ check: 'air_leak', verdict: 'fail', severity: 'major', limit: 4 });
     for (const line of out.filter((entry) => !('error' in entry))) {

@@ -7,7 +7,8 @@ export type MailDefect = {
   description: string;
   unitNumber?: string;
   certifiedName?: string | null;
-  outcome?: 'repaired' | 'no_repair_needed' | 'open' | string;
+  /** 'repaired', 'no_repair_needed' or 'open' as stored; another value reads as repaired. */
+  outcome?: string;
 };
 
 export const escapeHtml = (s: string) =>

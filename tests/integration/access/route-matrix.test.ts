@@ -38,6 +38,7 @@ import { roles, type Role } from '@/lib/auth/roles';
 import { makeFleetFixture, type FleetFixture } from '../../setup/fleet-fixture';
 import { callRoute, makeRequest } from '../../setup/session';
 import { getTestDb } from '../../setup/test-db';
+import { readError } from '../../setup/read-json';
 
 type Case = {
   route: string; // the route file's path under app/api, as written on disk
@@ -454,7 +455,7 @@ describe.each(cases)('$method /api/$route', (c) => {
   it('401 without a session', async () => {
     const res = await c.call(f);
     expect(res.status).toBe(401);
-    expect((await res.json()).error.message).toMatch(/sign in/i);
+    expect((await readError(res)).message).toMatch(/sign in/i);
   });
   it.each(roles.map((r) => [r]))('%s', async (role) => {
     const res = await c.call(f, f.cookies[role]);
@@ -462,7 +463,7 @@ describe.each(cases)('$method /api/$route', (c) => {
       expect(res.status, await res.clone().text()).toBeLessThan(300);
     } else {
       expect(res.status).toBe(403);
-      expect((await res.json()).error.code).toBe('forbidden');
+      expect((await readError(res)).code).toBe('forbidden');
     }
   });
 });
@@ -491,7 +492,7 @@ describe('fleet isolation', () => {
       id: '42',
     });
     expect(res.status).toBe(422);
-    expect((await res.json()).error.message).toMatch(/record id/);
+    expect((await readError(res)).message).toMatch(/record id/);
   });
 });
 

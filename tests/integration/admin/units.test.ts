@@ -3,7 +3,9 @@ import { POST as retireRoute } from '@/app/api/admin/units/[id]/retire/route';
 import { GET as getUnit, PATCH as patchUnit } from '@/app/api/admin/units/[id]/route';
 import { GET as listUnits, POST as createUnit } from '@/app/api/admin/units/route';
 import { findUsableUnit, listUsableUnits } from '@/lib/db/units';
-import { findVinProblem } from '@/lib/schemas/units';
+import { z } from 'zod';
+import { findVinProblem, unitSchema } from '@/lib/schemas/units';
+import { parseJson, readError } from '../../setup/read-json';
 import { callRoute, makeRequest } from '../../setup/session';
 import { getTestDb } from '../../setup/test-db';
 import { auditRows, makeAdminFleet, makeTractor, makeVin, tractorAxles, trailerAxles } from './helpers';
@@ -28,6 +30,9 @@ const retire = (id: string, json: unknown = {}) =>
     makeRequest(`/api/admin/units/${id}/retire`, { method: 'POST', cookie: ctx.adminCookie, json }),
     { id },
   );
+
+const unitBodySchema = z.object({ unit: unitSchema });
+const unitListSchema = z.object({ units: z.array(unitSchema) });
 
 const trailer = (over: Record<string, unknown> = {}) => ({
   kind: 'trailer',
@@ -59,7 +64,7 @@ describe('adding a unit', () => {
     const vin = makeVin();
     const res = await create(trailer({ vin: `${vin.slice(0, 8).toLowerCase()} ${vin.slice(8)}` }));
     expect(res.status).toBe(201);
-    const { unit } = await res.json();
+    const { unit } = await parseJson(res, unitBodySchema);
     expect(unit).toMatchObject({
       kind: 'trailer',
       unitNumber: '5390',
@@ -90,21 +95,21 @@ describe('adding a unit', () => {
   it('explains a bad VIN beside the field (422)', async () => {
     const res = await create(trailer({ vin: 'IOQ45678901234567' }));
     expect(res.status).toBe(422);
-    const { error } = await res.json();
-    expect(error.fields.vin).toEqual([
+    const error = await readError(res);
+    expect(error.fields?.vin).toEqual([
       'A VIN never uses the letters I, O or Q (they read like 1 and 0). Check those characters.',
     ]);
     const res2 = await create(trailer({ vin: '1M8GDM9A1KP042788' }));
-    expect((await res2.json()).error.fields.vin[0]).toMatch(/check digit/);
+    expect((await readError(res2)).fields?.vin?.[0]).toMatch(/check digit/);
   });
 
   it('refuses a unit number already used in the fleet, whatever the case (409)', async () => {
     await makeTractor(ctx.fleet.id, { unitNumber: 'NB-214' });
     const res = await create({ ...trailer(), unitNumber: 'nb-214' });
     expect(res.status).toBe(409);
-    const { error } = await res.json();
+    const error = await readError(res);
     expect(error.message).toBe('Unit number NB-214 is already in use in this fleet.');
-    expect(error.fields.unitNumber).toEqual(['Unit number NB-214 is already in use in this fleet.']);
+    expect(error.fields?.unitNumber).toEqual(['Unit number NB-214 is already in use in this fleet.']);
   });
 
   it('allows the same unit number in another fleet', async () => {
@@ -116,19 +121,19 @@ describe('adding a unit', () => {
   it('checks the axle layout against the kind, the chamber types and the pressures', async () => {
     const res = await create(trailer({ axles: tractorAxles }));
     expect(res.status).toBe(422);
-    expect((await res.json()).error.fields['axles.0.position']).toEqual(['A trailer has trailer axles only.']);
+    expect((await readError(res)).fields?.['axles.0.position']).toEqual(['A trailer has trailer axles only.']);
 
     const res2 = await create({
       ...trailer(),
       kind: 'tractor',
       axles: [{ position: 'drive', tires: ['A', 'B'], coldPsi: 200, chamber: '31' }],
     });
-    const fields = (await res2.json()).error.fields;
-    expect(fields['axles.0.coldPsi']).toEqual(['A cold-inflation target is at most 150 psi.']);
-    expect(fields['axles.0.chamber'][0]).toMatch(/brake chamber type/);
+    const { fields } = await readError(res2);
+    expect(fields?.['axles.0.coldPsi']).toEqual(['A cold-inflation target is at most 150 psi.']);
+    expect(fields?.['axles.0.chamber']?.[0]).toMatch(/brake chamber type/);
 
     const res3 = await create({ ...trailer(), kind: 'tractor', axles: [tractorAxles[1], tractorAxles[0]] });
-    expect((await res3.json()).error.fields['axles.0.position']).toEqual([
+    expect((await readError(res3)).fields?.['axles.0.position']).toEqual([
       'The first axle of a tractor is its steer axle.',
     ]);
   });
@@ -136,7 +141,7 @@ describe('adding a unit', () => {
   it('wants a jurisdiction with a plate', async () => {
     const res = await create(trailer({ plateJurisdiction: '' }));
     expect(res.status).toBe(422);
-    expect((await res.json()).error.fields.plateJurisdiction).toEqual([
+    expect((await readError(res)).fields?.plateJurisdiction).toEqual([
       'Pick the state or province that issued this plate.',
     ]);
   });
@@ -151,7 +156,7 @@ describe('editing and retiring a unit', () => {
       axles: [{ ...tractorAxles[0], coldPsi: 115 }, tractorAxles[1]],
     });
     expect(res.status).toBe(200);
-    const { unit } = await res.json();
+    const { unit } = await parseJson(res, unitBodySchema);
     expect(unit).toMatchObject({ make: 'Ardent', year: 2020 });
     expect(unit.axles).toHaveLength(2);
     const [row] = await auditRows(t.id);
@@ -175,7 +180,7 @@ describe('editing and retiring a unit', () => {
 
     const res = await retire(t.id, { reason: 'sold at auction' });
     expect(res.status).toBe(200);
-    expect((await res.json()).unit.retiredAt).toEqual(expect.any(String));
+    expect((await parseJson(res, unitBodySchema)).unit.retiredAt).toEqual(expect.any(String));
     expect((await auditRows(t.id)).map((r) => [r.action, r.detail])).toEqual([
       ['unit.retired', { unitNumber: '304', kind: 'tractor', reason: 'sold at auction' }],
     ]);
@@ -187,20 +192,19 @@ describe('editing and retiring a unit', () => {
     expect((await retire(t.id)).status).toBe(409);
     const edit = await patch(t.id, { make: 'Ardent' });
     expect(edit.status).toBe(409);
-    expect((await edit.json()).error.message).toMatch(/retired/);
+    expect((await readError(edit)).message).toMatch(/retired/);
     const reuse = await create({ ...trailer(), kind: 'tractor', unitNumber: '304', axles: tractorAxles });
-    expect((await reuse.json()).error.message).toMatch(/retired unit/);
+    expect((await readError(reuse)).message).toMatch(/retired unit/);
   });
 
   it('lists by kind and retirement', async () => {
     const a = await makeTractor(ctx.fleet.id, { unitNumber: '310' });
     const b = await makeTractor(ctx.fleet.id, { unitNumber: '311' });
     await retire(b.id);
-    const list = async (q: string) =>
-      (
-        (await (await callRoute(listUnits, makeRequest(`/api/admin/units${q}`, { cookie: ctx.adminCookie }))).json())
-          .units as { id: string }[]
-      ).map((u) => u.id);
+    const list = async (q: string) => {
+      const res = await callRoute(listUnits, makeRequest(`/api/admin/units${q}`, { cookie: ctx.adminCookie }));
+      return (await parseJson(res, unitListSchema)).units.map((u) => u.id);
+    };
     expect(await list('')).toEqual([a.id, b.id]);
     expect(await list('?retired=exclude')).toEqual([a.id]);
     expect(await list('?retired=only&kind=tractor')).toEqual([b.id]);

@@ -8,6 +8,7 @@ import { makeFleetFixture, type FleetFixture } from '../../setup/fleet-fixture';
 import { callRoute, makeRequest } from '../../setup/session';
 import { getTestDb } from '../../setup/test-db';
 import { postStep, signWalk, startWalk } from '../security/walk-helpers';
+import { readError } from '../../setup/read-json';
 
 const db = getTestDb();
 let f: FleetFixture;
@@ -92,7 +93,7 @@ describe('an upload cut off half-way', () => {
 
     const broken = await brokenUpload(inspectionId, photoId, stepId);
     expect(broken.status).toBe(422);
-    expect((await broken.json()).error.message).toBe(
+    expect((await readError(broken)).message).toBe(
       'The upload was cut off before it finished. Nothing was saved; send the photo again.',
     );
     expect(await attachmentsOf(inspectionId)).toEqual([]);
@@ -106,7 +107,7 @@ describe('an upload cut off half-way', () => {
     );
     expect(halfFile.status).toBeGreaterThanOrEqual(400);
     expect(halfFile.status).toBeLessThan(500);
-    expect((await halfFile.json()).error.message).toMatch(/photo|image/i);
+    expect((await readError(halfFile)).message).toMatch(/photo|image/i);
     expect(await attachmentsOf(inspectionId)).toEqual([]);
 
     // The device sends it again, whole, and once more after a lost answer.

@@ -5,6 +5,7 @@ import * as certificationRoute from '@/app/api/defects/[id]/certification/route'
 import * as defectsRoute from '@/app/api/defects/route';
 import * as pendingRoute from '@/app/api/reports/acknowledgements/route';
 import { listPendingAcknowledgements } from '@/lib/services/inspections/list-pending-acknowledgements';
+import { readError, readJson } from '../../setup/read-json';
 import { callRoute, makeRequest } from '../../setup/session';
 import { caughtMailTo, makeOfficeFleet, makeSignedReport, type OfficeFleet } from './office-fixtures';
 
@@ -13,6 +14,11 @@ beforeAll(async () => {
   f = await makeOfficeFleet();
 });
 afterAll(() => f.db.destroy());
+
+/** What these tests read of the answers (the assertions check the values). */
+type Queue = { groups: { unitId: string; unitStatus: string; major: unknown[]; minor: unknown[] }[] };
+type Certified = { unit: { status: string; changed: boolean }; openMajor: number; mailed: boolean };
+type Pending = { pending: { due: unknown; defects: unknown[] }[] };
 
 const certify = (id: string, body: Record<string, unknown>, cookie = f.cookies.mechanic) =>
   callRoute(
@@ -37,14 +43,14 @@ describe('repair and certification', () => {
     const [major1, major2, minor, trailerMinor] = report.defects;
     expect(await unitStatus(report.tractor.id)).toBe('out_of_service');
 
-    const queue = await (
-      await callRoute(defectsRoute.GET, makeRequest('/api/defects', { cookie: f.cookies.mechanic }))
-    ).json();
-    const group = queue.groups.find((g: { unitId: string }) => g.unitId === report.tractor.id);
-    expect(group.unitStatus).toBe('out_of_service');
-    expect(group.major).toHaveLength(2);
-    expect(group.minor).toHaveLength(1);
-    expect(queue.groups[0].unitStatus).toBe('out_of_service'); // out-of-service units come first
+    const queue = await readJson<Queue>(
+      await callRoute(defectsRoute.GET, makeRequest('/api/defects', { cookie: f.cookies.mechanic })),
+    );
+    const group = queue.groups.find((g) => g.unitId === report.tractor.id);
+    expect(group?.unitStatus).toBe('out_of_service');
+    expect(group?.major).toHaveLength(2);
+    expect(group?.minor).toHaveLength(1);
+    expect(queue.groups[0]?.unitStatus).toBe('out_of_service'); // out-of-service units come first
 
     let res = await certify(major1!.id, {
       outcome: 'repaired',
@@ -55,7 +61,7 @@ describe('repair and certification', () => {
       confirm: true,
     });
     expect(res.status).toBe(201);
-    let body = await res.json();
+    let body = await readJson<Certified>(res);
     expect(body.unit).toMatchObject({ status: 'out_of_service', changed: false });
     expect(body.openMajor).toBe(1);
     expect(await unitStatus(report.tractor.id)).toBe('out_of_service');
@@ -79,7 +85,7 @@ describe('repair and certification', () => {
       certifiedName: 'Morgan Shop',
       confirm: true,
     });
-    body = await res.json();
+    body = await readJson<Certified>(res);
     expect(body.unit).toMatchObject({ status: 'in_service', changed: true });
     expect(body.mailed).toBe(true);
     expect(await unitStatus(report.tractor.id)).toBe('in_service');
@@ -147,8 +153,8 @@ describe('repair and certification', () => {
       confirm: false,
     });
     expect(res.status).toBe(422);
-    const body = await res.json();
-    expect(Object.keys(body.error.fields)).toEqual(expect.arrayContaining(['certifiedName', 'confirm']));
+    const error = await readError(res);
+    expect(Object.keys(error.fields ?? {})).toEqual(expect.arrayContaining(['certifiedName', 'confirm']));
     expect(await unitStatus(report.tractor.id)).toBe('out_of_service');
     expect(
       (
@@ -191,10 +197,10 @@ describe('repair and certification', () => {
       }),
     );
     expect(res.status).toBe(200);
-    const { pending } = await res.json();
+    const { pending } = await readJson<Pending>(res);
     expect(pending).toHaveLength(1);
-    expect(pending[0].due).toMatchObject({ signatureRequired: true, mayOperate: true });
-    expect(pending[0].defects[0]).toMatchObject({ status: 'repaired', certifiedName: 'Morgan Shop' });
+    expect(pending[0]?.due).toMatchObject({ signatureRequired: true, mayOperate: true });
+    expect(pending[0]?.defects[0]).toMatchObject({ status: 'repaired', certifiedName: 'Morgan Shop' });
 
     await g.db
       .insertInto('acknowledgement')

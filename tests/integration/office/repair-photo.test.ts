@@ -7,6 +7,7 @@ import * as finish from '@/app/api/inspections/[id]/finish/route';
 import * as steps from '@/app/api/inspections/[id]/steps/route';
 import * as inspections from '@/app/api/inspections/route';
 import { makeFleetFixture, type FleetFixture } from '../../setup/fleet-fixture';
+import { readJson } from '../../setup/read-json';
 import { callRoute, makeRequest } from '../../setup/session';
 import { getTestDb } from '../../setup/test-db';
 
@@ -76,12 +77,12 @@ describe('repair photos', () => {
       );
     expect((await put()).status).toBe(201);
     expect((await put()).status).toBe(200);
-    const detail = await (
+    const detail = await readJson<{ photos: { id: string }[] }>(
       await callRoute(defectRoute.GET, makeRequest(`/api/defects/${defectId}`, { cookie: f.cookies.mechanic }), {
         id: defectId,
-      })
-    ).json();
-    expect(detail.photos.map((p: { id: string }) => p.id)).toContain(photoId);
+      }),
+    );
+    expect(detail.photos.map((p) => p.id)).toContain(photoId);
     const rows = await db
       .selectFrom('attachment')
       .select(['defectId', 'uploadedBy'])

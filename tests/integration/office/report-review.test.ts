@@ -7,6 +7,7 @@ import * as notifyRoute from '@/app/api/reports/[id]/notify/route';
 import * as boardRoute from '@/app/api/dashboard/board/route';
 import * as dashboardRoute from '@/app/api/dashboard/route';
 import * as mailRoute from '@/app/api/mail/route';
+import { readJson } from '../../setup/read-json';
 import { callRoute, makeRequest } from '../../setup/session';
 import { caughtMailTo, makeOfficeFleet, makeSignedReport, type OfficeFleet } from './office-fixtures';
 
@@ -16,10 +17,30 @@ beforeAll(async () => {
 });
 afterAll(() => f.db.destroy());
 
+/** What these tests read of the answers (the assertions check the values). */
+type Detail = {
+  hash: { state: string; stored: string | null; computed: string | null };
+  duration: unknown;
+  zones: { id: string; seconds: number; steps: { kind: string }[] }[];
+  skippedZones: unknown[];
+  defects: unknown[];
+  review: { reviewedAt: string | null } | null;
+};
+type Board = {
+  units: { id: string; status: string; last: unknown }[];
+  attention: { reasons: string[] }[];
+};
+type Dashboard = {
+  defectsBySystem: unknown[];
+  openMajorByDay: unknown[];
+  durationBuckets: { preTrip: number; postTrip: number }[];
+  recognition: { share: number }[];
+};
+
 const detail = async (id: string) =>
-  (
-    await callRoute(detailRoute.GET, makeRequest(`/api/reports/${id}`, { cookie: f.cookies.supervisor }), { id })
-  ).json();
+  readJson<Detail>(
+    await callRoute(detailRoute.GET, makeRequest(`/api/reports/${id}`, { cookie: f.cookies.supervisor }), { id }),
+  );
 
 describe('report detail', () => {
   it('shows the transcript zone by zone with time in each, the duration against the minimum and a matching hash', async () => {
@@ -31,9 +52,9 @@ describe('report detail', () => {
     expect(d.hash.state).toBe('match');
     expect(d.hash.computed).toBe(report.hash);
     expect(d.duration).toMatchObject({ minimumMinutes: 15, short: true });
-    expect(d.zones.map((z: { id: string }) => z.id)).toEqual(['front', 'engine_bay']);
-    expect(d.zones[0].seconds).toBe(90); // three steps 30 s apart before the next zone
-    const finding = d.zones[0].steps.find((s: { kind: string }) => s.kind === 'defect');
+    expect(d.zones.map((z) => z.id)).toEqual(['front', 'engine_bay']);
+    expect(d.zones[0]?.seconds).toBe(90); // three steps 30 s apart before the next zone
+    const finding = d.zones[0]?.steps.find((s) => s.kind === 'defect');
     expect(finding).toMatchObject({
       heard: 'steer tire, bulge',
       score: 0.91,
@@ -73,7 +94,7 @@ describe('POST /api/reports/[id]/review', () => {
     expect(res.status).toBe(200);
     const d = await detail(report.id);
     expect(d.review).toMatchObject({ reviewerName: 'Sam Lead', note: 'Short walk; talked with the driver.' });
-    expect(d.review.reviewedAt).toBeTruthy();
+    expect(d.review?.reviewedAt).toBeTruthy();
     const audit = await f.db
       .selectFrom('auditLog')
       .select(['action', 'entityId'])
@@ -118,7 +139,7 @@ describe('the shop notice and the caught-mail list', () => {
       { id: report.id },
     );
     expect(res.status).toBe(200);
-    expect((await res.json()).sent).toEqual([
+    expect((await readJson<{ sent: unknown[] }>(res)).sent).toEqual([
       { unitNumber: '101', kind: 'out_of_service', sent: true },
       { unitNumber: '5001', kind: 'repair_needed', sent: true },
     ]);
@@ -127,12 +148,12 @@ describe('the shop notice and the caught-mail list', () => {
       `OUT OF SERVICE: unit 101 (${f.fleet.name})`,
       `Repair needed: unit 5001 (${f.fleet.name})`,
     ]);
-    const caught = await (
+    const caught = await readJson<{ configured: boolean; messages: unknown[] }>(
       await callRoute(
         mailRoute.GET,
         makeRequest(`/api/mail?to=${encodeURIComponent(f.fleet.maintenanceEmail)}`, { cookie: f.cookies.admin }),
-      )
-    ).json();
+      ),
+    );
     expect(caught.configured).toBe(true);
     expect(caught.messages).toHaveLength(2);
   });
@@ -143,7 +164,7 @@ describe('supervisor board and dashboard', () => {
     const g = await makeOfficeFleet({ history: 14, name: 'Board fleet' });
     const res = await callRoute(boardRoute.GET, makeRequest('/api/dashboard/board', { cookie: g.cookies.supervisor }));
     expect(res.status).toBe(200);
-    const board = await res.json();
+    const board = await readJson<Board>(res);
     expect(board.units).toHaveLength(7);
     const openMajor = await g.db
       .selectFrom('defect')
@@ -153,22 +174,19 @@ describe('supervisor board and dashboard', () => {
       .where('severity', '=', 'major')
       .execute();
     for (const u of board.units) expect(u.status === 'out_of_service').toBe(openMajor.some((d) => d.unitId === u.id));
-    expect(board.units.filter((u: { last: unknown }) => u.last).length).toBeGreaterThan(3);
-    const reasons = new Set(board.attention.flatMap((a: { reasons: string[] }) => a.reasons));
+    expect(board.units.filter((u) => u.last).length).toBeGreaterThan(3);
+    const reasons = new Set(board.attention.flatMap((a) => a.reasons));
     expect(reasons.has('short')).toBe(true);
     expect(reasons.has('no_post_trip')).toBe(true);
 
-    const dash = await (
-      await callRoute(dashboardRoute.GET, makeRequest('/api/dashboard', { cookie: g.cookies.supervisor }))
-    ).json();
+    const dash = await readJson<Dashboard>(
+      await callRoute(dashboardRoute.GET, makeRequest('/api/dashboard', { cookie: g.cookies.supervisor })),
+    );
     expect(dash.defectsBySystem.length).toBeGreaterThan(0);
     expect(dash.openMajorByDay.length).toBe(61);
-    expect(
-      dash.durationBuckets.reduce(
-        (n: number, b: { preTrip: number; postTrip: number }) => n + b.preTrip + b.postTrip,
-        0,
-      ),
-    ).toBe(g.history && !g.history.skipped ? g.history.inspections : -1);
-    expect(dash.recognition.every((r: { share: number }) => r.share >= 0 && r.share <= 100)).toBe(true);
+    expect(dash.durationBuckets.reduce((n, b) => n + b.preTrip + b.postTrip, 0)).toBe(
+      g.history && !g.history.skipped ? g.history.inspections : -1,
+    );
+    expect(dash.recognition.every((r) => r.share >= 0 && r.share <= 100)).toBe(true);
   });
 });

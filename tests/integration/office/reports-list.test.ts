@@ -3,7 +3,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import * as reportsRoute from '@/app/api/reports/route';
 import { listReports } from '@/lib/services/reports/list-reports';
-import { listReportsQuerySchema, type ListReportsQuery } from '@/lib/schemas/reports';
+import { listReportsQuerySchema, type ListReportsQuery, type ReportPage } from '@/lib/schemas/reports';
+import { readError, readJson } from '../../setup/read-json';
 import { callRoute, makeRequest } from '../../setup/session';
 import { makeOfficeFleet, type OfficeFleet } from './office-fixtures';
 
@@ -170,7 +171,7 @@ describe('GET /api/reports', () => {
       }),
     );
     expect(res.status).toBe(200);
-    const body = await res.json();
+    const body = await readJson<ReportPage>(res);
     expect(body.page).toBe(2);
     expect(body.rows).toHaveLength(5);
     expect(body.total).toBe(all.filter((r) => r.kind === 'pre_trip').length);
@@ -182,8 +183,8 @@ describe('GET /api/reports', () => {
       makeRequest(`/api/reports?sort=password&from=yesterday`, { cookie: f.cookies.supervisor }),
     );
     expect(res.status).toBe(422);
-    const body = await res.json();
-    expect(Object.keys(body.error.fields)).toEqual(expect.arrayContaining(['sort', 'from']));
+    const error = await readError(res);
+    expect(Object.keys(error.fields ?? {})).toEqual(expect.arrayContaining(['sort', 'from']));
   });
 
   it("never lists another fleet's reports, even by a filter on its unit", async () => {
@@ -192,6 +193,6 @@ describe('GET /api/reports', () => {
       reportsRoute.GET,
       makeRequest(`/api/reports?unitId=${other.tractors[0]!.id}`, { cookie: f.cookies.supervisor }),
     );
-    expect((await res.json()).total).toBe(0);
+    expect((await readJson<ReportPage>(res)).total).toBe(0);
   });
 });

@@ -14,6 +14,7 @@ import { makeFleetFixture, type FleetFixture } from '../../setup/fleet-fixture';
 import { callRoute, makeRequest } from '../../setup/session';
 import { getTestDb } from '../../setup/test-db';
 import { makeSignedReport, postStep } from './walk-helpers';
+import { readError } from '../../setup/read-json';
 
 const db = getTestDb();
 let f: FleetFixture;
@@ -134,7 +135,7 @@ describe('cross-site writes', () => {
     for (const headers of attempts) {
       const res = await post(headers);
       expect(res.status, JSON.stringify(headers)).toBe(403);
-      expect((await res.json()).error.message).toMatch(/another site/);
+      expect((await readError(res)).message).toMatch(/another site/);
     }
     const after = await db
       .selectFrom('inspection')
@@ -178,7 +179,7 @@ describe('a signed report', () => {
       termKey: 'horn:inoperative',
     });
     expect(res.status).toBe(409);
-    expect((await res.json()).error.message).toMatch(/signed and locked/);
+    expect((await readError(res)).message).toMatch(/signed and locked/);
     const logged = await db
       .selectFrom('auditLog')
       .select(['action', 'actorId', 'detail'])

@@ -24,12 +24,24 @@ import {
   parseLabelledJsonl,
   type LabelledUtterance,
 } from '@/lib/matcher/fixture-scoring';
-import type { EvaluationReport, VersionDetail } from '@/lib/schemas/vocabulary';
+import type { Grammar } from '@/lib/schemas/grammar';
+import type {
+  BenchMatch,
+  BenchResult,
+  EvaluationReport,
+  FieldUtteranceGroup,
+  VersionDetail,
+  VersionSummary,
+} from '@/lib/schemas/vocabulary';
 import { scoreLabelledSet } from '@/lib/services/vocabulary/evaluate-vocabulary';
 import { loadWalkOrNull } from '@/lib/services/inspections/load-walk';
 import { makeFleetFixture, type FleetFixture } from '../../setup/fleet-fixture';
 import { callRoute, makeRequest } from '../../setup/session';
 import { getTestDb } from '../../setup/test-db';
+import { readError, readJson } from '../../setup/read-json';
+
+type Inbox = { groups: FieldUtteranceGroup[] };
+type PhraseAdded = { slot: string; target: string; resolved: number; match: BenchMatch };
 
 const db = getTestDb();
 let f: FleetFixture;
@@ -42,20 +54,20 @@ afterAll(() => db.destroy());
 
 const asTrainer = (init: { method?: string; json?: unknown } = {}) => ({ ...init, cookie: f.cookies.trainer });
 const openDraft = async () =>
-  (
-    await callRoute(versions.POST, makeRequest('/api/vocabulary/versions', asTrainer({ method: 'POST', json: {} })))
-  ).json() as Promise<VersionDetail>;
+  readJson<VersionDetail>(
+    await callRoute(versions.POST, makeRequest('/api/vocabulary/versions', asTrainer({ method: 'POST', json: {} }))),
+  );
 const publishDraft = (id: string, json: unknown = {}) =>
   callRoute(publish.POST, makeRequest(`/api/vocabulary/versions/${id}/publish`, asTrainer({ method: 'POST', json })), {
     id,
   });
 const runBench = async (text: string, zone = 'rear') =>
-  (
+  readJson<BenchResult>(
     await callRoute(
       bench.POST,
       makeRequest('/api/vocabulary/bench', asTrainer({ method: 'POST', json: { text, zone } })),
-    )
-  ).json();
+    ),
+  );
 const startInspection = async (id: string) => {
   const res = await callRoute(
     inspections.POST,
@@ -90,13 +102,13 @@ describe('versions', () => {
     expect(first.grammar.vocabulary).toEqual(defaultVocabulary);
     const res = await publishDraft(first.id);
     expect(res.status, await res.clone().text()).toBe(200);
-    expect((await res.json()).version.status).toBe('published');
+    expect((await readJson<{ version: VersionDetail }>(res)).version.status).toBe('published');
   });
 
   it('a phrase added in the draft changes the draft’s match and not the published one', async () => {
     second = await openDraft();
     expect(second.basedOnId).toBe(first.id);
-    expect((await runBench(heard)).draft.match.kind).toBe('unknown');
+    expect((await runBench(heard)).draft?.match.kind).toBe('unknown');
     const ids: string[] = [];
     for (const text of [heard, 'Mud flap, doing the jitterbug!', 'uh mud flaps doing the jitterbug']) {
       ids.push(
@@ -109,33 +121,33 @@ describe('versions', () => {
         ).id,
       );
     }
-    const inbox = await (
-      await callRoute(fieldUtterances.GET, makeRequest('/api/vocabulary/field-utterances', asTrainer()))
-    ).json();
-    const group = inbox.groups.find((g: { ids: string[] }) => g.ids.includes(ids[0]!));
-    expect(group.count).toBe(3); // grouped by similar text
+    const inbox = await readJson<Inbox>(
+      await callRoute(fieldUtterances.GET, makeRequest('/api/vocabulary/field-utterances', asTrainer())),
+    );
+    const group = inbox.groups.find((g) => g.ids.includes(ids[0]!));
+    expect(group?.count).toBe(3); // grouped by similar text
     const added = await callRoute(
       phrases.POST,
       makeRequest(
         `/api/vocabulary/versions/${second.id}/phrases`,
-        asTrainer({ method: 'POST', json: { termKey: 'mud_flap:loose', text: heard, utteranceIds: group.ids } }),
+        asTrainer({ method: 'POST', json: { termKey: 'mud_flap:loose', text: heard, utteranceIds: group?.ids } }),
       ),
       { id: second.id },
     );
     expect(added.status, await added.clone().text()).toBe(201);
-    const body = await added.json();
+    const body = await readJson<PhraseAdded>(added);
     expect(body).toMatchObject({ slot: 'condition', target: 'loose', resolved: 3 });
     expect(body.match.termId).toBe('mud_flap:loose');
 
     const after = await runBench(heard);
-    expect(after.draft.match.termId).toBe('mud_flap:loose');
-    expect(after.draft.match.score).toBeGreaterThanOrEqual(0.75);
-    expect(after.published.versionId).toBe(first.id);
-    expect(after.published.match.kind).toBe('unknown');
-    const inboxAfter = await (
-      await callRoute(fieldUtterances.GET, makeRequest('/api/vocabulary/field-utterances', asTrainer()))
-    ).json();
-    expect(inboxAfter.groups.some((g: { ids: string[] }) => g.ids.includes(ids[0]!))).toBe(false);
+    expect(after.draft?.match.termId).toBe('mud_flap:loose');
+    expect(after.draft?.match.score).toBeGreaterThanOrEqual(0.75);
+    expect(after.published?.versionId).toBe(first.id);
+    expect(after.published?.match.kind).toBe('unknown');
+    const inboxAfter = await readJson<Inbox>(
+      await callRoute(fieldUtterances.GET, makeRequest('/api/vocabulary/field-utterances', asTrainer())),
+    );
+    expect(inboxAfter.groups.some((g) => g.ids.includes(ids[0]!))).toBe(false);
   });
 
   it('an inspection started before publishing keeps its version; the next one gets the new one', async () => {
@@ -177,10 +189,10 @@ describe('versions', () => {
     await expect(db.deleteFrom('vocabularyVersion').where('id', '=', second.id).execute()).rejects.toThrow(
       /published and cannot change/,
     );
-    const list = await (await callRoute(versions.GET, makeRequest('/api/vocabulary/versions', asTrainer()))).json();
-    expect(
-      list.versions.map((v: { id: string; status: string; inspections: number }) => [v.id, v.status, v.inspections]),
-    ).toEqual([
+    const list = await readJson<{ versions: VersionSummary[] }>(
+      await callRoute(versions.GET, makeRequest('/api/vocabulary/versions', asTrainer())),
+    );
+    expect(list.versions.map((v) => [v.id, v.status, v.inspections])).toEqual([
       [second.id, 'published', 1],
       [first.id, 'published', 1],
     ]);
@@ -198,20 +210,20 @@ describe('versions', () => {
       { id: draft.id },
     );
     expect(saved.status, await saved.clone().text()).toBe(200);
-    const report: EvaluationReport = await (
+    const report = await readJson<EvaluationReport>(
       await callRoute(
         evaluation.POST,
         makeRequest(`/api/vocabulary/versions/${draft.id}/evaluation`, asTrainer({ method: 'POST' })),
         { id: draft.id },
-      )
-    ).json();
+      ),
+    );
     expect(report.lowersAccuracy).toBe(true);
     expect(report.figures.top1).toBeLessThan(report.published!.figures.top1);
     expect(report.newlyMissed.length).toBeGreaterThan(0);
 
     const refused = await publishDraft(draft.id);
     expect(refused.status).toBe(409);
-    expect((await refused.json()).error.fields.override).toBeDefined();
+    expect((await readError(refused)).fields?.override).toBeDefined();
     const tooShort = await publishDraft(draft.id, { override: { reason: 'ok' } });
     expect(tooShort.status).toBe(422);
     const reason = 'Steer tire phrases trimmed on purpose for the yard trial';
@@ -299,16 +311,16 @@ describe('evaluation', () => {
             )
           ).status,
         ).toBe(200);
-      const draft: VersionDetail = await (
-        await callRoute(versions.POST, makeRequest('/api/vocabulary/versions', { method: 'POST', cookie, json: {} }))
-      ).json();
-      const report: EvaluationReport = await (
+      const draft = await readJson<VersionDetail>(
+        await callRoute(versions.POST, makeRequest('/api/vocabulary/versions', { method: 'POST', cookie, json: {} })),
+      );
+      const report = await readJson<EvaluationReport>(
         await callRoute(
           evaluation.POST,
           makeRequest(`/api/vocabulary/versions/${draft.id}/evaluation`, { method: 'POST', cookie }),
           { id: draft.id },
-        )
-      ).json();
+        ),
+      );
       console.log(
         `${file} (${cli.total} lines): CLI top-1 ${cli.top1}, top-3 ${cli.top3}; evaluation top-1 ${report.figures.top1}, top-3 ${report.figures.top3}`,
       );
@@ -334,7 +346,7 @@ describe('evaluation', () => {
       ),
     );
     expect(bad.status).toBe(422);
-    expect((await bad.json()).error.message).toMatch(/line 4/);
+    expect((await readError(bad)).message).toMatch(/line 4/);
     const ok = await callRoute(
       testSet.PUT,
       makeRequest('/api/vocabulary/test-set', asTrainer({ method: 'PUT', json: { name: 'yard set', jsonl } })),
@@ -343,13 +355,13 @@ describe('evaluation', () => {
     const back = await callRoute(testSet.GET, makeRequest('/api/vocabulary/test-set?format=jsonl', asTrainer()));
     expect((await back.text()).trim()).toBe(jsonl);
     const draft = await openDraft();
-    const report: EvaluationReport = await (
+    const report = await readJson<EvaluationReport>(
       await callRoute(
         evaluation.POST,
         makeRequest(`/api/vocabulary/versions/${draft.id}/evaluation`, asTrainer({ method: 'POST' })),
         { id: draft.id },
-      )
-    ).json();
+      ),
+    );
     expect(report.set).toMatchObject({ name: 'yard set', source: 'fleet', count: 3 });
     expect(report.figures.top1).toBe(3);
   });
@@ -381,31 +393,31 @@ describe('export and import in the grammars/ format', () => {
         JSON.parse(readFileSync(path.resolve(__dirname, `../../../grammars/${file}.json`), 'utf8')),
       );
     }
-    const whole = await (
+    const whole = await readJson<Grammar>(
       await callRoute(exportRoute.GET, makeRequest(`/api/vocabulary/versions/${bare.id}/export`, { cookie }), {
         id: bare.id,
-      })
-    ).json();
+      }),
+    );
     expect(Object.keys(whole).sort()).toEqual(['commands', 'numbers', 'positions', 'vocabulary', 'zones']);
 
     const vocabulary = structuredClone(whole.vocabulary);
-    vocabulary.conditions.find((c: { id: string }) => c.id === 'loose').phrases.push('jitterbug');
+    vocabulary.conditions.find((c) => c.id === 'loose')!.phrases.push('jitterbug');
     const imported = await callRoute(
       importRoute.POST,
       makeRequest('/api/vocabulary/import', { method: 'POST', cookie, json: { files: { vocabulary } } }),
     );
     expect(imported.status, await imported.clone().text()).toBe(200);
-    const { version: draft } = await imported.json();
+    const { version: draft } = await readJson<{ version: VersionDetail }>(imported);
     expect(draft).toMatchObject({ status: 'draft', basedOnId: bare.id });
     expect(createMatcher(draft.grammar).match(heard, { zone: 'rear' }).termId).toBe('mud_flap:loose');
 
-    vocabulary.components[0].system = 'no_such_system';
+    vocabulary.components[0]!.system = 'no_such_system';
     const broken = await callRoute(
       importRoute.POST,
       makeRequest('/api/vocabulary/import', { method: 'POST', cookie, json: { files: { vocabulary } } }),
     );
     expect(broken.status).toBe(422);
-    expect((await broken.json()).error.message).toMatch(/no_such_system/);
+    expect((await readError(broken)).message).toMatch(/no_such_system/);
     const notAGrammar = await callRoute(
       importRoute.POST,
       makeRequest('/api/vocabulary/import', { method: 'POST', cookie, json: { files: { zones: { version: 1 } } } }),
@@ -428,18 +440,18 @@ describe('export and import in the grammars/ format', () => {
     expect(first.status, await first.clone().text()).toBe(200);
     const stale = await put(draft.updatedAt);
     expect(stale.status).toBe(409);
-    expect((await stale.json()).error.message).toMatch(/someone else/);
-    expect((await put((await first.json()).updatedAt)).status).toBe(200);
+    expect((await readError(stale)).message).toMatch(/someone else/);
+    expect((await put((await readJson<VersionDetail>(first)).updatedAt)).status).toBe(200);
   });
 
   it("another fleet's version is 404", async () => {
     const other = await makeFleetFixture(db, 'Other vocabulary fleet');
-    const theirs: VersionDetail = await (
+    const theirs = await readJson<VersionDetail>(
       await callRoute(
         versions.POST,
         makeRequest('/api/vocabulary/versions', { method: 'POST', cookie: other.cookies.trainer, json: {} }),
-      )
-    ).json();
+      ),
+    );
     const res = await callRoute(version.GET, makeRequest(`/api/vocabulary/versions/${theirs.id}`, asTrainer()), {
       id: theirs.id,
     });

@@ -13,6 +13,12 @@ import * as review from '@/app/api/units/[id]/review/route';
 import { makeFleetFixture, type FleetFixture } from '../../setup/fleet-fixture';
 import { callRoute, makeRequest } from '../../setup/session';
 import { getTestDb } from '../../setup/test-db';
+import { readError, readJson } from '../../setup/read-json';
+
+/** What these tests read of the answers (the assertions check the values). */
+type StepBody = { step: { severity: string | null } & Record<string, unknown> };
+type ReviewBody = { review: { mustAcknowledge: boolean; mayOperate: boolean } };
+type CaughtList = { messages: { subject: string }[] };
 
 const db = getTestDb();
 let f: FleetFixture;
@@ -100,7 +106,11 @@ describe('the walk through the API', () => {
     };
     const first = await step(inspectionId, body);
     expect(first.status).toBe(201);
-    expect((await first.json()).step).toMatchObject({ component: 'steer tire', condition: 'bulge', severity: 'major' }); // 49 CFR 393.75(a)(2)
+    expect((await readJson<StepBody>(first)).step).toMatchObject({
+      component: 'steer tire',
+      condition: 'bulge',
+      severity: 'major',
+    }); // 49 CFR 393.75(a)(2)
     expect((await step(inspectionId, body)).status).toBe(200);
     const n = await db
       .selectFrom('inspectionStep')
@@ -122,7 +132,7 @@ describe('the walk through the API', () => {
       reading: { value: 3 },
     });
     expect(res.status).toBe(201);
-    expect((await res.json()).step).toMatchObject({
+    expect((await readJson<StepBody>(res)).step).toMatchObject({
       measurementKind: 'tread_depth',
       value: 3,
       unit: '32nds',
@@ -171,7 +181,7 @@ describe('the walk through the API', () => {
       reading: { value: -2 },
     });
     expect(bad.status).toBe(422);
-    expect((await bad.json()).error.message).toMatch(/negative/);
+    expect((await readError(bad)).message).toMatch(/negative/);
     const unknownTerm = await step(inspectionId, {
       id: randomUUID(),
       seq: 5,
@@ -297,12 +307,12 @@ describe('the walk through the API', () => {
       .executeTakeFirstOrThrow();
     expect(row.status).toBe('submitted');
     expect(row.contentHash).toMatch(/^[0-9a-f]{64}$/);
-    const mail = await (
+    const mail = await readJson<CaughtList>(
       await fetch(
         `${process.env.MAIL_CATCHER_URL}/messages?to=${encodeURIComponent(`shop-${f.fleet.slug}@test.example`)}`,
-      )
-    ).json();
-    expect(mail.messages[0].subject).toMatch(/OUT OF SERVICE/);
+      ),
+    );
+    expect(mail.messages[0]?.subject).toMatch(/OUT OF SERVICE/);
   });
 
   it('refuses any change to the locked report, and logs the attempt', async () => {
@@ -338,12 +348,12 @@ describe('the walk through the API', () => {
       makeRequest(`/api/units/${f.tractor.id}/review`, { cookie: f.cookies.driver }),
       { id: f.tractor.id },
     );
-    const body = await r.json();
+    const body = await readJson<ReviewBody>(r);
     expect(body.review.mustAcknowledge).toBe(true);
     expect(body.review.mayOperate).toBe(false);
     const blocked = await start(randomUUID());
     expect(blocked.status).toBe(409);
-    expect((await blocked.json()).error.message).toMatch(/Review and sign the last report/);
+    expect((await readError(blocked)).message).toMatch(/Review and sign the last report/);
     const ack = await callRoute(
       acks.POST,
       makeRequest('/api/acknowledgements', {
@@ -363,7 +373,7 @@ describe('the walk through the API', () => {
       makeRequest(`/api/units/${f.trailer.id}/review`, { cookie: f.cookies.driver }),
       { id: f.trailer.id },
     );
-    expect((await trailerAck.json()).review.mustAcknowledge).toBe(false);
+    expect((await readJson<ReviewBody>(trailerAck)).review.mustAcknowledge).toBe(false);
     expect((await start(randomUUID())).status).toBe(201);
   });
 });
@@ -432,7 +442,7 @@ describe('signing names every step the phone recorded', () => {
     };
     const quick = await record(secondBody);
     expect(quick.status).toBe(201);
-    const quickStep = (await quick.json()).step;
+    const quickStep = (await readJson<StepBody>(quick)).step;
     expect(quickStep).toMatchObject({
       id: second,
       termKey: 'horn:inoperative',
@@ -444,12 +454,12 @@ describe('signing names every step the phone recorded', () => {
     expect(quickStep.severity).toMatch(/^(minor|major)$/);
     const replay = await record(secondBody);
     expect(replay.status).toBe(200);
-    expect((await replay.json()).step).toEqual(quickStep);
+    expect((await readJson<StepBody>(replay)).step).toEqual(quickStep);
     const refused = await sign([first, second, neverArrived]);
     expect(refused.status).toBe(409);
-    const body = await refused.json();
-    expect(body.error.fields.stepIds).toEqual([neverArrived]);
-    expect(body.error.message).toMatch(/One step recorded on this phone has not reached/);
+    const error = await readError(refused);
+    expect(error.fields?.stepIds).toEqual([neverArrived]);
+    expect(error.message).toMatch(/One step recorded on this phone has not reached/);
     const row = await db
       .selectFrom('inspection')
       .select(['status', 'contentHash'])
@@ -558,6 +568,6 @@ describe('steps racing the signature', () => {
       { id: inspectionId },
     );
     expect(integrity.status).toBe(200);
-    expect((await integrity.json()).hash).toMatchObject({ state: 'match' });
+    expect((await readJson<{ hash: { state: string } }>(integrity)).hash).toMatchObject({ state: 'match' });
   });
 });
