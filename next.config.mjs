@@ -2,9 +2,6 @@
 const nextConfig = {
   reactStrictMode: true,
   poweredByHeader: false,
-  // `npm test` type-checks the whole tree (tests included) with `tsc --noEmit` before it builds;
-  // the build does not repeat that work.
-  typescript: { ignoreBuildErrors: true },
   // Server-only packages that should stay outside the bundle.
   serverExternalPackages: ['pg', 'nodemailer', 'bcryptjs', 'sharp', 'pdfkit'],
   async headers() {

@@ -48,7 +48,7 @@ export interface AppUser {
   mustChangePassword: Generated<boolean>;
   name: string;
   passwordHash: string;
-  roles: Generated<string[]>;
+  roles: Generated<('driver' | 'mechanic' | 'supervisor' | 'trainer' | 'admin')[]>;
   updatedAt: Generated<Timestamp>;
 }
 
@@ -93,8 +93,8 @@ export interface Defect {
   repairNotes: string | null;
   repairParts: string | null;
   repairWork: string | null;
-  severity: string;
-  status: Generated<string>;
+  severity: "minor" | "major";
+  status: Generated<"open" | "repaired" | "no_repair_needed">;
   stepId: string;
   unitId: string;
   updatedAt: Generated<Timestamp>;
@@ -106,7 +106,7 @@ export interface FieldUtterance {
   fleetId: string;
   id: Generated<string>;
   normalized: string;
-  outcome: string;
+  outcome: "unmatched" | "low_score" | "corrected";
   resolvedAt: Timestamp | null;
   score: number | null;
   stepId: string | null;
@@ -122,7 +122,7 @@ export interface Fleet {
   minPosttripMinutes: Generated<number>;
   minPretripMinutes: Generated<number>;
   name: string;
-  ruleProfile: Generated<string>;
+  ruleProfile: Generated<"us-federal" | "ca-nsc13">;
   slug: string;
   supervisorEmail: string | null;
   timezone: Generated<string>;
@@ -141,7 +141,7 @@ export interface Inspection {
   finishedAt: Timestamp | null;
   fleetId: string;
   id: string;
-  kind: string;
+  kind: "pre_trip" | "post_trip";
   location: string | null;
   majorDefectCount: Generated<number>;
   odometer: number | null;
@@ -155,7 +155,7 @@ export interface Inspection {
   signatureName: string | null;
   signedAt: Timestamp | null;
   startedAt: Generated<Timestamp>;
-  status: Generated<string>;
+  status: Generated<"draft" | "submitted">;
   tractorId: string;
   trailerId: string | null;
   updatedAt: Generated<Timestamp>;
@@ -171,24 +171,24 @@ export interface InspectionStep {
   fleetId: string;
   heard: string | null;
   id: string;
-  inputMode: Generated<string>;
+  inputMode: Generated<"voice" | "tap" | "typed">;
   inspectionId: string;
   item: string | null;
-  kind: string;
+  kind: "ok" | "defect" | "measurement" | "not_checked" | "zone_ok" | "visit" | "undo" | "note" | "photo";
   limitText: string | null;
   measurementKind: string | null;
   position: string | null;
-  resolution: string | null;
+  resolution: "auto" | "confirmed" | "corrected" | null;
   score: number | null;
   seq: number;
   serverAt: Generated<Timestamp>;
-  severity: string | null;
+  severity: "minor" | "major" | null;
   source: string | null;
   termKey: string | null;
   undoesStepId: string | null;
   unit: string | null;
   value: Numeric | null;
-  verdict: string | null;
+  verdict: "pass" | "fail" | null;
   zone: string;
 }
 
@@ -201,7 +201,7 @@ export interface MailOutbox {
   kind: string;
   lastError: string | null;
   sentAt: Timestamp | null;
-  status: Generated<string>;
+  status: Generated<"pending" | "sent" | "failed">;
   subject: string;
   textBody: string;
   toAddresses: string[];
@@ -220,13 +220,13 @@ export interface Unit {
   createdAt: Generated<Timestamp>;
   fleetId: string;
   id: Generated<string>;
-  kind: string;
+  kind: "tractor" | "trailer";
   make: string | null;
   model: string | null;
   plate: string | null;
   plateJurisdiction: string | null;
   retiredAt: Timestamp | null;
-  status: Generated<string>;
+  status: Generated<"in_service" | "out_of_service">;
   statusChangedAt: Generated<Timestamp>;
   unitNumber: string;
   updatedAt: Generated<Timestamp>;
@@ -238,7 +238,7 @@ export interface VocabularyPhrase {
   createdAt: Generated<Timestamp>;
   fleetId: string;
   id: Generated<string>;
-  origin: Generated<string>;
+  origin: Generated<"default" | "trainer" | "field">;
   phrase: string;
   termId: string;
   versionId: string;
@@ -250,8 +250,8 @@ export interface VocabularyTerm {
   createdAt: Generated<Timestamp>;
   fleetId: string;
   id: Generated<string>;
-  severityCa: string | null;
-  severityUs: string | null;
+  severityCa: "minor" | "major" | null;
+  severityUs: "minor" | "major" | null;
   source: string | null;
   systemId: string;
   termKey: string;
@@ -279,7 +279,7 @@ export interface VocabularyVersion {
   label: string;
   publishedAt: Timestamp | null;
   publishedBy: string | null;
-  status: Generated<string>;
+  status: Generated<"draft" | "published">;
   updatedAt: Generated<Timestamp>;
 }
 

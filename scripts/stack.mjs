@@ -594,6 +594,62 @@ async function runE2e(env, reportFile, extraArgs = []) {
   return status;
 }
 
+/** ESLint over the tree (`--max-warnings 0`): one failure per file with an error or a warning. */
+function runLint(reportFile) {
+  fs.rmSync(reportFile, { force: true });
+  const status = run(process.execPath, [
+    'node_modules/eslint/bin/eslint.js',
+    '--max-warnings',
+    '0',
+    '--format',
+    'json',
+    '--output-file',
+    reportFile,
+    '.',
+  ]);
+  let files = 0;
+  try {
+    for (const r of JSON.parse(fs.readFileSync(reportFile, 'utf8'))) {
+      if (r.errorCount + r.warningCount === 0) continue;
+      files += 1;
+      for (const m of r.messages)
+        console.log(
+          `  ${path.relative(root, r.filePath)}:${m.line ?? 0}:${m.column ?? 0}  ${m.message}  ${m.ruleId ?? ''}`,
+        );
+    }
+  } catch {
+    // No report (a broken config, a crash): the stage fails and counts once.
+  }
+  return {
+    name: 'lint',
+    ok: status === 0,
+    failed: files,
+    summary: `${files} file${files === 1 ? '' : 's'} with errors`,
+  };
+}
+
+/** Prettier's check: one failure per file that is not formatted (or that it cannot parse). */
+function runFormatCheck() {
+  const r = spawnSync(process.execPath, ['node_modules/prettier/bin/prettier.cjs', '--list-different', '.'], {
+    cwd: root,
+    encoding: 'utf8',
+  });
+  if (r.error) throw r.error;
+  const files = new Set((r.stdout ?? '').split('\n').filter(Boolean));
+  for (const line of (r.stderr ?? '').split('\n')) {
+    const m = /^\[error\] ([^:]+): /.exec(line);
+    if (m) files.add(m[1]);
+    if (line) console.error(line);
+  }
+  for (const f of files) console.log(`  not formatted: ${f}  (npx prettier --write ${f})`);
+  return {
+    name: 'format',
+    ok: r.status === 0,
+    failed: files.size,
+    summary: `${files.size} badly formatted file${files.size === 1 ? '' : 's'}`,
+  };
+}
+
 async function cmdTest() {
   const t0 = Date.now();
   await holdTestLock();
@@ -612,6 +668,12 @@ async function cmdTest() {
   say('typecheck (tsc --noEmit)…');
   const tsc = run(process.execPath, ['node_modules/typescript/bin/tsc', '--noEmit']);
   stages.push({ name: 'typecheck', ok: tsc === 0 });
+
+  say('lint (eslint --max-warnings 0 .)…');
+  stages.push(runLint(path.join(reports, 'eslint.json')));
+
+  say('format check (prettier --list-different .)…');
+  stages.push(runFormatCheck());
 
   say('unit and integration tests (vitest)…');
   const vitestReport = path.join(reports, 'vitest.json');
@@ -647,13 +709,15 @@ async function cmdTest() {
   await stopDetached('s3-test');
 
   const passed = vCounts.passed + eCounts.passed;
-  let failed = vCounts.failed + eCounts.failed;
-  for (const s of stages) if (!s.ok && !(s.failed > 0)) failed += 1; // a failed typecheck or build counts once
+  // Tests count each failed test, lint each file with a problem, the format check each file it would
+  // change; a failed stage without a count of its own (typecheck, build, a crash) counts once.
+  let failed = 0;
+  for (const s of stages) failed += s.failed > 0 ? s.failed : s.ok ? 0 : 1;
   console.log('');
-  for (const s of stages)
-    console.log(
-      `[rigcall] ${s.ok ? 'ok  ' : 'FAIL'} ${s.name}${s.passed !== undefined ? ` (${s.passed} passed, ${s.failed} failed)` : ''}`,
-    );
+  for (const s of stages) {
+    const counts = s.summary ?? (s.passed !== undefined ? `${s.passed} passed, ${s.failed} failed` : null);
+    console.log(`[rigcall] ${s.ok ? 'ok  ' : 'FAIL'} ${s.name}${counts ? ` (${counts})` : ''}`);
+  }
   console.log(`[rigcall] total time ${((Date.now() - t0) / 1000).toFixed(0)} s`);
   console.log(`${passed} passed, ${failed} failed`);
   process.exit(failed === 0 && stages.every((s) => s.ok) ? 0 : 1);

@@ -1,5 +1,6 @@
 import 'server-only';
-import { sql } from 'kysely';
+import { sql, type Selectable } from 'kysely';
+import type { Inspection, Unit } from '@/db/schema';
 import type { DB } from './index';
 
 /** Every unit with its status, last inspection and open defects, for the supervisor's board. */
@@ -7,11 +8,11 @@ export async function listUnitBoardRows(db: DB, { fleetId }: { fleetId: string }
   const rows = await sql<{
     id: string;
     unitNumber: string;
-    kind: string;
-    status: string;
+    kind: Unit['kind'];
+    status: Selectable<Unit>['status'];
     statusChangedAt: Date;
     lastId: string | null;
-    lastKind: string | null;
+    lastKind: Inspection['kind'] | null;
     lastStartedAt: Date | null;
     lastDriver: string | null;
     openMajor: number;

@@ -60,10 +60,6 @@ export async function listDefectRows(
     .execute();
   return rows.map((r) => ({
     ...r,
-    unitKind: r.unitKind === 'trailer' ? 'trailer' : 'tractor',
-    unitStatus: r.unitStatus === 'out_of_service' ? 'out_of_service' : 'in_service',
-    severity: r.severity === 'major' ? 'major' : 'minor',
-    status: r.status as DefectQueueRow['status'],
     reportedAt: r.createdAt.toISOString(),
     certifiedAt: r.certifiedAt ? r.certifiedAt.toISOString() : null,
     photoCount: Number(r.photoCount ?? 0),

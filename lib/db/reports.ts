@@ -212,7 +212,7 @@ export async function listReportFilterOptions(db: DB, { fleetId }: { fleetId: st
     units: units.map((u) => ({
       id: u.id,
       unitNumber: u.unitNumber,
-      kind: u.kind === 'trailer' ? ('trailer' as const) : ('tractor' as const),
+      kind: u.kind,
     })),
   };
 }

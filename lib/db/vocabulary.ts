@@ -55,7 +55,7 @@ const summaryColumns = [
 type SummaryRow = {
   id: string;
   label: string;
-  status: string;
+  status: VersionSummary['status'];
   basedOnId: string | null;
   publishedAt: Date | null;
   createdAt: Date;
@@ -66,7 +66,7 @@ type SummaryRow = {
 const toSummary = (r: SummaryRow, inspections = 0): VersionSummary => ({
   id: r.id,
   label: r.label,
-  status: r.status as VersionSummary['status'],
+  status: r.status,
   basedOnId: r.basedOnId,
   publishedAt: r.publishedAt?.toISOString() ?? null,
   publishedBy: r.publishedBy,

@@ -124,8 +124,6 @@ export async function listPendingAcknowledgements({
       units: [...new Map(defects.map((d) => [d.unitId, { id: d.unitId, unitNumber: d.unitNumber }])).values()],
       defects: defects.map((d) => ({
         ...d,
-        severity: d.severity === 'major' ? 'major' : 'minor',
-        status: d.status as 'open' | 'repaired' | 'no_repair_needed',
         certifiedAt: d.certifiedAt ? d.certifiedAt.toISOString() : null,
       })),
       due: listDefectsToAcknowledge({ id: report.id, unitIds: units, defects: records }, ids, report.ruleProfile),

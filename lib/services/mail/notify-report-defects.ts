@@ -44,7 +44,7 @@ export async function notifyReportDefects({
   const ordered = [...byUnit].sort(([a, listA], [b, listB]) => hasMajor(listB) - hasMajor(listA) || a.localeCompare(b));
   for (const [unitNumber, defects] of ordered) {
     const list = defects.map((d) => ({
-      severity: d.severity === 'major' ? ('major' as const) : ('minor' as const),
+      severity: d.severity,
       description: d.description,
       unitNumber,
     }));

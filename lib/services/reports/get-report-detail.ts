@@ -99,8 +99,8 @@ export async function getReportDetail({
   const h = record.header;
   return {
     id: detail.id,
-    kind: detail.kind as 'pre_trip' | 'post_trip',
-    status: detail.status as 'draft' | 'submitted',
+    kind: detail.kind,
+    status: detail.status,
     driverName: detail.driverName,
     tractor: {
       id: h.tractorId,

@@ -39,8 +39,8 @@ export async function getSupervisorBoard({
     units: units.map((u) => ({
       id: u.id,
       unitNumber: u.unitNumber,
-      kind: u.kind === 'trailer' ? ('trailer' as const) : ('tractor' as const),
-      status: u.status === 'out_of_service' ? ('out_of_service' as const) : ('in_service' as const),
+      kind: u.kind,
+      status: u.status,
       statusChangedAt: u.statusChangedAt.toISOString(),
       last: u.lastId
         ? {

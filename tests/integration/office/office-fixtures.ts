@@ -2,6 +2,7 @@
 // with defects built the way the driver's finish builds them (the content hash over the rows).
 import { createHash, randomUUID } from 'node:crypto';
 import { makeFleet, makeUnit, makeUser } from '../../../db/factories';
+import type { InspectionStep } from '../../../db/schema';
 import { seedHistory } from '../../../db/seeds/02-history';
 import { serializeReport, toCanonicalSteps } from '../../../lib/reports/canonical-report';
 import { sessionCookieFor } from '../../setup/session';
@@ -96,23 +97,23 @@ export async function makeSignedReport(
     seq: number;
     zone: string;
     item: string | null;
-    kind: string;
+    kind: InspectionStep['kind'];
     heard: string | null;
     termKey: string | null;
     component: string | null;
     condition: string | null;
     position: string | null;
     score: number | null;
-    resolution: string | null;
+    resolution: InspectionStep['resolution'];
     undoesStepId: string | null;
     measurementKind: string | null;
     value: number | null;
     unit: string | null;
-    verdict: string | null;
-    severity: string | null;
+    verdict: InspectionStep['verdict'];
+    severity: InspectionStep['severity'];
     deviceAt: Date;
   }[] = [];
-  const push = (s: Partial<(typeof steps)[number]> & { zone: string; kind: string }) => {
+  const push = (s: Partial<(typeof steps)[number]> & { zone: string; kind: InspectionStep['kind'] }) => {
     const seq = steps.length;
     steps.push({
       id: randomUUID(),
