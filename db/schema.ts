@@ -47,8 +47,11 @@ export interface AppUser {
   lastSignInAt: Timestamp | null;
   mustChangePassword: Generated<boolean>;
   name: string;
+  passwordChangedAt: Timestamp | null;
   passwordHash: string;
   roles: Generated<('driver' | 'mechanic' | 'supervisor' | 'trainer' | 'admin')[]>;
+  sessionVersion: Generated<number>;
+  temporaryPasswordExpiresAt: Timestamp | null;
   updatedAt: Generated<Timestamp>;
 }
 
@@ -122,11 +125,13 @@ export interface Fleet {
   minPosttripMinutes: Generated<number>;
   minPretripMinutes: Generated<number>;
   name: string;
+  requiredReadings: Generated<Json>;
   ruleProfile: Generated<"us-federal" | "ca-nsc13">;
   slug: string;
   supervisorEmail: string | null;
   timezone: Generated<string>;
   tirePressureTargets: Generated<Json>;
+  tirePressureTolerancePsi: Generated<number>;
   updatedAt: Generated<Timestamp>;
 }
 
@@ -138,6 +143,7 @@ export interface Inspection {
   defectCount: Generated<number>;
   driverId: string;
   durationS: number | null;
+  durationSource: "server" | "device" | null;
   finishedAt: Timestamp | null;
   fleetId: string;
   id: string;
@@ -146,6 +152,7 @@ export interface Inspection {
   majorDefectCount: Generated<number>;
   odometer: number | null;
   openDefectCount: Generated<number>;
+  reportFormat: Generated<1 | 2>;
   reviewedAt: Timestamp | null;
   reviewedBy: string | null;
   reviewNote: string | null;
@@ -153,6 +160,7 @@ export interface Inspection {
   sealNumber: string | null;
   signatureKey: string | null;
   signatureName: string | null;
+  signatureSha256: string | null;
   signedAt: Timestamp | null;
   startedAt: Generated<Timestamp>;
   status: Generated<"draft" | "submitted">;
@@ -177,7 +185,10 @@ export interface InspectionStep {
   kind: "ok" | "defect" | "measurement" | "not_checked" | "zone_ok" | "visit" | "undo" | "note" | "photo";
   limitText: string | null;
   measurementKind: string | null;
+  notCheckedReason: "not_accessible" | "not_equipped" | "no_gauge" | "other" | null;
+  note: string | null;
   position: string | null;
+  queuedOffline: Generated<boolean>;
   resolution: "auto" | "confirmed" | "corrected" | null;
   score: number | null;
   seq: number;
@@ -206,6 +217,16 @@ export interface MailOutbox {
   textBody: string;
   toAddresses: string[];
   updatedAt: Generated<Timestamp>;
+}
+
+export interface PasswordReset {
+  createdAt: Generated<Timestamp>;
+  expiresAt: Timestamp;
+  fleetId: string;
+  id: Generated<string>;
+  tokenHash: string;
+  usedAt: Timestamp | null;
+  userId: string;
 }
 
 export interface SignInThrottle {
@@ -294,6 +315,7 @@ export interface DB {
   inspection: Inspection;
   inspectionStep: InspectionStep;
   mailOutbox: MailOutbox;
+  passwordReset: PasswordReset;
   signInThrottle: SignInThrottle;
   unit: Unit;
   vocabularyPhrase: VocabularyPhrase;

@@ -9,10 +9,10 @@ import type { Acknowledgement, Defect, FieldUtterance, Inspection, InspectionSte
 import zonesGrammar from '../../grammars/zones.json' with { type: 'json' };
 import vocabulary from '../../grammars/vocabulary.json' with { type: 'json' };
 import { evaluateMeasurement, type EvaluationResult } from '../../lib/rules';
-import { serializeReport, toCanonicalSteps } from '../../lib/reports/canonical-report';
+import { certificationStatement, hashReport, listWalkZones, REPORT_FORMAT } from '../../lib/walk';
+import type { Zones } from '../../lib/schemas/grammar';
 
-export const certificationStatement =
-  'I performed this inspection and the report lists every defect I found or that was reported to me.';
+export { certificationStatement };
 const ackStatement = 'I reviewed the last inspection report of this unit and the repair certification of its defects.';
 const repairStatement =
   'I certify that the defect listed was repaired, or that its repair is unnecessary for safe operation.';
@@ -170,10 +170,6 @@ const unmatchedSaid = [
   'mirror bracket wobbles kinda',
   'is that a crack or dirt',
 ];
-
-type ZoneItem = { id: string; label: string; component: string; measure?: string; configurations: string[] };
-type Zone = { id: string; name: string; configurations: string[]; items: ZoneItem[] };
-const zones = (zonesGrammar as unknown as { zones: Zone[] }).zones;
 
 type VocabComponent = {
   id: string;
@@ -339,7 +335,8 @@ export async function seedHistory(db: DB, opts: { fleetSlug: string; days?: numb
         const minutes = kind === 'pre_trip' ? (short ? r.int(6, 12) : r.int(16, 31)) : r.int(5, 12);
         const finishedAt = new Date(startedAt.getTime() + minutes * 60_000);
         const config = trailer ? 'tractor_trailer' : 'bobtail';
-        const walk = zones.filter((z) => z.configurations.includes(config));
+        // The walk's zones and items from the one function the app uses (no air-brake tests after a trip).
+        const walk = listWalkZones(zonesGrammar as unknown as Zones, { kind, configuration: config });
         const stepMs = (minutes * 60_000) / (walk.length * 4 + 4);
         let seq = 0;
         let t = startedAt.getTime();
@@ -389,12 +386,9 @@ export async function seedHistory(db: DB, opts: { fleetSlug: string; days?: numb
           kind === 'pre_trip' && r.chance(0.2)
             ? r.pick(scenarios.filter((s) => s.unit === 'tractor' || trailer))
             : null;
-        const skipZone = short && r.chance(0.6) ? r.pick(walk).id : null;
-
+        // A signed report answers every item: a short walk is short on time, never missing a zone.
         for (const zone of walk) {
-          if (zone.id === skipZone) continue;
           push({ zone: zone.id, kind: 'visit', inputMode: 'tap' });
-          if (kind === 'post_trip' && zone.id === 'air_brake_tests') continue;
           for (const item of zone.items.filter(
             (i) => i.configurations.includes(config) && i.measure && kind === 'pre_trip',
           )) {
@@ -537,38 +531,42 @@ export async function seedHistory(db: DB, opts: { fleetSlug: string; days?: numb
           signatureName: driver.name,
           signedAt,
         };
-        const canonical = serializeReport({
-          ...header,
-          steps: toCanonicalSteps(
-            mine.map((s) => ({
-              id: s.id,
-              seq: s.seq,
-              zone: s.zone,
-              item: s.item ?? null,
-              kind: s.kind,
-              heard: s.heard ?? null,
-              termKey: s.termKey ?? null,
-              component: s.component ?? null,
-              condition: s.condition ?? null,
-              position: s.position ?? null,
-              score: s.score ?? null,
-              resolution: s.resolution ?? null,
-              undoesStepId: s.undoesStepId ?? null,
-              measurementKind: s.measurementKind ?? null,
-              value: (s.value as number | null | undefined) ?? null,
-              unit: s.unit ?? null,
-              verdict: s.verdict ?? null,
-              severity: s.severity ?? null,
-              deviceAt: s.deviceAt as Date,
-            })),
-          ),
-        });
+        const contentHash = hashReport(
+          header,
+          mine.map((s) => ({
+            id: s.id,
+            seq: s.seq,
+            zone: s.zone,
+            item: s.item ?? null,
+            kind: s.kind,
+            heard: s.heard ?? null,
+            termKey: s.termKey ?? null,
+            component: s.component ?? null,
+            condition: s.condition ?? null,
+            position: s.position ?? null,
+            score: s.score ?? null,
+            resolution: s.resolution ?? null,
+            undoesStepId: s.undoesStepId ?? null,
+            measurementKind: s.measurementKind ?? null,
+            value: (s.value as number | null | undefined) ?? null,
+            unit: s.unit ?? null,
+            verdict: s.verdict ?? null,
+            severity: s.severity ?? null,
+            deviceAt: s.deviceAt as Date,
+            serverAt: s.serverAt as Date,
+            notCheckedReason: s.notCheckedReason ?? null,
+            note: s.note ?? null,
+          })),
+          { photos: [], signatureSha256: null },
+        );
         const reviewed = myDefects.length > 0 && d > 2;
         inspections.push({
           ...header,
           status: 'submitted',
           durationS: minutes * 60,
-          contentHash: createHash('sha256').update(canonical).digest('hex'),
+          contentHash,
+          reportFormat: REPORT_FORMAT,
+          durationSource: 'server',
           reviewedAt: reviewed ? new Date(finishedAt.getTime() + 5 * 3600_000) : null,
           reviewedBy: reviewed ? supervisor.id : null,
           reviewNote: reviewed ? 'Defect reported; repair and next driver acknowledgement followed.' : null,

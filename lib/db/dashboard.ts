@@ -47,8 +47,8 @@ export async function listAttentionRows(
   a: {
     fleetId: string;
     days: number;
-    zonesWithTrailer: number;
-    zonesBobtail: number;
+    /** How many zones each kind of walk has, per configuration (from lib/walk listWalkZones). */
+    zonesExpected: Record<'pre_trip' | 'post_trip', { withTrailer: number; bobtail: number }>;
     lowConfidence: number;
     timezone: string;
     minPretripMinutes: number;
@@ -79,7 +79,11 @@ export async function listAttentionRows(
         EXISTS (SELECT 1 FROM defect df WHERE df.inspection_id = r.id AND df.severity = 'major') AS major,
         COALESCE(r.duration_s < (CASE WHEN r.kind = 'pre_trip' THEN ${a.minPretripMinutes}::int ELSE ${a.minPosttripMinutes}::int END) * 60, false) AS short,
         (SELECT count(DISTINCT s.zone) FROM inspection_step s WHERE s.inspection_id = r.id)::int AS zones_walked,
-        (CASE WHEN r.trailer_id IS NULL THEN ${a.zonesBobtail}::int ELSE ${a.zonesWithTrailer}::int END) AS zones_expected,
+        (CASE
+          WHEN r.kind = 'post_trip' AND r.trailer_id IS NULL THEN ${a.zonesExpected.post_trip.bobtail}::int
+          WHEN r.kind = 'post_trip' THEN ${a.zonesExpected.post_trip.withTrailer}::int
+          WHEN r.trailer_id IS NULL THEN ${a.zonesExpected.pre_trip.bobtail}::int
+          ELSE ${a.zonesExpected.pre_trip.withTrailer}::int END) AS zones_expected,
         (SELECT count(*) FROM inspection_step s WHERE s.inspection_id = r.id AND s.kind = 'defect' AND s.score < ${a.lowConfidence} AND s.resolution = 'auto')::int AS low_confidence,
         (r.kind = 'pre_trip'
           AND (r.started_at AT TIME ZONE ${a.timezone})::date < (now() AT TIME ZONE ${a.timezone})::date

@@ -110,6 +110,9 @@ export async function findInspectionForUpdate(db: DB, { fleetId, id }: { fleetId
       'signedAt',
       'certificationText',
       'contentHash',
+      'createdAt',
+      'signatureKey',
+      'signatureSha256',
     ])
     .where('fleetId', '=', fleetId)
     .where('id', '=', id)
@@ -142,6 +145,9 @@ export const stepColumns = [
   'source',
   'deviceAt',
   'serverAt',
+  'notCheckedReason',
+  'note',
+  'queuedOffline',
 ] as const;
 
 export async function findStep(db: DB, { inspectionId, id }: { inspectionId: string; id: string }) {
@@ -161,6 +167,20 @@ export async function listInspectionSteps(db: DB, { inspectionId }: { inspection
     .orderBy('seq')
     .orderBy('id')
     .execute();
+}
+
+/** The photos of an inspection as its hash covers them: id, the finding they belong to, their SHA-256. */
+export async function listInspectionPhotos(db: DB, { inspectionId }: { inspectionId: string }) {
+  return (
+    db
+      .selectFrom('attachment')
+      .select(['id', 'stepId', 'sha256', 'objectKey'])
+      .where('inspectionId', '=', inspectionId)
+      // A mechanic's repair photo belongs to the defect, added after signing on purpose.
+      .where('defectId', 'is', null)
+      .orderBy('id')
+      .execute()
+  );
 }
 
 /** The newest published vocabulary of the fleet: new inspections record that they use it. */

@@ -244,6 +244,10 @@ export async function findReportRecord(db: DB, { fleetId, id }: { fleetId: strin
       'i.signatureName',
       'i.signedAt',
       'i.contentHash',
+      'i.reportFormat',
+      'i.signatureSha256',
+      'i.durationS',
+      'i.durationSource',
       'rv.name as reviewerName',
       'vv.label as vocabularyLabel',
       't.plate as tractorPlate',
@@ -285,6 +289,10 @@ export async function findReportRecord(db: DB, { fleetId, id }: { fleetId: strin
         'verdict',
         'severity',
         'deviceAt',
+        'serverAt',
+        'notCheckedReason',
+        'note',
+        'queuedOffline',
       ])
       .where('fleetId', '=', fleetId)
       .where('inspectionId', '=', id)
@@ -318,7 +326,7 @@ export async function findReportRecord(db: DB, { fleetId, id }: { fleetId: strin
       .execute(),
     db
       .selectFrom('attachment')
-      .select(['id', 'stepId', 'defectId', 'objectKey', 'contentType', 'createdAt'])
+      .select(['id', 'stepId', 'defectId', 'objectKey', 'contentType', 'createdAt', 'sha256'])
       .where('fleetId', '=', fleetId)
       .where('inspectionId', '=', id)
       .orderBy('createdAt')

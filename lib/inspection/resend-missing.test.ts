@@ -18,6 +18,8 @@ const step = (id: string, seq: number): WalkStep => ({
   resolution: null,
   undoesStepId: null,
   reading: null,
+  notCheckedReason: null,
+  note: null,
   deviceAt: '2026-12-02T05:00:00.000Z',
 });
 const finishUrl = '/api/inspections/i1/finish';

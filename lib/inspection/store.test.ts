@@ -18,38 +18,38 @@ const make = () =>
 describe('walk store', () => {
   it('numbers steps in the order they happen', () => {
     const s = make();
-    const a = s
-      .getState()
-      .record({
-        zone: 'front',
-        item: null,
-        kind: 'visit',
-        heard: null,
-        alternatives: [],
-        inputMode: 'tap',
-        termKey: null,
-        position: null,
-        score: null,
-        resolution: null,
-        undoesStepId: null,
-        reading: null,
-      });
-    const b = s
-      .getState()
-      .record({
-        zone: 'front',
-        item: null,
-        kind: 'zone_ok',
-        heard: 'all good',
-        alternatives: [],
-        inputMode: 'voice',
-        termKey: null,
-        position: null,
-        score: 1,
-        resolution: 'auto',
-        undoesStepId: null,
-        reading: null,
-      });
+    const a = s.getState().record({
+      zone: 'front',
+      item: null,
+      kind: 'visit',
+      heard: null,
+      alternatives: [],
+      inputMode: 'tap',
+      termKey: null,
+      position: null,
+      score: null,
+      resolution: null,
+      undoesStepId: null,
+      reading: null,
+      notCheckedReason: null,
+      note: null,
+    });
+    const b = s.getState().record({
+      zone: 'front',
+      item: null,
+      kind: 'zone_ok',
+      heard: 'all good',
+      alternatives: [],
+      inputMode: 'voice',
+      termKey: null,
+      position: null,
+      score: 1,
+      resolution: 'auto',
+      undoesStepId: null,
+      reading: null,
+      notCheckedReason: null,
+      note: null,
+    });
     expect([a.seq, b.seq]).toEqual([0, 1]);
     expect(s.getState().steps.map((x) => x.id)).toEqual([a.id, b.id]);
     expect(a.deviceAt).toBe('2026-12-01T05:00:00.000Z');
@@ -57,22 +57,22 @@ describe('walk store', () => {
 
   it('merges steps from the server without doubling them', () => {
     const s = make();
-    const a = s
-      .getState()
-      .record({
-        zone: 'front',
-        item: null,
-        kind: 'visit',
-        heard: null,
-        alternatives: [],
-        inputMode: 'tap',
-        termKey: null,
-        position: null,
-        score: null,
-        resolution: null,
-        undoesStepId: null,
-        reading: null,
-      });
+    const a = s.getState().record({
+      zone: 'front',
+      item: null,
+      kind: 'visit',
+      heard: null,
+      alternatives: [],
+      inputMode: 'tap',
+      termKey: null,
+      position: null,
+      score: null,
+      resolution: null,
+      undoesStepId: null,
+      reading: null,
+      notCheckedReason: null,
+      note: null,
+    });
     s.getState().adoptServerSteps([a, { ...a, id: 'server-only', seq: 5 }]);
     expect(s.getState().steps.map((x) => x.id)).toEqual([a.id, 'server-only']);
     expect(s.getState().nextSeq).toBe(6);

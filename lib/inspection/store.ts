@@ -3,52 +3,16 @@
 import { createStore as createIdbStore, del, get, set } from 'idb-keyval';
 import { createJSONStorage, persist, type StateStorage } from 'zustand/middleware';
 import { createStore } from 'zustand/vanilla';
-import type { MatchAlternative, WalkZone } from '@/lib/matcher';
-import type { StepKind } from '@/lib/schemas/inspections';
-import type { ReadingInput } from './build-check';
+import type { PendingMatch, StepDraft, WalkZone } from '@/lib/walk';
 
-export type WalkStep = {
+export type { PendingMatch } from '@/lib/walk';
+
+export type WalkStep = StepDraft & {
   id: string;
   seq: number;
-  zone: string;
-  item: string | null;
-  kind: StepKind;
-  heard: string | null;
-  alternatives: string[];
-  inputMode: 'voice' | 'tap' | 'typed';
-  termKey: string | null;
-  position: string | null;
-  score: number | null;
-  resolution: 'auto' | 'confirmed' | 'corrected' | null;
-  undoesStepId: string | null;
-  reading: ReadingInput | null;
   deviceAt: string;
-  // Shown on the device only; the server works these out again itself.
-  label?: string;
-  verdict?: 'pass' | 'fail' | null;
-  severity?: 'minor' | 'major' | null;
-  limit?: string | null;
-  source?: string | null;
-  message?: string | null;
-};
-
-/** A match that waits for the driver's "yes" or a pick among the alternatives. */
-export type PendingMatch = {
-  heard: string;
-  alternatives: string[];
-  inputMode: 'voice' | 'typed';
-  top: {
-    termKey: string;
-    component: string;
-    condition: string;
-    position: string | null;
-    severity: 'minor' | 'major' | null;
-    score: number;
-    itemId: string | null;
-  };
-  others: MatchAlternative[];
-  /** After a "no": the alternatives are shown as buttons. */
-  declined: boolean;
+  /** Set when the server's verdict on this reading differs from the one this phone worked out. */
+  phoneVerdict?: { verdict: 'pass' | 'fail' | null; severity: 'minor' | 'major' | null } | null;
 };
 
 export type WalkPhoto = { id: string; stepId: string | null; zone: string; takenAt: string };
@@ -80,6 +44,16 @@ export type WalkActions = {
   addPhoto: (p: WalkPhoto) => void;
   setPhase: (phase: WalkPhase, signedName?: string) => void;
   setReadback: (text: string | null) => void;
+  /** The server's answer to a step: its verdict is the one of record. */
+  adoptServerVerdict: (
+    id: string,
+    server: {
+      verdict: 'pass' | 'fail' | null;
+      severity: 'minor' | 'major' | null;
+      limit?: string | null;
+      source?: string | null;
+    },
+  ) => void;
 };
 
 export type WalkStore = ReturnType<typeof createWalkStore>;
@@ -139,6 +113,21 @@ export function createWalkStore(init: {
     addPhoto: (p) => setState((st) => ({ photos: [...st.photos, p] })),
     setPhase: (phase, signedName) => setState((st) => ({ phase, signedName: signedName ?? st.signedName })),
     setReadback: (text) => setState(() => ({ readback: text })),
+    adoptServerVerdict: (id, server) =>
+      setState((st) => ({
+        steps: st.steps.map((x) =>
+          x.id !== id || x.kind !== 'measurement' || (x.verdict === server.verdict && x.severity === server.severity)
+            ? x
+            : {
+                ...x,
+                phoneVerdict: x.phoneVerdict ?? { verdict: x.verdict ?? null, severity: x.severity ?? null },
+                verdict: server.verdict,
+                severity: server.severity,
+                limit: server.limit ?? x.limit ?? null,
+                source: server.source ?? x.source ?? null,
+              },
+        ),
+      })),
   });
   const memory = new Map<string, string>();
   const memoryStorage: StateStorage = {
@@ -180,6 +169,8 @@ export function toStepBody(s: WalkStep) {
     resolution: s.resolution,
     undoesStepId: s.undoesStepId,
     reading: s.reading,
+    notCheckedReason: s.notCheckedReason,
+    note: s.note,
     deviceAt: s.deviceAt,
   };
 }

@@ -4,7 +4,15 @@ export { createNormalizer, MAX_INPUT_CHARS } from './normalize-text';
 export { createQuantityReader } from './read-quantities';
 export { getPhoneticKey } from './phonetic-key';
 export type { Quantity } from './read-quantities';
-export type { MatchAlternative, MatchContext, MatchKind, MatchResult, Matcher, RuleProfile } from './types';
+export type {
+  MatchAlternative,
+  MatchContext,
+  MatchKind,
+  MatchResult,
+  Matcher,
+  NbestAlternative,
+  RuleProfile,
+} from './types';
 
 import { getDefaultMatcher } from './default-matcher';
 import type { MatchContext, MatchResult } from './types';
@@ -18,5 +26,3 @@ export function matchUtterance(text: string, ctx?: MatchContext): MatchResult {
 export function matchAlternatives(alternatives: readonly string[], ctx?: MatchContext): MatchResult {
   return getDefaultMatcher().matchAlternatives(alternatives, ctx);
 }
-export { listWalkZones } from './list-walk-zones';
-export type { WalkZone } from './list-walk-zones';

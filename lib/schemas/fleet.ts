@@ -1,5 +1,6 @@
 // A fleet's own settings, as the admin screen and /api/admin/fleet speak them. Universal.
 import { z } from 'zod';
+import { measureKindSchema } from './grammar';
 import { optionalEmailSchema } from './users';
 
 export const ruleProfiles = ['us-federal', 'ca-nsc13'] as const;
@@ -39,11 +40,20 @@ export const tirePressureTargetsSchema = z.object({
 });
 export type TirePressureTargets = z.infer<typeof tirePressureTargetsSchema>;
 
+/** The readings a pre-trip must carry (a number, or "not checked" with a reason). */
+export const requiredReadingsSchema = z.array(measureKindSchema, { error: 'Pick readings from the list.' }).max(20);
+export const tirePressureToleranceSchema = z
+  .int('Enter the tolerance as whole psi.')
+  .min(0, 'The tolerance cannot be negative.')
+  .max(10, 'A tolerance above 10 psi would hide a tire that really is low.');
+
 export const updateFleetSettingsBodySchema = z
   .object({
     minPretripMinutes: minutes('pre-trip').optional(),
     minPosttripMinutes: minutes('post-trip').optional(),
     tirePressureTargets: tirePressureTargetsSchema.optional(),
+    requiredReadings: requiredReadingsSchema.optional(),
+    tirePressureTolerancePsi: tirePressureToleranceSchema.optional(),
     ruleProfile: z.enum(ruleProfiles, { error: 'Pick one of the rule profiles in the list.' }).optional(),
     maintenanceEmail: optionalEmailSchema,
     supervisorEmail: optionalEmailSchema,
@@ -59,6 +69,8 @@ export const fleetSettingsSchema = z.object({
   minPretripMinutes: z.number(),
   minPosttripMinutes: z.number(),
   tirePressureTargets: tirePressureTargetsSchema,
+  requiredReadings: requiredReadingsSchema,
+  tirePressureTolerancePsi: z.number(),
   ruleProfile: z.enum(ruleProfiles),
   maintenanceEmail: z.string().nullable(),
   supervisorEmail: z.string().nullable(),

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { zoneIdSchema } from './grammar';
+import { deviceTimeSchema as deviceTime } from '@/lib/walk/step';
 import { idSchema } from './common';
 
 const text = (max: number, what: string) => z.string().trim().max(max, `${what} is at most ${max} characters.`);
@@ -7,7 +7,6 @@ const optionalText = (max: number, what: string) =>
   text(max, what)
     .nullish()
     .transform((v) => (v ? v : null));
-const deviceTime = z.iso.datetime({ offset: true, message: 'must be a date and time (ISO 8601)' });
 
 export const inspectionKinds = ['pre_trip', 'post_trip'] as const;
 export type InspectionKind = (typeof inspectionKinds)[number];
@@ -29,64 +28,8 @@ export const startInspectionBodySchema = z.object({
 });
 export type StartInspectionBody = z.input<typeof startInspectionBodySchema>;
 
-export const stepKinds = ['ok', 'defect', 'measurement', 'zone_ok', 'visit', 'undo', 'note'] as const;
-export type StepKind = (typeof stepKinds)[number];
-
-/** One thing that happened on the walk, sent as it happens (and again, harmlessly, after a reconnect). */
-export const recordStepBodySchema = z
-  .object({
-    id: idSchema,
-    seq: z.int().min(0).max(100_000),
-    zone: zoneIdSchema,
-    item: text(80, 'The item').nullable().default(null),
-    kind: z.enum(stepKinds),
-    heard: text(500, 'What was heard').nullable().default(null),
-    alternatives: z.array(text(500, 'An alternative')).max(10).default([]),
-    inputMode: z.enum(['voice', 'tap', 'typed']),
-    termKey: z
-      .string()
-      .regex(/^[a-z0-9_]+:[a-z0-9_]+$/, 'must be component:condition')
-      .nullable()
-      .default(null),
-    position: text(40, 'The position').nullable().default(null),
-    score: z.number().min(0).max(1).nullable().default(null),
-    resolution: z.enum(['auto', 'confirmed', 'corrected']).nullable().default(null),
-    undoesStepId: idSchema.nullable().default(null),
-    /** The number read off the gauge, and any extra fields the check needs. */
-    reading: z
-      .object({
-        value: z
-          .number({ error: 'The reading must be a number.' })
-          .finite()
-          .min(0, 'A reading cannot be negative.')
-          .max(100_000),
-        wheelDiameter: z.number().positive().max(30).optional(),
-        power: z.boolean().optional(),
-        chamber: z.string().max(12).optional(),
-      })
-      .nullable()
-      .default(null),
-    deviceAt: deviceTime,
-  })
-  .superRefine((s, ctx) => {
-    if (s.kind === 'defect' && !s.termKey)
-      ctx.addIssue({
-        code: 'custom',
-        path: ['termKey'],
-        message: 'A defect needs the component and condition it is about.',
-      });
-    if (s.kind === 'measurement' && (!s.reading || !s.item))
-      ctx.addIssue({
-        code: 'custom',
-        path: ['reading'],
-        message: 'A measurement needs the checklist item and the reading.',
-      });
-    if (s.kind === 'undo' && !s.undoesStepId)
-      ctx.addIssue({ code: 'custom', path: ['undoesStepId'], message: 'An undo names the step it takes back.' });
-    if (s.kind === 'ok' && !s.item)
-      ctx.addIssue({ code: 'custom', path: ['item'], message: 'An OK names the checklist item.' });
-  });
-export type RecordStepBody = z.input<typeof recordStepBodySchema>;
+// The step contract lives with the walk's core, shared by the phone and the server.
+export { recordStepBodySchema, stepKinds, type RecordStepBody, type StepKind } from '@/lib/walk/step';
 
 export const finishInspectionBodySchema = z.object({
   signatureName: text(120, 'The name').min(2, 'Type your full name to sign.'),

@@ -1,20 +1,29 @@
 import 'server-only';
-import { createHash } from 'node:crypto';
 import { getDb } from '@/lib/db';
-import { findFleet } from '@/lib/db/fleets';
-import { findInspectionForUpdate, listInspectionSteps } from '@/lib/db/inspections';
+import { findFleetSettings } from '@/lib/db/fleets';
+import { findInspectionForUpdate, listInspectionPhotos, listInspectionSteps } from '@/lib/db/inspections';
 import { findFleetUnit } from '@/lib/db/units';
 import { AppError } from '@/lib/errors';
-import { isTrailerItem } from '@/lib/inspection/build-check';
-import { listDefectSteps } from '@/lib/inspection/walk-progress';
-import { pickReportHeader, serializeReport, toCanonicalSteps } from '@/lib/reports/canonical-report';
 import type { FinishInspectionBody } from '@/lib/schemas/inspections';
+import {
+  certificationStatement,
+  checkDeviceTime,
+  configurationOf,
+  DEFAULT_REQUIRED_READINGS,
+  hashReport,
+  isTrailerItem,
+  listDefectSteps,
+  listOpenItems,
+  listWalkZones,
+  QUEUED_OFFLINE_AFTER_MS,
+  REPORT_FORMAT,
+} from '@/lib/walk';
 import { renderOutOfServiceMail } from '@/lib/mail/templates';
 import { deliverOutbox } from '../mail/deliver-outbox';
 import { recordAudit } from '../platform/record-audit';
+import { loadGrammar } from '../vocabulary/resolve-vocabulary';
 
-export const certificationStatement =
-  'I performed this inspection and the report lists every defect I found or that was reported to me.';
+export { certificationStatement };
 
 const sameName = (a: string, b: string) =>
   a.trim().replace(/\s+/g, ' ').toLowerCase() === b.trim().replace(/\s+/g, ' ').toLowerCase();
@@ -66,17 +75,56 @@ export async function finishInspection({
           );
         }
       }
-      const finishedAt = new Date(body.finishedAt) < inspection.startedAt ? new Date() : new Date(body.finishedAt);
       const signedAt = new Date();
-      const header = pickReportHeader({
+      const badTime = checkDeviceTime(body.finishedAt, {
+        now: signedAt,
+        startedAt: inspection.startedAt,
+        what: 'finish',
+      });
+      if (badTime) throw new AppError('invalid_body', badTime, { finishedAt: [badTime] });
+
+      // Every item answered: OK, a defect, a reading, or "not checked" with a reason.
+      const [fleet, grammar] = await Promise.all([
+        findFleetSettings(trx, { fleetId }),
+        loadGrammar(trx, inspection.vocabularyVersionId),
+      ]);
+      const kind = inspection.kind === 'post_trip' ? 'post_trip' : 'pre_trip';
+      const zones = listWalkZones(grammar.zones, { kind, configuration: configurationOf(!!inspection.trailerId) });
+      const open = listOpenItems(zones, steps, {
+        kind,
+        requiredReadings: fleet?.requiredReadings ?? DEFAULT_REQUIRED_READINGS,
+      });
+      if (open.length) {
+        const shown = open.slice(0, 6).map((o) => `${o.zoneName}: ${o.label}`);
+        throw new AppError(
+          'conflict',
+          `${open.length === 1 ? 'One item is' : `${open.length} items are`} still open, so the report cannot be signed: ${shown.join('; ')}${open.length > shown.length ? `; and ${open.length - shown.length} more` : ''}. Mark each OK, a defect, a reading, or not checked with a reason.`,
+          { openItems: open.map((o) => o.item) },
+        );
+      }
+
+      // Times are the server's where it heard them; device times only when steps waited offline.
+      const queued =
+        steps.some((s) => s.queuedOffline) ||
+        inspection.createdAt.getTime() - inspection.startedAt.getTime() > QUEUED_OFFLINE_AFTER_MS;
+      const lastHeard = steps.reduce((t, s) => Math.max(t, s.serverAt.getTime()), inspection.createdAt.getTime());
+      const durationSource = queued ? ('device' as const) : ('server' as const);
+      const finishedAt = queued ? new Date(body.finishedAt) : new Date(lastHeard);
+      const walkStart = queued ? inspection.startedAt : inspection.createdAt;
+      const photos = await listInspectionPhotos(trx, { inspectionId });
+      const header = {
         ...inspection,
         finishedAt,
         certificationText: certificationStatement,
         signatureName: body.signatureName.trim(),
         signedAt,
-      });
-      const canonical = serializeReport({ ...header, steps: toCanonicalSteps(steps) });
-      const contentHash = createHash('sha256').update(canonical).digest('hex');
+      };
+      const contentHash = hashReport(
+        header,
+        steps,
+        { photos, signatureSha256: inspection.signatureSha256 },
+        REPORT_FORMAT,
+      );
 
       const defectSteps = listDefectSteps(steps);
       const defects = defectSteps.map((s) => {
@@ -118,7 +166,9 @@ export async function finishInspection({
         .set({
           status: 'submitted',
           finishedAt,
-          durationS: Math.max(0, Math.round((finishedAt.getTime() - inspection.startedAt.getTime()) / 1000)),
+          durationS: Math.max(0, Math.round((finishedAt.getTime() - walkStart.getTime()) / 1000)),
+          durationSource,
+          reportFormat: REPORT_FORMAT,
           certificationText: certificationStatement,
           signatureName: header.signatureName,
           signedAt,

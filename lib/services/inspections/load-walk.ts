@@ -5,7 +5,7 @@ import { listInspectionSteps } from '@/lib/db/inspections';
 import { findFleetUnit } from '@/lib/db/units';
 import { findVocabularyVersion, getDefaultGrammar } from '@/lib/db/vocabulary';
 import type { WalkStep } from '@/lib/inspection/store';
-import { listWalkZones } from '@/lib/matcher';
+import { configurationOf, DEFAULT_REQUIRED_READINGS, listWalkZones } from '@/lib/walk';
 import { z } from 'zod';
 import { loadCheckContext } from './record-step';
 
@@ -48,32 +48,35 @@ export async function loadWalkOrNull(
   ]);
   const grammar = version?.grammar ?? getDefaultGrammar();
   // The version's own zone checklists (a trainer may have changed them).
-  const zones = listWalkZones(grammar.zones, inspection.trailerId ? 'tractor_trailer' : 'bobtail').filter(
-    // Air-brake tests belong to the pre-trip; a post-trip walk ends in the cab.
-    (zone) => inspection.kind === 'pre_trip' || zone.id !== 'air_brake_tests',
-  );
-  const serverSteps: WalkStep[] = rows.map((r) => ({
-    id: r.id,
-    seq: r.seq,
-    zone: r.zone,
-    item: r.item,
-    kind: r.kind as WalkStep['kind'],
-    heard: r.heard,
-    alternatives: Array.isArray(r.alternatives) ? (r.alternatives as string[]) : [],
-    inputMode: r.inputMode,
-    termKey: r.termKey,
-    position: r.position,
-    score: r.score,
-    resolution: r.resolution,
-    undoesStepId: r.undoesStepId,
-    reading: r.value === null ? null : { value: Number(r.value) },
-    deviceAt: r.deviceAt.toISOString(),
-    label: [r.component, r.condition].filter(Boolean).join(', ') || undefined,
-    verdict: r.verdict,
-    severity: r.severity,
-    limit: r.limitText,
-    source: r.source,
-  }));
+  const kind = inspection.kind === 'post_trip' ? ('post_trip' as const) : ('pre_trip' as const);
+  const zones = listWalkZones(grammar.zones, { kind, configuration: configurationOf(!!inspection.trailerId) });
+  // "photo" steps are an old kind no phone sends any more.
+  const serverSteps: WalkStep[] = rows
+    .flatMap((r) => (r.kind === 'photo' ? [] : [{ ...r, kind: r.kind }]))
+    .map((r) => ({
+      id: r.id,
+      seq: r.seq,
+      zone: r.zone,
+      item: r.item,
+      kind: r.kind,
+      heard: r.heard,
+      alternatives: Array.isArray(r.alternatives) ? (r.alternatives as string[]) : [],
+      inputMode: r.inputMode,
+      termKey: r.termKey,
+      position: r.position,
+      score: r.score,
+      resolution: r.resolution,
+      undoesStepId: r.undoesStepId,
+      reading: r.value === null ? null : { value: Number(r.value) },
+      notCheckedReason: r.notCheckedReason,
+      note: r.note,
+      deviceAt: r.deviceAt.toISOString(),
+      label: [r.component, r.condition].filter(Boolean).join(', ') || undefined,
+      verdict: r.verdict,
+      severity: r.severity,
+      limit: r.limitText,
+      source: r.source,
+    }));
   return {
     inspection: {
       id: inspection.id,
@@ -88,6 +91,7 @@ export async function loadWalkOrNull(
     minimumMinutes:
       inspection.kind === 'pre_trip' ? (fleet?.minPretripMinutes ?? 15) : (fleet?.minPosttripMinutes ?? 5),
     zones,
+    requiredReadings: fleet?.requiredReadings ?? [...DEFAULT_REQUIRED_READINGS],
     context,
     serverSteps,
     grammar,

@@ -5,13 +5,19 @@ import { findFleetSettings } from '@/lib/db/fleets';
 import { findInspectionForUpdate, findStep, stepColumns } from '@/lib/db/inspections';
 import { findFleetUnit } from '@/lib/db/units';
 import { AppError } from '@/lib/errors';
-import { buildCheckInput, measureUnit, type CheckContext } from '@/lib/inspection/build-check';
-import { evaluateMeasurement } from '@/lib/rules';
 import type { Zones } from '@/lib/schemas/grammar';
-import type { recordStepBodySchema } from '@/lib/schemas/inspections';
-import type { z } from 'zod';
+import {
+  checkDeviceTime,
+  judgeReading,
+  measureUnit,
+  QUEUED_OFFLINE_AFTER_MS,
+  resolveTerm,
+  stepFingerprint,
+  type CheckContext,
+  type StepBody,
+} from '@/lib/walk';
 import { recordAudit } from '../platform/record-audit';
-import { loadGrammar, resolveTerm } from '../vocabulary/resolve-vocabulary';
+import { loadGrammar } from '../vocabulary/resolve-vocabulary';
 
 // Durability. An open walk's steps are written on getStepDb, whose commits do not wait for the
 // disk: a database crash can lose the last fraction of a second of them after the phone was told
@@ -19,9 +25,10 @@ import { loadGrammar, resolveTerm } from '../vocabulary/resolve-vocabulary';
 // all and is refused while the server lacks one (the phone then sends it again), and the
 // signing commit waits for the disk, which makes every earlier step durable with it.
 
-type Body = z.output<typeof recordStepBodySchema>;
+type Body = StepBody;
 type Inspection = {
   fleetId: string;
+  startedAt: Date;
   tractorId: string;
   trailerId: string | null;
   ruleProfile: string;
@@ -45,6 +52,7 @@ export async function loadCheckContext(
     hasTrailer: !!i.trailerId,
     trailerYear: trailer?.year ?? null,
     fleetTargets: fleet?.tirePressureTargets ?? { steer: 110, drive: 100, trailer: 100 },
+    tirePressureTolerancePsi: fleet?.tirePressureTolerancePsi,
   };
 }
 
@@ -55,6 +63,7 @@ const rememberInspection = (i: Inspection & { id: string }) => {
   if (startedWith.size >= 5000) startedWith.delete(startedWith.keys().next().value!);
   startedWith.set(`${i.fleetId}:${i.id}`, {
     fleetId: i.fleetId,
+    startedAt: i.startedAt,
     tractorId: i.tractorId,
     trailerId: i.trailerId,
     ruleProfile: i.ruleProfile,
@@ -101,6 +110,14 @@ async function judgeStep(db: DB, inspection: Inspection, body: Body) {
       judged.source = term.source;
     }
   }
+  if (body.item && (body.kind === 'ok' || body.kind === 'not_checked') && !itemsOf(grammar.zones).has(body.item))
+    throw new AppError('invalid_body', `“${body.item}” is not an item of this inspection’s checklist.`, {
+      item: ['not a checklist item'],
+    });
+  if (body.kind === 'ok' && body.item && itemsOf(grammar.zones).get(body.item)?.measure)
+    throw new AppError('invalid_body', 'An item that needs a reading is answered by the number or by “not checked”.', {
+      item: ['needs a reading'],
+    });
   if (body.kind === 'measurement' && body.reading && body.item) {
     const item = itemsOf(grammar.zones).get(body.item);
     if (!item?.measure)
@@ -111,13 +128,13 @@ async function judgeStep(db: DB, inspection: Inspection, body: Body) {
     judged.component = grammar.vocabulary.components.find((c) => c.id === item.component)?.name ?? item.label;
     judged.value = body.reading.value;
     judged.unit = measureUnit[item.measure];
-    const input = buildCheckInput(item, body.reading, await loadCheckContext(db, inspection));
-    if (input) {
-      const outcome = evaluateMeasurement(input, { profile: inspection.ruleProfile });
-      if ('error' in outcome)
-        throw new AppError('invalid_body', `That reading cannot be judged: ${outcome.error}.`, {
-          reading: [outcome.error],
-        });
+    const verdict = judgeReading(item, body.reading, await loadCheckContext(db, inspection), inspection.ruleProfile);
+    if (!verdict.judged && verdict.error)
+      throw new AppError('invalid_body', `That reading cannot be judged: ${verdict.error}.`, {
+        reading: [verdict.error],
+      });
+    if (verdict.judged) {
+      const outcome = verdict.result;
       judged.measurementKind = outcome.check;
       judged.verdict = outcome.verdict;
       judged.severity = outcome.severity;
@@ -144,9 +161,26 @@ const stepRow = (fleetId: string, inspectionId: string, body: Body, judged: Awai
   score: body.score,
   resolution: body.resolution,
   undoesStepId: body.undoesStepId,
+  notCheckedReason: body.kind === 'not_checked' ? body.notCheckedReason : null,
+  note: body.kind === 'not_checked' ? body.note : null,
   deviceAt: new Date(body.deviceAt),
+  // Heard long after the phone recorded it: it waited on the phone, and its device time counts.
+  queuedOffline: Date.now() - new Date(body.deviceAt).getTime() > QUEUED_OFFLINE_AFTER_MS,
   ...judged,
 });
+
+/** A replay must say what the first send said; the same id with other content is refused. */
+function sameStepOrConflict(recorded: Awaited<ReturnType<typeof findStep>> & object, body: Body) {
+  const sent = stepFingerprint({ ...body, value: body.reading?.value ?? null });
+  const held = stepFingerprint({ ...recorded, value: recorded.value === null ? null : Number(recorded.value) });
+  if (sent !== held)
+    throw new AppError(
+      'conflict',
+      `Step ${body.id} is already recorded with other content (${recorded.kind}${recorded.item ? ` of ${recorded.item}` : ''} in ${recorded.zone}); a step id names one step only. Send the new entry with a new id.`,
+      { id: ['already used for another step'] },
+    );
+  return recorded;
+}
 
 /**
  * Record one step of a walk. The id comes from the device: the same step sent twice is recorded
@@ -163,6 +197,8 @@ export async function recordStep({
   inspectionId: string;
   body: Body;
 }) {
+  const known = startedWith.get(`${fleetId}:${inspectionId}`);
+  if (known) refuseImplausibleTime(body, known.startedAt);
   const quick = await writeStepQuickly({ fleetId, actorId, inspectionId, body });
   if (quick) return { step: quick, created: true };
   const outcome = await writeStep({ fleetId, actorId, inspectionId, body });
@@ -179,6 +215,11 @@ export async function recordStep({
     throw new AppError('conflict', 'This report is signed and locked; it cannot change.');
   }
   return outcome;
+}
+
+function refuseImplausibleTime(body: Body, startedAt: Date) {
+  const problem = checkDeviceTime(body.deviceAt, { now: new Date(), startedAt, what: 'step' });
+  if (problem) throw new AppError('invalid_body', problem, { deviceAt: [problem] });
 }
 
 const snake = (s: string) => s.replace(/[A-Z]/g, (c) => `_${c.toLowerCase()}`);
@@ -245,8 +286,9 @@ async function writeStep({
       if (inspection.status === 'submitted') {
         // A replay of a step the report already holds is harmless; anything new is refused.
         const already = await findStep(trx, { inspectionId, id: body.id });
-        return already ? { step: already, created: false } : { refused: true as const };
+        return already ? { step: sameStepOrConflict(already, body), created: false } : { refused: true as const };
       }
+      refuseImplausibleTime(body, inspection.startedAt);
       rememberInspection(inspection);
       if (body.undoesStepId) {
         const target = await findStep(trx, { inspectionId, id: body.undoesStepId });
@@ -285,6 +327,6 @@ async function writeStep({
       // Sent before (a replay after a reconnect): return what was recorded the first time.
       const recorded = await findStep(trx, { inspectionId, id: body.id });
       if (!recorded) throw new AppError('conflict', 'That step id is already used by another inspection.');
-      return { step: recorded, created: false };
+      return { step: sameStepOrConflict(recorded, body), created: false };
     });
 }

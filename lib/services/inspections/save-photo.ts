@@ -89,24 +89,36 @@ export async function savePhoto({
   if (!inspection) throw new AppError('not_found', 'No such inspection in your fleet.');
   if (inspection.driverId !== actorId)
     throw new AppError('forbidden', 'Only the driver of this inspection adds its photos.');
+  const refuse = async () => {
+    // Logged on its own, so the attempt stays on record.
+    await recordAudit(db, {
+      fleetId,
+      actorId,
+      action: 'inspection.change_refused',
+      entity: 'inspection',
+      entityId: inspectionId,
+      detail: { photoId, stepId, what: 'photo' },
+    });
+    return new AppError('conflict', 'This report is signed and locked; no photo can be added to it.');
+  };
+  if (inspection.status === 'submitted') throw await refuse();
   const key = `fleet/${fleetId}/inspections/${inspectionId}/photos/${photoId}.jpg`;
   await putObject(key, full, 'image/jpeg');
   await putObject(key.replace(/\.jpg$/, '.thumb.jpg'), thumb, 'image/jpeg');
   const sha256 = createHash('sha256').update(full).digest('hex');
-  return db.transaction().execute(async (trx) => {
+  const saved = await db.transaction().execute(async (trx) => {
     const locked = await findInspectionForUpdate(trx, { fleetId, id: inspectionId });
-    // Photos taken before signing may arrive after it, when the device was offline.
-    if (stepId && !(await findStep(trx, { inspectionId, id: stepId }))) {
-      if (locked?.status !== 'submitted')
-        throw new AppError('conflict', 'The finding this photo belongs to has not arrived yet; it will be sent again.');
-    }
+    // Signed while the photo was being encoded: the report is locked and the photo stays out.
+    if (locked?.status === 'submitted') return null;
+    if (stepId && !(await findStep(trx, { inspectionId, id: stepId })))
+      throw new AppError('conflict', 'The finding this photo belongs to has not arrived yet; it will be sent again.');
     const attachment = await trx
       .insertInto('attachment')
       .values({
         id: photoId,
         fleetId,
         inspectionId,
-        stepId: stepId && (await findStep(trx, { inspectionId, id: stepId })) ? stepId : null,
+        stepId,
         objectKey: key,
         contentType: 'image/jpeg',
         sizeBytes: full.byteLength,
@@ -129,4 +141,6 @@ export async function savePhoto({
       created: !!attachment,
     };
   });
+  if (!saved) throw await refuse();
+  return saved;
 }

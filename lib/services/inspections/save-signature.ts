@@ -4,6 +4,8 @@ import { getDb } from '@/lib/db';
 import { findInspectionForUpdate } from '@/lib/db/inspections';
 import { AppError } from '@/lib/errors';
 import { putObject } from '@/lib/storage';
+import { sha256Hex } from '@/lib/walk';
+import { recordAudit } from '../platform/record-audit';
 import { sniffImageType } from './save-photo';
 
 export const MAX_SIGNATURE_BYTES = 512 * 1024;
@@ -35,7 +37,8 @@ export async function saveSignature({
     throw new AppError('unsupported_media_type', 'That signature image is damaged; sign again.');
   }
   const key = `fleet/${fleetId}/inspections/${inspectionId}/signature.png`;
-  return getDb()
+  const sha256 = sha256Hex(png);
+  const outcome = await getDb()
     .transaction()
     .execute(async (trx) => {
       const inspection = await findInspectionForUpdate(trx, { fleetId, id: inspectionId });
@@ -43,17 +46,26 @@ export async function saveSignature({
       if (inspection.driverId !== actorId)
         throw new AppError('forbidden', 'Only the driver of this inspection signs it.');
       if (inspection.status === 'submitted') {
-        // The same signature sent again after a reconnect is fine; a new one is not.
-        const row = await trx
-          .selectFrom('inspection')
-          .select('signatureKey')
-          .where('id', '=', inspectionId)
-          .executeTakeFirstOrThrow();
-        if (row.signatureKey === key) return { signatureKey: key, created: false };
-        throw new AppError('conflict', 'This report is signed and locked; its signature cannot change.');
+        // The same signature sent again after a reconnect is fine; any other is not.
+        if (inspection.signatureSha256 === sha256) return { signatureKey: key, created: false };
+        return null;
       }
       await putObject(key, png, 'image/png');
-      await trx.updateTable('inspection').set({ signatureKey: key }).where('id', '=', inspectionId).execute();
+      await trx
+        .updateTable('inspection')
+        .set({ signatureKey: key, signatureSha256: sha256 })
+        .where('id', '=', inspectionId)
+        .execute();
       return { signatureKey: key, created: true };
     });
+  if (outcome) return outcome;
+  await recordAudit(getDb(), {
+    fleetId,
+    actorId,
+    action: 'inspection.change_refused',
+    entity: 'inspection',
+    entityId: inspectionId,
+    detail: { what: 'signature' },
+  });
+  throw new AppError('conflict', 'This report is signed and locked; its signature cannot change.');
 }

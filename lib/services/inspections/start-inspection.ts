@@ -5,6 +5,7 @@ import { findInspectionForUpdate, findPublishedVocabulary } from '@/lib/db/inspe
 import { findUsableUnit } from '@/lib/db/units';
 import { AppError } from '@/lib/errors';
 import type { StartInspectionBody } from '@/lib/schemas/inspections';
+import { checkStartTime } from '@/lib/walk';
 import { findUnitReview } from './find-unit-review';
 import { recordAudit } from '../platform/record-audit';
 
@@ -28,6 +29,8 @@ export async function startInspection({ fleetId, actorId, body }: { fleetId: str
         if (existing.driverId !== actorId) throw new AppError('conflict', 'That inspection id is already used.');
         return { inspection: existing, created: false };
       }
+      const badTime = checkStartTime(body.startedAt, new Date());
+      if (badTime) throw new AppError('invalid_body', badTime, { startedAt: [badTime] });
       const tractor = await findUsableUnit(trx, { fleetId, id: body.tractorId, kind: 'tractor' });
       if (!tractor)
         throw new AppError('invalid_body', 'Pick one of your fleet’s tractors in service.', {

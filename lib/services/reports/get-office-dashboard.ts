@@ -3,7 +3,8 @@ import vocabulary from '@/grammars/vocabulary.json' with { type: 'json' };
 import { getDb } from '@/lib/db';
 import { listDefectsByWeek, listDurationCounts, listFirstTryByZone, listOpenMajorByDay } from '@/lib/db/dashboard';
 import { getFleetMinimumsOrThrow } from './list-reports';
-import { zoneName } from '../inspections/walk-zones';
+import { getDefaultGrammar } from '@/lib/db/vocabulary';
+import { zoneName } from '@/lib/walk';
 
 const vocab = vocabulary as unknown as {
   systems: { id: string; name: string }[];
@@ -59,7 +60,7 @@ export async function getOfficeDashboard({
     .map((z) => {
       const total = z.firstTry + z.confirmed + z.corrected;
       return {
-        zone: zoneName(z.zone),
+        zone: zoneName(getDefaultGrammar().zones, z.zone),
         total,
         firstTry: z.firstTry,
         confirmed: z.confirmed,

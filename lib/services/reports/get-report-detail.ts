@@ -1,12 +1,12 @@
 import 'server-only';
-import { createHash } from 'node:crypto';
 import { getDb } from '@/lib/db';
 import { findInspectionDetail } from '@/lib/db/inspections';
 import { findFleetMinimums, findReportRecord } from '@/lib/db/reports';
 import { AppError } from '@/lib/errors';
-import { pickReportHeader, serializeReport, toCanonicalSteps } from '@/lib/reports/canonical-report';
+import type { ReportDetail, ReportHashCheck } from '@/lib/schemas/reports';
 import { checkInspectionDuration } from '@/lib/rules';
-import { listExpectedZones, zoneName } from '../inspections/walk-zones';
+import { configurationOf, hashReport, listWalkZones, zoneName } from '@/lib/walk';
+import { loadGrammar } from '../vocabulary/resolve-vocabulary';
 
 /** Low-confidence threshold: a match under this score should have been confirmed by the driver. */
 export const LOW_CONFIDENCE = 0.8;
@@ -14,25 +14,37 @@ export const LOW_CONFIDENCE = 0.8;
 const iso = (d: Date | string | null | undefined) => (d ? new Date(d).toISOString() : null);
 const num = (v: unknown) => (v === null || v === undefined ? null : Number(v));
 
-export type HashCheck = { state: 'match' | 'mismatch' | 'unsigned'; stored: string | null; computed: string | null };
+export type HashCheck = ReportHashCheck;
 
-/** Recompute the sha-256 of the report's canonical text from its rows and compare it with the stored one. */
-export function checkReportHash(record: NonNullable<Awaited<ReturnType<typeof findReportRecord>>>): HashCheck {
+/**
+ * Recompute the sha-256 of the report's canonical text from its rows (and the photo hashes as
+ * stored) and compare it with the stored one. The integrity check also re-reads the photo bytes.
+ */
+export function checkReportHash(
+  record: NonNullable<Awaited<ReturnType<typeof findReportRecord>>>,
+  photoHashes?: ReadonlyMap<string, string>,
+): HashCheck {
   const h = record.header;
   if (!h.contentHash || !h.finishedAt || !h.signedAt || !h.signatureName || !h.certificationText) {
     return { state: 'unsigned', stored: h.contentHash, computed: null };
   }
-  const text = serializeReport({
-    ...pickReportHeader({
+  const computed = hashReport(
+    {
       ...h,
       finishedAt: h.finishedAt,
       signedAt: h.signedAt,
       signatureName: h.signatureName,
       certificationText: h.certificationText,
-    }),
-    steps: toCanonicalSteps(record.steps.map((s) => ({ ...s, value: s.value === null ? null : Number(s.value) }))),
-  });
-  const computed = createHash('sha256').update(text).digest('hex');
+    },
+    record.steps,
+    {
+      photos: record.attachments
+        .filter((a) => a.defectId === null)
+        .map((a) => ({ id: a.id, stepId: a.stepId, sha256: photoHashes?.get(a.id) ?? a.sha256 })),
+      signatureSha256: h.signatureSha256,
+    },
+    h.reportFormat,
+  );
   return { state: computed === h.contentHash ? 'match' : 'mismatch', stored: h.contentHash, computed };
 }
 
@@ -45,7 +57,7 @@ export async function getReportDetail({
   fleetId: string;
   id: string;
   withPhotoUrls?: boolean;
-}) {
+}): Promise<ReportDetail> {
   const db = getDb();
   const [detail, record, fleet] = await Promise.all([
     findInspectionDetail(db, { fleetId, id }),
@@ -55,9 +67,18 @@ export async function getReportDetail({
   if (!detail || !record || !fleet) throw new AppError('not_found', 'No such inspection report in your fleet.');
 
   const minimumMinutes = detail.kind === 'post_trip' ? fleet.minPosttripMinutes : fleet.minPretripMinutes;
-  const duration = detail.finishedAt
-    ? checkInspectionDuration(detail.startedAt, detail.finishedAt, { minimumPretripMinutes: minimumMinutes })
+  // The walk's length as the server measured it at signing (device times only for a walk queued offline).
+  const walkEnd = detail.finishedAt ? new Date(detail.finishedAt) : null;
+  const duration = walkEnd
+    ? checkInspectionDuration(
+        record.header.durationS !== null
+          ? new Date(walkEnd.getTime() - record.header.durationS * 1000)
+          : detail.startedAt,
+        walkEnd,
+        { minimumPretripMinutes: minimumMinutes },
+      )
     : null;
+  const grammar = await loadGrammar(db, detail.vocabularyVersionId);
 
   const photos = record.attachments.map((a) => ({
     id: a.id,
@@ -88,9 +109,12 @@ export async function getReportDetail({
     const nextZone = order[i + 1];
     const nextFirst = nextZone ? steps.find((s) => s.zone === nextZone)?.deviceAt : iso(detail.finishedAt);
     const seconds = nextFirst ? Math.max(0, Math.round((Date.parse(nextFirst) - first) / 1000)) : null;
-    return { id: zoneId, name: zoneName(zoneId), seconds, steps: own };
+    return { id: zoneId, name: zoneName(grammar.zones, zoneId), seconds, steps: own };
   });
-  const expected = listExpectedZones(detail.trailerNumber !== null);
+  const expected = listWalkZones(grammar.zones, {
+    kind: detail.kind === 'post_trip' ? 'post_trip' : 'pre_trip',
+    configuration: configurationOf(detail.trailerNumber !== null),
+  });
   const skippedZones = expected.filter((z) => !order.includes(z.id));
   const lowConfidenceUnconfirmed = steps.filter(
     (s) => s.kind === 'defect' && s.score !== null && s.score < LOW_CONFIDENCE && s.resolution === 'auto',
@@ -138,6 +162,7 @@ export async function getReportDetail({
           minimumMinutes: duration.minimumMinutes,
           short: duration.short,
           source: duration.source,
+          clock: record.header.durationSource ?? 'device',
         }
       : null,
     certificationText: detail.certificationText,
@@ -160,4 +185,3 @@ export async function getReportDetail({
   };
 }
 
-export type ReportDetail = Awaited<ReturnType<typeof getReportDetail>>;

@@ -1,8 +1,10 @@
 import 'server-only';
-import { createHash } from 'node:crypto';
 import { getDb } from '@/lib/db';
+import { findReportRecord } from '@/lib/db/reports';
 import { AppError } from '@/lib/errors';
-import { pickReportHeader, serializeReport, toCanonicalSteps } from '@/lib/reports/canonical-report';
+import { getObjectBytes } from '@/lib/storage';
+import { sha256Hex } from '@/lib/walk';
+import { checkReportHash } from './get-report-detail';
 
 export type ReportIntegrity = {
   /** True when the report is signed and its rows still hash to what was stored at signing. */
@@ -16,8 +18,9 @@ export type ReportIntegrity = {
 
 /**
  * Recompute the SHA-256 of a signed report's canonical text from the rows as they are now and
- * compare it with the hash stored when the driver signed. Any edit of the header or of a step
- * (by SQL, a restore gone wrong, a bug) makes the two differ.
+ * compare it with the hash stored when the driver signed, each photo hashed again from its stored
+ * bytes. Any edit of the header, a step or a photo (by SQL, a restore gone wrong, a bug) makes the
+ * two differ.
  */
 export async function checkReportIntegrity({
   fleetId,
@@ -27,35 +30,16 @@ export async function checkReportIntegrity({
   inspectionId: string;
 }): Promise<ReportIntegrity> {
   const db = getDb();
-  const h = await db
+  const record = await findReportRecord(db, { fleetId, id: inspectionId });
+  if (!record) throw new AppError('not_found', 'No such inspection report in your fleet.');
+  const h = record.header;
+  const status = await db
     .selectFrom('inspection')
-    .select([
-      'id',
-      'fleetId',
-      'kind',
-      'status',
-      'driverId',
-      'tractorId',
-      'trailerId',
-      'odometer',
-      'location',
-      'billOfLading',
-      'sealNumber',
-      'ruleProfile',
-      'vocabularyVersionId',
-      'startedAt',
-      'finishedAt',
-      'certificationText',
-      'signatureName',
-      'signedAt',
-      'contentHash',
-    ])
-    .where('fleetId', '=', fleetId)
+    .select('status')
     .where('id', '=', inspectionId)
-    .executeTakeFirst();
-  if (!h) throw new AppError('not_found', 'No such inspection report in your fleet.');
-  if (h.status !== 'submitted' || !h.finishedAt || !h.signedAt || !h.signatureName || !h.certificationText) {
-    if (h.status === 'submitted') {
+    .executeTakeFirstOrThrow();
+  if (status.status !== 'submitted' || !h.finishedAt || !h.signedAt || !h.signatureName || !h.certificationText) {
+    if (status.status === 'submitted') {
       return {
         ok: false,
         signed: true,
@@ -73,43 +57,18 @@ export async function checkReportIntegrity({
       message: 'This report is not signed yet, so it has no content hash to check.',
     };
   }
-  const steps = await db
-    .selectFrom('inspectionStep')
-    .select([
-      'id',
-      'seq',
-      'zone',
-      'item',
-      'kind',
-      'heard',
-      'termKey',
-      'component',
-      'condition',
-      'position',
-      'score',
-      'resolution',
-      'undoesStepId',
-      'measurementKind',
-      'value',
-      'unit',
-      'verdict',
-      'severity',
-      'deviceAt',
-    ])
-    .where('fleetId', '=', fleetId)
-    .where('inspectionId', '=', inspectionId)
-    .execute();
-  const text = serializeReport({
-    ...pickReportHeader({
-      ...h,
-      finishedAt: h.finishedAt,
-      signedAt: h.signedAt,
-      signatureName: h.signatureName,
-      certificationText: h.certificationText,
-    }),
-    steps: toCanonicalSteps(steps.map((s) => ({ ...s, value: s.value === null ? null : Number(s.value) }))),
-  });
-  const computed = createHash('sha256').update(text).digest('hex');
+  // Each photo's SHA-256 from the bytes in the object store, not from the row that names it.
+  const photoHashes = new Map<string, string>();
+  let missing = 0;
+  for (const a of record.attachments.filter((x) => x.defectId === null)) {
+    try {
+      photoHashes.set(a.id, sha256Hex((await getObjectBytes(a.objectKey)).bytes));
+    } catch {
+      missing += 1;
+      photoHashes.set(a.id, 'missing');
+    }
+  }
+  const { computed } = checkReportHash(record, photoHashes);
   const ok = !!h.contentHash && computed === h.contentHash;
   return {
     ok,
@@ -118,6 +77,8 @@ export async function checkReportIntegrity({
     computed,
     message: ok
       ? 'The report is unchanged since the driver signed it.'
-      : 'WARNING: this report does not match what the driver signed. Its records have been changed since signing; do not rely on it until this is explained.',
+      : missing
+        ? `WARNING: ${missing === 1 ? 'a photo' : `${missing} photos`} of this report cannot be read from storage, so it cannot be shown to match what the driver signed.`
+        : 'WARNING: this report does not match what the driver signed. Its records or photos have been changed since signing; do not rely on it until this is explained.',
   };
 }

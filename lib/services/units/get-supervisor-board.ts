@@ -3,7 +3,17 @@ import { getDb } from '@/lib/db';
 import { listAttentionRows, listUnitBoardRows } from '@/lib/db/dashboard';
 import { LOW_CONFIDENCE } from '../reports/get-report-detail';
 import { getFleetMinimumsOrThrow } from '../reports/list-reports';
-import { listExpectedZones } from '../inspections/walk-zones';
+import { getDefaultGrammar } from '@/lib/db/vocabulary';
+import { listWalkZones, type InspectionKind } from '@/lib/walk';
+
+/** Zones per kind and configuration of the default checklists. */
+function countZones(kind: InspectionKind) {
+  const zones = getDefaultGrammar().zones;
+  return {
+    withTrailer: listWalkZones(zones, { kind, configuration: 'tractor_trailer' }).length,
+    bobtail: listWalkZones(zones, { kind, configuration: 'bobtail' }).length,
+  };
+}
 
 /** The supervisor's home: the units board and the recent inspections that need a look. */
 export async function getSupervisorBoard({
@@ -22,8 +32,7 @@ export async function getSupervisorBoard({
     listAttentionRows(db, {
       fleetId,
       days,
-      zonesWithTrailer: listExpectedZones(true).length,
-      zonesBobtail: listExpectedZones(false).length,
+      zonesExpected: { pre_trip: countZones('pre_trip'), post_trip: countZones('post_trip') },
       lowConfidence: LOW_CONFIDENCE,
       timezone: fleet.timezone,
       minPretripMinutes: fleet.minPretripMinutes,

@@ -3,7 +3,7 @@
 import { createHash, randomUUID } from 'node:crypto';
 import { sql } from 'kysely';
 import { createDb, databaseUrlFromEnv, type DB } from '../../../db/connect';
-import { serializeReport, toCanonicalSteps } from '../../../lib/reports/canonical-report';
+import { serializeReport, toCanonicalSteps } from '../../../lib/walk/report';
 
 export const openDb = (): DB => createDb(databaseUrlFromEnv(), 2);
 
@@ -174,7 +174,10 @@ async function writeReportWithMajor(db: DB, fleetId: string) {
     signedAt: new Date(finishedAt.getTime() + 20_000),
   };
   const contentHash = createHash('sha256')
-    .update(serializeReport({ ...header, steps: toCanonicalSteps(steps) }))
+    .update(
+      // Written as a report of format 1 (the inspection row's default): steps and header only.
+      serializeReport({ ...header, steps: toCanonicalSteps(steps, 1) }, null, 1),
+    )
     .digest('hex');
   await db
     .insertInto('inspection')

@@ -11,8 +11,7 @@ import { createDb, type DB } from '../../../db/connect';
 import { makeFleetFixture, type FleetFixture } from '../../setup/fleet-fixture';
 import { getTestDb } from '../../setup/test-db';
 import { makeSignedReport } from '../security/walk-helpers';
-import { createHash } from 'node:crypto';
-import { pickReportHeader, serializeReport, toCanonicalSteps } from '@/lib/reports/canonical-report';
+import { hashReport } from '@/lib/walk';
 
 const SCRATCH = 'rigcall_backup_scratch_test';
 const root = path.resolve(__dirname, '../../..');
@@ -58,17 +57,25 @@ async function fleetRows(d: DB, fleetId: string) {
 async function hashHolds(d: DB, id: string) {
   const h = await d.selectFrom('inspection').selectAll().where('id', '=', id).executeTakeFirstOrThrow();
   const steps = await d.selectFrom('inspectionStep').selectAll().where('inspectionId', '=', id).execute();
-  const text = serializeReport({
-    ...pickReportHeader({
+  const photos = await d
+    .selectFrom('attachment')
+    .select(['id', 'stepId', 'sha256'])
+    .where('inspectionId', '=', id)
+    .where('defectId', 'is', null)
+    .execute();
+  const computed = hashReport(
+    {
       ...h,
       finishedAt: h.finishedAt!,
       certificationText: h.certificationText!,
       signatureName: h.signatureName!,
       signedAt: h.signedAt!,
-    }),
-    steps: toCanonicalSteps(steps),
-  });
-  return createHash('sha256').update(text).digest('hex') === h.contentHash;
+    },
+    steps,
+    { photos, signatureSha256: h.signatureSha256 },
+    h.reportFormat,
+  );
+  return computed === h.contentHash;
 }
 
 beforeAll(async () => {

@@ -4,7 +4,7 @@ import { createHash, randomUUID } from 'node:crypto';
 import { makeFleet, makeUnit, makeUser } from '../../../db/factories';
 import type { InspectionStep } from '../../../db/schema';
 import { seedHistory } from '../../../db/seeds/02-history';
-import { serializeReport, toCanonicalSteps } from '../../../lib/reports/canonical-report';
+import { serializeReport, toCanonicalSteps } from '../../../lib/walk/report';
 import { sessionCookieFor } from '../../setup/session';
 import { getTestDb } from '../../setup/test-db';
 
@@ -177,7 +177,10 @@ export async function makeSignedReport(
     signedAt,
   };
   const hash = createHash('sha256')
-    .update(serializeReport({ ...header, steps: toCanonicalSteps(steps) }))
+    .update(
+      // Written as a report of format 1 (the inspection row's default): steps and header only.
+      serializeReport({ ...header, steps: toCanonicalSteps(steps, 1) }, null, 1),
+    )
     .digest('hex');
   await db
     .insertInto('inspection')
