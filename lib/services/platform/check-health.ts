@@ -23,7 +23,7 @@ async function checkDatabase(): Promise<boolean> {
 /** Is each service the app needs answering right now? */
 export async function checkHealth(): Promise<Health> {
   const [database, mail, storage] = await Promise.all([checkDatabase(), checkMail(), checkStorage()]);
-  const state = (ok: boolean) => (ok ? 'ok' : 'down') as 'ok' | 'down';
+  const state = (ok: boolean): 'ok' | 'down' => (ok ? 'ok' : 'down');
   return {
     ok: database && mail && storage,
     version: packageJson.version,

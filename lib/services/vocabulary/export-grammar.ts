@@ -1,6 +1,5 @@
 import 'server-only';
 import { getDb } from '@/lib/db';
-import type { Grammar } from '@/lib/schemas/grammar';
 import { getVocabularyVersionOrThrow } from './get-vocabulary-version-or-throw';
 
 export const grammarFiles = ['vocabulary', 'commands', 'positions', 'numbers', 'zones'] as const;
@@ -14,8 +13,7 @@ export async function exportGrammar({ fleetId, id, file }: { fleetId: string; id
       .toLowerCase()
       .replace(/[^a-z0-9]+/g, '-')
       .replace(/^-|-$/g, '') || 'version';
-  if (file)
-    return { filename: `${file}.json`, body: version.grammar[file] as Grammar[GrammarFile], label: version.label };
+  if (file) return { filename: `${file}.json`, body: version.grammar[file], label: version.label };
   return { filename: `rigcall-grammar-${slug}.json`, body: version.grammar, label: version.label };
 }
 
