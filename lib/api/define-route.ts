@@ -1,6 +1,6 @@
 import 'server-only';
 import type { ZodType } from 'zod';
-import { readSessionUser } from '@/lib/auth/read-session-user';
+import { readSessionState, type SessionState } from '@/lib/auth/read-session-user';
 import type { Role } from '@/lib/auth/roles';
 import { AppError, findBusyDatabaseError } from '@/lib/errors';
 import type { SessionUser } from '@/lib/schemas/session';
@@ -21,6 +21,8 @@ type Options<P, B, Q> = {
   maxBodyBytes?: number;
   /** Take the body as raw bytes (uploads) instead of JSON; the handler gets a Uint8Array. */
   rawBody?: { maxBytes: number };
+  /** Open to a user who signed in with a temporary password (changing it; reading who they are). */
+  allowTemporaryPassword?: boolean;
 };
 
 type Handler<P, B, Q, U> = (ctx: {
@@ -34,15 +36,22 @@ type Handler<P, B, Q, U> = (ctx: {
 
 const errorResponse = (e: AppError) => Response.json(e.toBody(), { status: e.status });
 
-function checkRole(user: SessionUser | null, allowed: readonly Role[] | 'public') {
+function checkRole(session: SessionState | null, allowed: readonly Role[] | 'public', allowTemporary: boolean) {
   if (allowed === 'public') return;
-  if (!user) throw new AppError('unauthenticated', 'Sign in first.');
+  if (!session) throw new AppError('unauthenticated', 'Sign in first.');
+  if (session.mustChangePassword && !allowTemporary)
+    throw new AppError(
+      'forbidden',
+      'You signed in with a temporary password. Change it first, on the change-password page, then carry on.',
+    );
+  const user = session.user;
   if (!allowed.some((r) => user.roles.includes(r)))
     throw new AppError('forbidden', `This needs the ${allowed.join(' or ')} role.`);
 }
 
 /**
- * Every route handler goes through here, in order: same origin for writes (403) → session (401) → role (403) → params →
+ * Every route handler goes through here, in order: same origin for writes (403) → session (401) →
+ * temporary password still to change (403) → role (403) → params →
  * JSON body (400/415) → zod (422) → handler → AppError mapped by its code; a database limit 503; anything else 500.
  */
 export function defineRoute<P = undefined, B = undefined, Q = undefined>(
@@ -58,8 +67,10 @@ export function defineRoute<P, B, Q>(opts: Options<P, B, Q>, handler: Handler<P,
     try {
       const crossSite = checkSameOrigin(req);
       if (crossSite) throw crossSite;
-      const user = await readSessionUser(req.headers);
-      checkRole(user, opts.roles);
+      const session = await readSessionState(req.headers);
+      checkRole(session, opts.roles, opts.allowTemporaryPassword === true);
+      // A public route sees a temporary-password session as nobody.
+      const user = session && (!session.mustChangePassword || opts.allowTemporaryPassword) ? session.user : null;
       const params = opts.params ? parseOrThrow(opts.params, await ctx.params, 'Address') : (undefined as P);
       const query = opts.query
         ? parseOrThrow(opts.query, Object.fromEntries(new URL(req.url).searchParams), 'Query')

@@ -3,7 +3,8 @@ import bcrypt from 'bcryptjs';
 import type { NextAuthOptions } from 'next-auth';
 import CredentialsProvider from 'next-auth/providers/credentials';
 import { z } from 'zod';
-import { findUserForSignIn, recordSignIn } from '@/lib/db/users';
+import { getDb } from '@/lib/db';
+import { bumpSessionVersion, findUserForSignIn, recordSignIn } from '@/lib/db/users';
 import type { SessionUser } from '@/lib/schemas/session';
 import {
   clearSignInFailures,
@@ -22,6 +23,7 @@ declare module 'next-auth' {
     id: string;
     fleetId: string;
     roles: Role[];
+    sessionVersion: number;
   }
 }
 declare module 'next-auth/jwt' {
@@ -29,6 +31,10 @@ declare module 'next-auth/jwt' {
     uid: string;
     fleetId: string;
     roles: Role[];
+    /** The account's session version when this session began (app_user.session_version). */
+    sv?: number;
+    /** When this session began, in seconds since the epoch; refreshing the cookie keeps it. */
+    signedInAt?: number;
   }
 }
 
@@ -37,8 +43,19 @@ const credentialsSchema = z.object({
   password: z.string().min(1).max(200),
 });
 
-/** Session lifetime: one long shift. A driver signs in again the next day. */
+/**
+ * Session lifetime: one long shift from sign-in. A driver signs in again the next day. The cookie
+ * is re-issued on reads, but the sign-in time inside it is kept and checked on every request
+ * (lib/auth/read-session-user.ts), so no amount of activity stretches a session past this.
+ */
 export const sessionMaxAgeSeconds = 14 * 60 * 60;
+
+export class TemporaryPasswordExpiredError extends Error {
+  constructor() {
+    super('This temporary password has expired. Ask your fleet admin to invite you again, or use “Forgot password”.');
+    this.name = 'TemporaryPasswordExpiredError';
+  }
+}
 
 export const authOptions: NextAuthOptions = {
   session: { strategy: 'jwt', maxAge: sessionMaxAgeSeconds },
@@ -62,6 +79,12 @@ export const authOptions: NextAuthOptions = {
           await recordSignInFailure(keys);
           return null;
         }
+        if (
+          user.mustChangePassword &&
+          user.temporaryPasswordExpiresAt &&
+          user.temporaryPasswordExpiresAt.getTime() <= Date.now()
+        )
+          throw new TemporaryPasswordExpiredError();
         await clearSignInFailures(keys);
         await recordSignIn(user.id);
         return {
@@ -70,17 +93,28 @@ export const authOptions: NextAuthOptions = {
           email: user.email,
           fleetId: user.fleetId,
           roles: user.roles.filter(isRole),
+          sessionVersion: user.sessionVersion,
         };
       },
     }),
   ],
+  events: {
+    // Signing out ends every session of the account, including copies of this cookie.
+    async signOut({ token }) {
+      const uid = (token as { uid?: unknown } | null)?.uid;
+      if (typeof uid === 'string') await bumpSessionVersion(getDb(), { userId: uid });
+    },
+  },
   callbacks: {
     jwt({ token, user }) {
       if (user) {
         token.uid = user.id;
         token.fleetId = user.fleetId;
         token.roles = user.roles;
+        token.sv = user.sessionVersion;
+        token.signedInAt = Math.floor(Date.now() / 1000);
       }
+      // Later reads pass the token through unchanged: the sign-in time is never moved forward.
       return token;
     },
     session({ session, token }) {

@@ -1,5 +1,6 @@
 import 'server-only';
-import { getToken } from 'next-auth/jwt';
+import { getToken, type JWT } from 'next-auth/jwt';
+import { sessionMaxAgeSeconds } from './config';
 import { findActiveUser } from '@/lib/db/users';
 import { getEnv } from '@/lib/env';
 import type { SessionUser } from '@/lib/schemas/session';
@@ -14,18 +15,42 @@ function readCookies(header: string | null): Map<string, string> {
   return map;
 }
 
+export type SessionState = {
+  user: SessionUser;
+  /** Signed in with a temporary password: only the change-password page and route are open. */
+  mustChangePassword: boolean;
+  /** The decoded token, for re-issuing the cookie after a password change. */
+  token: JWT;
+};
+
 /**
- * The signed-in user of a request, or null: the session cookie in these headers, checked against
- * the database, so a deactivated user is out at once and a changed role counts on the next
- * request. Route handlers pass `req.headers`; pages go through `lib/auth/guards.ts`.
+ * The session of a request, or null: the cookie in these headers, checked against the database
+ * on every request. It is refused when the account is inactive, when the session version it was
+ * issued under is no longer the account's (sign-out, password change, deactivation or role
+ * change since), or when it began more than one shift ago, however often it was refreshed.
  */
-export async function readSessionUser(headers: Headers): Promise<SessionUser | null> {
+export async function readSessionState(headers: Headers): Promise<SessionState | null> {
   const token = await getToken({
     req: { headers, cookies: readCookies(headers.get('cookie')) } as never,
     secret: getEnv().NEXTAUTH_SECRET,
   });
   if (!token?.uid) return null;
+  const signedInAt = token.signedInAt;
+  if (typeof signedInAt !== 'number' || Date.now() / 1000 - signedInAt > sessionMaxAgeSeconds) return null;
   const user = await findActiveUser(token.uid);
-  if (!user) return null;
-  return { id: user.id, name: user.name, email: user.email, fleetId: user.fleetId, roles: user.roles.filter(isRole) };
+  if (!user || token.sv !== user.sessionVersion) return null;
+  return {
+    user: { id: user.id, name: user.name, email: user.email, fleetId: user.fleetId, roles: user.roles.filter(isRole) },
+    mustChangePassword: user.mustChangePassword,
+    token,
+  };
+}
+
+/**
+ * The signed-in user of a request, or null (see readSessionState). A user who still has to
+ * replace a temporary password counts as signed in here; callers decide what stays open.
+ * Route handlers pass `req.headers`; pages go through `lib/auth/guards.ts`.
+ */
+export async function readSessionUser(headers: Headers): Promise<SessionUser | null> {
+  return (await readSessionState(headers))?.user ?? null;
 }

@@ -6,7 +6,18 @@ import { getDb, type DB } from './index';
 export async function findUserForSignIn(email: string) {
   return getDb()
     .selectFrom('appUser')
-    .select(['id', 'fleetId', 'email', 'name', 'passwordHash', 'roles', 'active'])
+    .select([
+      'id',
+      'fleetId',
+      'email',
+      'name',
+      'passwordHash',
+      'roles',
+      'active',
+      'mustChangePassword',
+      'temporaryPasswordExpiresAt',
+      'sessionVersion',
+    ])
     .where('email', '=', email.toLowerCase())
     .executeTakeFirst();
 }
@@ -15,11 +26,14 @@ export async function recordSignIn(userId: string) {
   await getDb().updateTable('appUser').set({ lastSignInAt: new Date() }).where('id', '=', userId).execute();
 }
 
-/** An active user's identity, roles and fleet: read on every API request. */
+/**
+ * An active user's identity, roles and fleet, with the session version their sessions must carry
+ * and whether a temporary password is still to be replaced: read on every request.
+ */
 export async function findActiveUser(userId: string) {
   return getDb()
     .selectFrom('appUser')
-    .select(['id', 'fleetId', 'email', 'name', 'roles'])
+    .select(['id', 'fleetId', 'email', 'name', 'roles', 'sessionVersion', 'mustChangePassword'])
     .where('id', '=', userId)
     .where('active', '=', true)
     .executeTakeFirst();
@@ -93,7 +107,15 @@ export async function isEmailTaken(db: DB, { email }: { email: string }): Promis
 
 export async function insertFleetUser(
   db: DB,
-  u: { fleetId: string; name: string; email: string; roles: Role[]; passwordHash: string; mustChangePassword: boolean },
+  u: {
+    fleetId: string;
+    name: string;
+    email: string;
+    roles: Role[];
+    passwordHash: string;
+    mustChangePassword: boolean;
+    temporaryPasswordExpiresAt?: Date | null;
+  },
 ): Promise<AdminUser> {
   const row = await db
     .insertInto('appUser')
@@ -128,4 +150,15 @@ export async function countFleetUsers(db: DB, { fleetId }: { fleetId: string }) 
     for (const role of r.roles.filter(isRole)) byRole[role] += 1;
   }
   return { active, inactive: rows.length - active, byRole };
+}
+
+/** End every session of this user: each one carries the old version and is refused from now on. */
+export async function bumpSessionVersion(db: DB, { userId }: { userId: string }): Promise<number> {
+  const row = await db
+    .updateTable('appUser')
+    .set((eb) => ({ sessionVersion: eb('sessionVersion', '+', 1), updatedAt: new Date() }))
+    .where('id', '=', userId)
+    .returning('sessionVersion')
+    .executeTakeFirst();
+  return row?.sessionVersion ?? 0;
 }

@@ -7,6 +7,7 @@ export async function sessionCookieFor(user: {
   email?: string;
   fleetId: string;
   roles: string[];
+  sessionVersion?: number;
 }): Promise<string> {
   const secret = process.env.NEXTAUTH_SECRET;
   if (!secret) throw new Error('NEXTAUTH_SECRET is not set');
@@ -19,6 +20,9 @@ export async function sessionCookieFor(user: {
       fleetId: user.fleetId,
       roles: user.roles as never,
       sub: user.id,
+      // A session begun now, under the account's session version (1 until something ends sessions).
+      sv: user.sessionVersion ?? 1,
+      signedInAt: Math.floor(Date.now() / 1000),
     },
   });
   return `next-auth.session-token=${token}`;

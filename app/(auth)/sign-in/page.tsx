@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import { findSafeNextPath } from '@/lib/http/find-safe-next-path';
 import { SignInForm } from './sign-in-form';
+import { Panel } from '@/components/ui/panel';
 
 export const metadata: Metadata = { title: 'Sign in' };
 
@@ -27,11 +28,14 @@ export default async function SignInPage({
       </p>
       <h1 className="text-4xl font-extrabold">Sign in</h1>
       {sp.signedOut ? (
-        <p role="status" className="rounded-lg border-slab border-edge bg-panel p-4 text-lg">
+        <Panel as="p" role="status" className="text-lg">
           You are signed out.
-        </p>
+        </Panel>
       ) : null}
       <SignInForm next={next} />
+      <a href="/forgot-password" className="text-lg font-bold underline">
+        Forgot password?
+      </a>
     </main>
   );
 }

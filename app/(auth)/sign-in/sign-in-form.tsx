@@ -2,8 +2,9 @@
 
 import { signIn } from 'next-auth/react';
 import { useState, type FormEvent } from 'react';
-import { slabClass } from '@/components/ui/slab-button';
+import { Button } from '@/components/ui/button';
 import { findSafeNextPath } from '@/lib/http/find-safe-next-path';
+import { Panel } from '@/components/ui/panel';
 
 const field =
   'min-h-target w-full rounded-lg border-slab border-edge bg-panel px-4 text-xl text-ink placeholder:text-muted';
@@ -29,9 +30,9 @@ export function SignInForm({ next }: { next: string }) {
         window.location.assign(findSafeNextPath(next, window.location.origin));
         return;
       }
-      // A lock-out says so (and for how long); anything else is the same plain refusal.
+      // A lock-out says so (and for how long), an expired invitation too; anything else is the same plain refusal.
       setError(
-        res?.error && /too many/i.test(res.error)
+        res?.error && /too many|temporary password has expired/i.test(res.error)
           ? res.error
           : 'That e-mail and password do not match an active account. Check both and try again.',
       );
@@ -52,14 +53,14 @@ export function SignInForm({ next }: { next: string }) {
         <input name="password" type="password" autoComplete="current-password" required className={field} />
       </label>
       {error ? (
-        <p role="alert" className="rounded-lg border-slab border-major bg-panel p-4 text-lg font-bold text-major">
+        <Panel as="p" role="alert" tone="major" className="text-lg font-bold text-major">
           <span aria-hidden="true">▲ </span>
           {error}
-        </p>
+        </Panel>
       ) : null}
-      <button type="submit" className={slabClass('primary')} disabled={busy}>
+      <Button type="submit" tone="primary" disabled={busy}>
         {busy ? 'Signing in…' : 'Sign in'}
-      </button>
+      </Button>
     </form>
   );
 }

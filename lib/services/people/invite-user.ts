@@ -53,7 +53,7 @@ export function composeInviteMail(m: {
     `E-mail:              ${m.email}`,
     `Temporary password:  ${m.password}`,
     '',
-    'The password is temporary: you will be asked to replace it with one of your own.',
+    `The password is temporary: you will be asked to replace it with one of your own. It stops working after ${invitationLifetimeHours} hours.`,
     'Keep it to yourself. If this message was not meant for you, tell your fleet office.',
   ].join('\n');
   const html = `<div style="font-family:system-ui,sans-serif;font-size:16px;line-height:1.5">
@@ -64,10 +64,13 @@ export function composeInviteMail(m: {
 <tr><td style="padding:4px 12px 4px 0">E-mail</td><td>${escapeHtml(m.email)}</td></tr>
 <tr><td style="padding:4px 12px 4px 0">Temporary password</td><td><code style="font-size:20px;letter-spacing:1px">${escapeHtml(m.password)}</code></td></tr>
 </table>
-<p>The password is temporary: you will be asked to replace it with one of your own.<br>Keep it to yourself. If this message was not meant for you, tell your fleet office.</p>
+<p>The password is temporary: you will be asked to replace it with one of your own. It stops working after ${invitationLifetimeHours} hours.<br>Keep it to yourself. If this message was not meant for you, tell your fleet office.</p>
 </div>`;
   return { subject, text, html };
 }
+
+/** How long an invitation's temporary password signs in (then the admin invites again). */
+export const invitationLifetimeHours = 72;
 
 /** What the admin is told after inviting: the same for every address outside their own fleet. */
 export type SentInvitation = { email: string; name: string; roles: InvitedRole[] };
@@ -145,6 +148,7 @@ export async function inviteUser(opts: {
           roles: opts.roles,
           passwordHash,
           mustChangePassword: true,
+          temporaryPasswordExpiresAt: new Date(Date.now() + invitationLifetimeHours * 3600_000),
         });
         await recordAdminAudit(trx, {
           fleetId: opts.fleetId,

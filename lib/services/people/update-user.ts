@@ -1,7 +1,7 @@
 import 'server-only';
 import type { Role } from '@/lib/auth/roles';
 import { getDb } from '@/lib/db';
-import { findFleetUser, updateFleetUserRow } from '@/lib/db/users';
+import { bumpSessionVersion, findFleetUser, updateFleetUserRow } from '@/lib/db/users';
 import { AppError } from '@/lib/errors';
 import type { AdminUser } from '@/lib/schemas/users';
 import { recordAdminAudit } from '../platform/record-admin-audit';
@@ -55,6 +55,9 @@ export async function updateUser(opts: {
       if (set.name !== undefined) await audit('user.renamed', { from: before.name, to: set.name });
       if (set.roles !== undefined) await audit('user.roles_changed', { from: before.roles, to: set.roles });
       if (set.active !== undefined) await audit(set.active ? 'user.reactivated' : 'user.deactivated', {});
+      // New roles or a deactivation end the person's sessions: they sign in again and get what
+      // they now hold (and a reactivation does not bring an old session back).
+      if (set.roles !== undefined || set.active !== undefined) await bumpSessionVersion(trx, { userId });
       return { user };
     });
 }

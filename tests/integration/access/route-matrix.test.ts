@@ -2,7 +2,7 @@
 // that may. The last test fails when a route file exists that this table does not list.
 import fs from 'node:fs';
 import path from 'node:path';
-import { randomUUID } from 'node:crypto';
+import { createHash, randomBytes, randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import sharp from 'sharp';
 import * as acknowledgements from '@/app/api/acknowledgements/route';
@@ -29,9 +29,12 @@ import * as inspection from '@/app/api/inspections/[id]/route';
 import * as steps from '@/app/api/inspections/[id]/steps/route';
 import * as inspections from '@/app/api/inspections/route';
 import * as me from '@/app/api/me/route';
+import * as password from '@/app/api/password/route';
+import * as passwordForgot from '@/app/api/password/forgot/route';
+import * as passwordReset from '@/app/api/password/reset/route';
 import * as unitReview from '@/app/api/units/[id]/review/route';
 import * as units from '@/app/api/units/route';
-import { makeInspection, makeUnit } from '../../../db/factories';
+import { makeInspection, makeUnit, makeUser } from '../../../db/factories';
 import { adminRouteCases } from '../admin/admin-routes';
 import { vocabularyRouteCases } from '../vocabulary/vocabulary-routes';
 import { roles, type Role } from '@/lib/auth/roles';
@@ -311,7 +314,7 @@ const cases: Case[] = [
           json: {
             outcome: 'repaired',
             work: 'Replaced the horn relay',
-            certifiedName: 'Matrix Mechanic',
+            certifiedName: f.users.mechanic.name,
             confirm: true,
           },
         }),
@@ -336,6 +339,62 @@ const cases: Case[] = [
     method: 'GET',
     allowed: ['admin'],
     call: (_f, cookie) => callRoute(caughtMail.GET, makeRequest('/api/mail', { cookie })),
+  },
+  {
+    // Changing one's own password ends every other session; the answer carries this one on with
+    // a new cookie, which replaces the fixture's so the later cases still have a session.
+    route: 'password',
+    method: 'PUT',
+    allowed: roles,
+    call: async (f, cookie) => {
+      const res = await callRoute(
+        password.PUT,
+        makeRequest('/api/password', {
+          method: 'PUT',
+          cookie,
+          json: { currentPassword: 'test-password', newPassword: `matrix passphrase ${randomUUID().slice(0, 8)}` },
+        }),
+      );
+      const fresh = res.headers.getSetCookie().find((c) => c.startsWith('next-auth.session-token='));
+      const role = roles.find((r) => f.cookies[r] === cookie);
+      if (fresh && role) f.cookies[role] = fresh.split(';')[0]!;
+      return res;
+    },
+  },
+  {
+    route: 'password/forgot',
+    method: 'POST',
+    allowed: 'public',
+    call: (f) =>
+      callRoute(
+        passwordForgot.POST,
+        makeRequest('/api/password/forgot', { method: 'POST', json: { email: f.users.driver.email } }),
+      ),
+  },
+  {
+    route: 'password/reset',
+    method: 'POST',
+    allowed: 'public',
+    call: async (f) => {
+      const token = randomBytes(32).toString('base64url');
+      const u = await makeUser(db, { fleetId: f.fleet.id, roles: ['driver'] });
+      await db
+        .insertInto('passwordReset')
+        .values({
+          fleetId: f.fleet.id,
+          userId: u.id,
+          tokenHash: createHash('sha256').update(token).digest('hex'),
+          expiresAt: new Date(Date.now() + 60_000),
+        })
+        .execute();
+      return callRoute(
+        passwordReset.POST,
+        makeRequest('/api/password/reset', {
+          method: 'POST',
+          json: { token, newPassword: 'a matrix reset passphrase' },
+        }),
+      );
+    },
   },
   // The trainer's vocabulary routes.
   ...vocabularyRouteCases,
