@@ -1,4 +1,5 @@
-// `npm run bench:office [-- --json]` (through `node scripts/stack.mjs exec --test -- …` for DATABASE_URL):
+// `npm run bench:office [-- --json]` (the script starts the local services itself, through
+// `node scripts/stack.mjs exec --test`, which sets DATABASE_URL to the test cluster):
 // seeds 100,000 inspections with 2,000,000 steps into a separate database in the same cluster
 // (rigcall_bench; reused once seeded), then times the reports-table query (one page + the total,
 // as GET /api/reports runs them) and the report-detail query (as GET /api/reports/[id] reads the
@@ -35,7 +36,7 @@ pg.types.setTypeParser(pg.types.builtins.NUMERIC, (v) => Number(v));
 
 const baseUrl = process.env.DATABASE_URL;
 if (!baseUrl)
-  throw new Error('DATABASE_URL is not set: run through `node scripts/stack.mjs exec --test -- npm run bench:office`');
+  throw new Error('DATABASE_URL is not set: run `npm run bench:office`, which sets it through scripts/stack.mjs');
 const withDb = (name: string) => {
   const u = new URL(baseUrl);
   u.pathname = `/${name}`;

@@ -1,6 +1,7 @@
 import 'server-only';
 import { sql, type Selectable } from 'kysely';
 import type { Inspection, Unit } from '@/db/schema';
+import type { AttentionReason, AttentionRow } from '@/lib/schemas/dashboard';
 import type { DB } from './index';
 
 /** Every unit with its status, last inspection and open defects, for the supervisor's board. */
@@ -34,8 +35,6 @@ export async function listUnitBoardRows(db: DB, { fleetId }: { fleetId: string }
   return rows.rows;
 }
 
-export type AttentionReason = 'major_defect' | 'short' | 'zones_skipped' | 'low_confidence' | 'no_post_trip';
-
 /**
  * Submitted reports of the last `days` days that need a look, with their reasons: a major
  * defect, shorter than the fleet minimum, fewer zones than the configuration has, a
@@ -57,7 +56,7 @@ export async function listAttentionRows(
 ) {
   const rows = await sql<{
     id: string;
-    kind: string;
+    kind: Inspection['kind'];
     startedAt: Date;
     durationS: number | null;
     driverName: string;
@@ -99,7 +98,7 @@ export async function listAttentionRows(
     WHERE major OR short OR zones_walked < zones_expected OR low_confidence > 0 OR no_post_trip
     ORDER BY reviewed_at IS NOT NULL, major DESC, started_at DESC
     LIMIT 60`.execute(db);
-  return rows.rows.map((r) => {
+  return rows.rows.map((r): AttentionRow => {
     const reasons: AttentionReason[] = [];
     if (r.major) reasons.push('major_defect');
     if (r.short) reasons.push('short');

@@ -1,7 +1,6 @@
 import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import { fetchJson } from '@/lib/http/fetch-json';
-import type { CertifyRepairBody } from '@/lib/schemas/defects';
-import type { DefectDetail } from '@/lib/services/defects/get-defect-or-throw';
+import type { CertifyRepairBody, DefectDetail } from '@/lib/schemas/defects';
 import { reportKeys } from './reports';
 
 export const defectKeys = {

@@ -1,7 +1,6 @@
 import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import { fetchJson } from '@/lib/http/fetch-json';
-import type { ListReportsQuery, ReportPage, ReviewReportBody } from '@/lib/schemas/reports';
-import type { ReportDetail } from '@/lib/services/reports/get-report-detail';
+import type { ListReportsQuery, ReportDetail, ReportPage, ReviewReportBody } from '@/lib/schemas/reports';
 
 export type ReportListParams = Partial<Record<keyof ListReportsQuery, string | number>>;
 

@@ -55,3 +55,52 @@ export type DefectQueueRow = {
   certifiedAt: string | null;
   photoCount: number;
 };
+
+/** One unit's defects in the mechanic's queue. */
+export type DefectQueueGroup = {
+  unitId: string;
+  unitNumber: string;
+  unitKind: 'tractor' | 'trailer';
+  unitStatus: 'in_service' | 'out_of_service';
+  major: DefectQueueRow[];
+  minor: DefectQueueRow[];
+};
+
+/** One defect with its finding, repair and photos, as GET /api/defects/[id] answers. */
+export type DefectDetail = {
+  id: string;
+  unitId: string;
+  unitNumber: string;
+  unitKind: 'tractor' | 'trailer';
+  unitStatus: 'in_service' | 'out_of_service';
+  unitMake: string | null;
+  unitModel: string | null;
+  zone: string;
+  component: string;
+  condition: string;
+  position: string | null;
+  severity: 'minor' | 'major';
+  description: string;
+  status: 'open' | 'repaired' | 'no_repair_needed';
+  reportedAt: string;
+  inspectionId: string;
+  inspectionKind: 'pre_trip' | 'post_trip';
+  inspectedAt: string;
+  odometer: number | null;
+  location: string | null;
+  driverName: string;
+  finding: {
+    heard: string | null;
+    score: number | null;
+    resolution: 'auto' | 'confirmed' | 'corrected' | null;
+    measurementKind: string | null;
+    value: number | null;
+    unit: string | null;
+    limitText: string | null;
+    source: string | null;
+    verdict: 'pass' | 'fail' | null;
+  };
+  repair: { work: string | null; parts: string | null; notes: string | null };
+  certification: { name: string | null; at: string; text: string | null } | null;
+  photos: { id: string; contentType: string; url: string }[];
+};

@@ -3,7 +3,7 @@ import type { ReactNode } from 'react';
 import { officeButtonClass, panelClass } from '@/components/admin/office-controls';
 import { roleLabel, roles } from '@/lib/auth/roles';
 import { ruleProfileLabel } from '@/lib/schemas/fleet';
-import type { AdminSummary } from '@/lib/services/people/get-admin-summary';
+import type { AdminSummary } from '@/lib/schemas/admin';
 
 const actionWords: Record<string, string> = {
   'user.invited': 'invited',

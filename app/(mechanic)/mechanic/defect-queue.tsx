@@ -1,8 +1,7 @@
 import Link from 'next/link';
 import { formatDateTime, zoneLabel } from '@/components/office/format';
 import { MajorMark, MinorMark, UnitStatusBadge } from '@/components/office/severity-mark';
-import type { DefectQueueRow } from '@/lib/schemas/defects';
-import type { DefectQueueGroup } from '@/lib/services/defects/list-defect-queue';
+import type { DefectQueueGroup, DefectQueueRow } from '@/lib/schemas/defects';
 
 function Row({ d }: { d: DefectQueueRow }) {
   return (

@@ -1,6 +1,6 @@
 import Link from 'next/link';
 import { formatDateTime, formatDuration, kindLabel } from '@/components/office/format';
-import type { SupervisorBoard } from '@/lib/services/units/get-supervisor-board';
+import type { SupervisorBoard } from '@/lib/schemas/dashboard';
 
 const reasonText: Record<string, string> = {
   major_defect: 'major defect',

@@ -1,7 +1,7 @@
 import Link from 'next/link';
 import { formatAge, formatDateTime, kindLabel } from '@/components/office/format';
 import { UnitStatusBadge } from '@/components/office/severity-mark';
-import type { SupervisorBoard } from '@/lib/services/units/get-supervisor-board';
+import type { SupervisorBoard } from '@/lib/schemas/dashboard';
 
 export function UnitsBoard({ units, timezone }: { units: SupervisorBoard['units']; timezone: string }) {
   const out = units.filter((u) => u.status === 'out_of_service').length;

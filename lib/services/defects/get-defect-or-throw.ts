@@ -2,9 +2,10 @@ import 'server-only';
 import { getDb } from '@/lib/db';
 import { findDefectDetail, listDefectPhotos } from '@/lib/db/defects';
 import { AppError } from '@/lib/errors';
+import type { DefectDetail } from '@/lib/schemas/defects';
 
 /** One defect of the caller's fleet with its finding and photos; another fleet's is not found. */
-export async function getDefectOrThrow({ fleetId, id }: { fleetId: string; id: string }) {
+export async function getDefectOrThrow({ fleetId, id }: { fleetId: string; id: string }): Promise<DefectDetail> {
   const db = getDb();
   const d = await findDefectDetail(db, { fleetId, id });
   if (!d) throw new AppError('not_found', 'No such defect in your fleet.');
@@ -49,5 +50,3 @@ export async function getDefectOrThrow({ fleetId, id }: { fleetId: string; id: s
     photos: photos.map((p) => ({ id: p.id, contentType: p.contentType, url: `/api/attachments/${p.id}` })),
   };
 }
-
-export type DefectDetail = Awaited<ReturnType<typeof getDefectOrThrow>>;

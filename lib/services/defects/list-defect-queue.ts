@@ -1,16 +1,7 @@
 import 'server-only';
 import { getDb } from '@/lib/db';
 import { listDefectRows } from '@/lib/db/defects';
-import type { DefectQueueRow, ListDefectsQuery } from '@/lib/schemas/defects';
-
-export type DefectQueueGroup = {
-  unitId: string;
-  unitNumber: string;
-  unitKind: 'tractor' | 'trailer';
-  unitStatus: 'in_service' | 'out_of_service';
-  major: DefectQueueRow[];
-  minor: DefectQueueRow[];
-};
+import type { DefectQueueGroup, ListDefectsQuery } from '@/lib/schemas/defects';
 
 /** The mechanic's queue: defects grouped by unit, out-of-service units first, major before minor. */
 export async function listDefectQueue({ fleetId, query }: { fleetId: string; query: ListDefectsQuery }) {

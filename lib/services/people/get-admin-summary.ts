@@ -4,9 +4,10 @@ import { findFleet, findFleetSettings } from '@/lib/db/fleets';
 import { countFleetUnits } from '@/lib/db/units';
 import { countFleetUsers } from '@/lib/db/users';
 import { AppError } from '@/lib/errors';
+import type { AdminSummary } from '@/lib/schemas/admin';
 
 /** What the admin overview shows: people by role, units by state, the current settings. */
-export async function getAdminSummary({ fleetId }: { fleetId: string }) {
+export async function getAdminSummary({ fleetId }: { fleetId: string }): Promise<AdminSummary> {
   const db = getDb();
   const [fleet, place, users, units, recent] = await Promise.all([
     findFleetSettings(db, { fleetId }),
@@ -33,4 +34,3 @@ export async function getAdminSummary({ fleetId }: { fleetId: string }) {
     recent: recent.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() })),
   };
 }
-export type AdminSummary = Awaited<ReturnType<typeof getAdminSummary>>;

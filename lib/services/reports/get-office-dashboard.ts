@@ -1,6 +1,7 @@
 import 'server-only';
 import vocabulary from '@/grammars/vocabulary.json' with { type: 'json' };
 import { getDb } from '@/lib/db';
+import type { OfficeDashboard } from '@/lib/schemas/dashboard';
 import { listDefectsByWeek, listDurationCounts, listFirstTryByZone, listOpenMajorByDay } from '@/lib/db/dashboard';
 import { getFleetMinimumsOrThrow } from './list-reports';
 import { getDefaultGrammar } from '@/lib/db/vocabulary';
@@ -26,7 +27,7 @@ export async function getOfficeDashboard({
   fleetId: string;
   weeks?: number;
   days?: number;
-}) {
+}): Promise<OfficeDashboard> {
   const db = getDb();
   const fleet = await getFleetMinimumsOrThrow(fleetId);
   const [byWeek, openMajor, durations, firstTry] = await Promise.all([
@@ -79,5 +80,3 @@ export async function getOfficeDashboard({
     recognition,
   };
 }
-
-export type OfficeDashboard = Awaited<ReturnType<typeof getOfficeDashboard>>;

@@ -184,4 +184,3 @@ export async function getReportDetail({
     timezone: fleet.timezone,
   };
 }
-

@@ -2,7 +2,8 @@ import 'server-only';
 import { createRequire } from 'node:module';
 import path from 'node:path';
 import type PDFKit from 'pdfkit';
-import { getReportDetail, type ReportDetail } from './get-report-detail';
+import type { ReportDetail } from '@/lib/schemas/reports';
+import { getReportDetail } from './get-report-detail';
 
 // pdfkit reads its font metrics from files beside its own code, so it is loaded at run time from
 // node_modules rather than bundled.

@@ -1,5 +1,6 @@
 import 'server-only';
 import { getDb } from '@/lib/db';
+import type { SupervisorBoard } from '@/lib/schemas/dashboard';
 import { listAttentionRows, listUnitBoardRows } from '@/lib/db/dashboard';
 import { LOW_CONFIDENCE } from '../reports/get-report-detail';
 import { getFleetMinimumsOrThrow } from '../reports/list-reports';
@@ -24,7 +25,7 @@ export async function getSupervisorBoard({
   fleetId: string;
   days?: number;
   now?: Date;
-}) {
+}): Promise<SupervisorBoard> {
   const db = getDb();
   const fleet = await getFleetMinimumsOrThrow(fleetId);
   const [units, attention] = await Promise.all([
@@ -67,5 +68,3 @@ export async function getSupervisorBoard({
     days,
   };
 }
-
-export type SupervisorBoard = Awaited<ReturnType<typeof getSupervisorBoard>>;

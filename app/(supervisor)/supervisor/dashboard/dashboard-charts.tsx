@@ -12,7 +12,7 @@ import {
   XAxis,
   YAxis,
 } from 'recharts';
-import type { OfficeDashboard } from '@/lib/services/reports/get-office-dashboard';
+import type { OfficeDashboard } from '@/lib/schemas/dashboard';
 
 // Axis and text colours come from the theme tokens, so the charts follow day and night.
 const ink = 'rgb(var(--ink))';

@@ -7,7 +7,7 @@ import { formatDateTime, formatDuration, formatTime, kindLabel } from '@/compone
 import { useHydrated } from '@/components/ui/use-hydrated';
 import { MajorMark, MinorMark, PassMark, SeverityMark, UnitStatusBadge } from '@/components/office/severity-mark';
 import { reportDetailOptions, useNotifyShopMutation, useReviewReportMutation } from '@/lib/queries/reports';
-import type { ReportDetail } from '@/lib/services/reports/get-report-detail';
+import type { ReportDetail } from '@/lib/schemas/reports';
 import { Transcript } from './transcript';
 
 function Field({ label, children }: { label: string; children: React.ReactNode }) {

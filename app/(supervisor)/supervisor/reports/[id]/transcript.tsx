@@ -2,7 +2,7 @@
 
 import { formatDuration, formatTime } from '@/components/office/format';
 import { MinorMark, PassMark, SeverityMark } from '@/components/office/severity-mark';
-import type { ReportDetail } from '@/lib/services/reports/get-report-detail';
+import type { ReportDetail } from '@/lib/schemas/reports';
 
 type Step = ReportDetail['zones'][number]['steps'][number];
 
