@@ -48,8 +48,10 @@ export async function loadWalkOrNull(
   ]);
   const grammar = version?.grammar ?? getDefaultGrammar();
   // The version's own zone checklists (a trainer may have changed them).
-  const kind = inspection.kind === 'post_trip' ? ('post_trip' as const) : ('pre_trip' as const);
-  const zones = listWalkZones(grammar.zones, { kind, configuration: configurationOf(!!inspection.trailerId) });
+  const zones = listWalkZones(grammar.zones, {
+    kind: inspection.kind,
+    configuration: configurationOf(!!inspection.trailerId),
+  });
   // "photo" steps are an old kind no phone sends any more.
   const serverSteps: WalkStep[] = rows
     .flatMap((r) => (r.kind === 'photo' ? [] : [{ ...r, kind: r.kind }]))
