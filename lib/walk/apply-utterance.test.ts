@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import zonesGrammar from '@/grammars/zones.json' with { type: 'json' };
 import vocabularyFile from '@/grammars/vocabulary.json' with { type: 'json' };
 import { matchUtterance } from '@/lib/matcher';
-import type { Vocabulary, Zones } from '@/lib/schemas/grammar';
+import type { Vocabulary, ZoneItem, Zones } from '@/lib/schemas/grammar';
 import {
   applyUtterance,
   isBareAcknowledgement,
@@ -10,14 +10,15 @@ import {
   type StepDraft,
   type WalkContext,
 } from './apply-utterance';
+import type { CheckContext } from './check-input';
 import { DEFAULT_REQUIRED_READINGS, isRequiredItem, listWalkZones } from './zones';
 
 const zones = listWalkZones(zonesGrammar as Zones, { kind: 'pre_trip', configuration: 'tractor_trailer' });
 const vocabulary = vocabularyFile as unknown as Vocabulary;
-const checkContext = {
+const checkContext: CheckContext = {
   tractorAxles: [
-    { position: 'steer' as const, tires: ['LF', 'RF'], coldPsi: 110, chamber: '24' },
-    { position: 'drive' as const, tires: ['LFO', 'LFI', 'RFI', 'RFO'], coldPsi: 100, chamber: '30' },
+    { position: 'steer', tires: ['LF', 'RF'], coldPsi: 110, chamber: '24' },
+    { position: 'drive', tires: ['LFO', 'LFI', 'RFI', 'RFO'], coldPsi: 100, chamber: '30' },
   ],
   trailerAxles: [],
   hasTrailer: true,
@@ -37,8 +38,7 @@ function walkIn(zoneId: string, before: StepDraft[] = [], pending: WalkContext['
     vocabulary,
     profile: 'us-federal',
     checkContext,
-    isRequired: (i: { measure?: string }) =>
-      isRequiredItem(i as never, { kind: 'pre_trip', requiredReadings: DEFAULT_REQUIRED_READINGS }),
+    isRequired: (i: ZoneItem) => isRequiredItem(i, { kind: 'pre_trip', requiredReadings: DEFAULT_REQUIRED_READINGS }),
   };
   const say = (text: string) =>
     applyUtterance(ctx, matchUtterance(text, { zone: zoneId }), { alternatives: [text], inputMode: 'voice' });

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { DEFAULT_TIRE_PRESSURE_TOLERANCE_PSI, judgeReading } from './check-input';
+import { DEFAULT_TIRE_PRESSURE_TOLERANCE_PSI, judgeReading, type CheckContext } from './check-input';
 
-const ctx = {
-  tractorAxles: [{ position: 'steer' as const, tires: ['LF', 'RF'], coldPsi: 110, chamber: '24' }],
+const ctx: CheckContext = {
+  tractorAxles: [{ position: 'steer', tires: ['LF', 'RF'], coldPsi: 110, chamber: '24' }],
   trailerAxles: [],
   hasTrailer: false,
   trailerYear: null,

@@ -10,6 +10,19 @@ export const certificationStatement =
 
 export const REPORT_FORMAT = 2;
 
+/**
+ * Whether a typed signature names the signed-in account: the same words, whatever the case and
+ * spacing. Reports, acknowledgements and repair certifications are signed only this way.
+ */
+export function isSameSignerName(typed: string, accountName: string): boolean {
+  const norm = (s: string) => s.trim().replace(/\s+/g, ' ').toLowerCase();
+  return norm(typed) === norm(accountName);
+}
+
+/** The refusal a person sees when the typed name is not the account's. */
+export const signerNameMessage = (accountName: string) =>
+  `Sign with your name as it is on your account: ${accountName}.`;
+
 export type CanonicalStep = {
   id: string;
   seq: number;

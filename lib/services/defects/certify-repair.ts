@@ -5,6 +5,7 @@ import { AppError } from '@/lib/errors';
 import { renderBackInServiceMail } from '@/lib/mail/templates';
 import { getUnitServiceStatus, type DefectRecord } from '@/lib/rules';
 import { repairCertificationStatement, type CertifyRepairBody } from '@/lib/schemas/defects';
+import { isSameSignerName, signerNameMessage } from '@/lib/walk';
 import { appUrl, sendUnitStatusMail } from '../mail/send-unit-status-mail';
 
 type Row = { id: string; unitId: string; severity: string; status: string; certifiedAt: Date | null };
@@ -30,14 +31,19 @@ const toRecord = (d: Row): DefectRecord => ({
 export async function certifyRepair({
   fleetId,
   actorId,
+  actorName,
   id,
   body,
 }: {
   fleetId: string;
   actorId: string;
+  /** The signed-in mechanic's name: the certification is signed with it and no other. */
+  actorName: string;
   id: string;
   body: CertifyRepairBody;
 }) {
+  if (!isSameSignerName(body.certifiedName, actorName))
+    throw new AppError('invalid_body', signerNameMessage(actorName), { certifiedName: [`Type ${actorName}.`] });
   const at = new Date();
   const result = await getDb()
     .transaction()

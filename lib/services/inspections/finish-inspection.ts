@@ -11,12 +11,14 @@ import {
   configurationOf,
   DEFAULT_REQUIRED_READINGS,
   hashReport,
+  isSameSignerName,
   isTrailerItem,
   listDefectSteps,
   listOpenItems,
   listWalkZones,
   QUEUED_OFFLINE_AFTER_MS,
   REPORT_FORMAT,
+  signerNameMessage,
 } from '@/lib/walk';
 import { renderOutOfServiceMail } from '@/lib/mail/templates';
 import { deliverOutbox } from '../mail/deliver-outbox';
@@ -24,9 +26,6 @@ import { recordAudit } from '../platform/record-audit';
 import { loadGrammar } from '../vocabulary/resolve-vocabulary';
 
 export { certificationStatement };
-
-const sameName = (a: string, b: string) =>
-  a.trim().replace(/\s+/g, ' ').toLowerCase() === b.trim().replace(/\s+/g, ' ').toLowerCase();
 
 /**
  * Sign and lock the report: defects are created from what the walk recorded (less what was
@@ -56,8 +55,8 @@ export async function finishInspection({
       if (inspection.driverId !== actorId)
         throw new AppError('forbidden', 'Only the driver who did this inspection signs it.');
       if (inspection.status === 'submitted') return { inspectionId, alreadySigned: true, outOfService: [] as string[] };
-      if (!sameName(body.signatureName, actorName)) {
-        throw new AppError('invalid_body', `Sign with your name as it is on your account: ${actorName}.`, {
+      if (!isSameSignerName(body.signatureName, actorName)) {
+        throw new AppError('invalid_body', signerNameMessage(actorName), {
           signatureName: [`Type ${actorName}.`],
         });
       }

@@ -4,6 +4,7 @@ import { findFleetSettings } from '@/lib/db/fleets';
 import { findFleetUnit } from '@/lib/db/units';
 import { AppError } from '@/lib/errors';
 import type { AcknowledgeBody } from '@/lib/schemas/inspections';
+import { isSameSignerName, signerNameMessage } from '@/lib/walk';
 import { findUnitReview } from './find-unit-review';
 import { recordAudit } from '../platform/record-audit';
 
@@ -47,8 +48,8 @@ export async function recordAcknowledgement({
           `That is no longer the last report of unit ${unit.unitNumber}; review the newest one.`,
         );
       }
-      if (body.signatureName.trim().toLowerCase() !== actorName.trim().toLowerCase()) {
-        throw new AppError('invalid_body', `Sign with your name as it is on your account: ${actorName}.`, {
+      if (!isSameSignerName(body.signatureName, actorName)) {
+        throw new AppError('invalid_body', signerNameMessage(actorName), {
           signatureName: [`Type ${actorName}.`],
         });
       }

@@ -35,6 +35,7 @@ describe('GET /api/reports/[id]/pdf', () => {
     await certifyRepair({
       fleetId: f.fleet.id,
       actorId: f.mechanic.id,
+      actorName: f.mechanic.name,
       id: report.defects[0]!.id,
       body: {
         outcome: 'repaired',

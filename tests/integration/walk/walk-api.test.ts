@@ -14,6 +14,7 @@ import { makeFleetFixture, type FleetFixture } from '../../setup/fleet-fixture';
 import { callRoute, makeRequest } from '../../setup/session';
 import { getTestDb } from '../../setup/test-db';
 import { readError, readJson } from '../../setup/read-json';
+import { answerEveryItem } from '../../setup/walk-answers';
 
 /** What these tests read of the answers (the assertions check the values). */
 type StepBody = { step: { severity: string | null } & Record<string, unknown> };
@@ -270,6 +271,9 @@ describe('the walk through the API', () => {
   });
 
   it('signs and locks: defects created, unit out of service, maintenance mailed', async () => {
+    // Every item answered first: signing is refused while one is open.
+    for (const body of answerEveryItem({ kind: 'pre_trip', hasTrailer: true, fromSeq: 20 }))
+      expect((await step(inspectionId, body)).status).toBe(201);
     const wrongName = await callRoute(
       finish.POST,
       makeRequest(`/api/inspections/${inspectionId}/finish`, {
@@ -331,13 +335,17 @@ describe('the walk through the API', () => {
       .where('action', '=', 'inspection.change_refused')
       .execute();
     expect(logged.length).toBe(1);
-    // A replay of a step that was already recorded is still harmless.
+    // A replay of a step that was already recorded (the same payload) is still harmless.
     const replay = await step(inspectionId, {
       id: finding,
       seq: 1,
       zone: 'front',
       kind: 'defect',
+      heard: 'bulge on the left steer tire',
       termKey: 'steer_tire:bulge',
+      position: 'left',
+      score: 0.97,
+      resolution: 'auto',
     });
     expect(replay.status).toBe(200);
   });
@@ -484,12 +492,16 @@ describe('signing names every step the phone recorded', () => {
         })
       ).status,
     ).toBe(201);
-    const signed = await sign([first, second, neverArrived]);
+    // The rest of the walk, every item answered (the front was answered by the step that arrived late).
+    const rest = answerEveryItem({ kind: 'pre_trip', hasTrailer: false, fromSeq: 3, skipZones: ['front'] });
+    for (const body of rest) expect((await record(body)).status).toBe(201);
+    const all = [first, second, neverArrived, ...rest.map((b) => b.id as string)];
+    const signed = await sign(all);
     expect(signed.status).toBe(200);
     const held = await db.selectFrom('inspectionStep').select('id').where('inspectionId', '=', inspectionId).execute();
-    expect(held.map((r) => r.id).sort()).toEqual([first, second, neverArrived].sort());
+    expect(held.map((r) => r.id).sort()).toEqual(all.sort());
     // Sent again after the lock (the phone did not hear the answer): the same report, unchanged.
-    expect((await sign([first, second, neverArrived])).status).toBe(200);
+    expect((await sign(all)).status).toBe(200);
   });
 });
 
@@ -531,6 +543,8 @@ describe('steps racing the signature', () => {
     );
     expect(begin.status).toBe(201);
     expect((await post({ id: randomUUID(), seq: 0, zone: 'front', kind: 'visit' })).status).toBe(201);
+    for (const body of answerEveryItem({ kind: 'pre_trip', hasTrailer: false, fromSeq: 100 }))
+      expect((await post(body)).status).toBe(201);
     const racing = Array.from({ length: 40 }, (_x, i) => ({
       id: randomUUID(),
       seq: i + 1,
@@ -559,7 +573,11 @@ describe('steps racing the signature', () => {
       .selectFrom('inspectionStep')
       .select('id')
       .where('inspectionId', '=', inspectionId)
-      .where('kind', '=', 'zone_ok')
+      .where(
+        'id',
+        'in',
+        racing.map((b) => b.id),
+      )
       .execute();
     expect(held.map((r) => r.id).sort()).toEqual(accepted.sort());
     const integrity = await callRoute(

@@ -7,7 +7,10 @@ import { certifyRepair } from '@/lib/services/defects/certify-repair';
 export const POST = defineRoute(
   { roles: ['mechanic'], params: idParamsSchema, body: certifyRepairBodySchema },
   async ({ user, params, body }) =>
-    Response.json(await certifyRepair({ fleetId: user.fleetId, actorId: user.id, id: params.id, body }), {
-      status: 201,
-    }),
+    Response.json(
+      await certifyRepair({ fleetId: user.fleetId, actorId: user.id, actorName: user.name, id: params.id, body }),
+      {
+        status: 201,
+      },
+    ),
 );
