@@ -13,6 +13,13 @@ const envSchema = z.object({
   S3_BUCKET: z.string().min(3),
   S3_ACCESS_KEY_ID: z.string().min(1),
   S3_SECRET_ACCESS_KEY: z.string().min(1),
+  // How many proxies in front of the app append to X-Forwarded-For (0: the header is not trusted).
+  TRUSTED_PROXY_COUNT: z.coerce
+    .number()
+    .int()
+    .min(0, 'TRUSTED_PROXY_COUNT must be 0 or more')
+    .max(10, 'TRUSTED_PROXY_COUNT must be at most 10')
+    .default(0),
   S3_FORCE_PATH_STYLE: z
     .enum(['true', 'false'])
     .default('false')

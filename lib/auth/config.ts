@@ -8,8 +8,9 @@ import { bumpSessionVersion, findUserForSignIn, recordSignIn } from '@/lib/db/us
 import type { SessionUser } from '@/lib/schemas/session';
 import {
   clearSignInFailures,
-  findSignInLockout,
+  findSignInDelay,
   readClientAddress,
+  signInKeys,
   recordSignInFailure,
   SignInLockedError,
 } from './rate-limit';
@@ -67,9 +68,9 @@ export const authOptions: NextAuthOptions = {
       async authorize(raw, req) {
         const parsed = credentialsSchema.safeParse(raw);
         if (!parsed.success) return null;
-        // Throttled per account and per address before the password is even compared.
-        const keys = { account: parsed.data.email, address: readClientAddress(req?.headers) };
-        const wait = await findSignInLockout(keys);
+        // Throttled per account (and address, behind a trusted proxy) before the password is even compared.
+        const keys = signInKeys(parsed.data.email, readClientAddress(req?.headers));
+        const wait = await findSignInDelay(keys);
         if (wait > 0) throw new SignInLockedError(wait);
         const user = await findUserForSignIn(parsed.data.email);
         // Compare against a dummy hash when the user is unknown, so timing does not tell.
