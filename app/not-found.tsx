@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { slabClass } from '@/components/ui/slab-button';
+import { buttonClass } from '@/components/ui/button';
 
 export const metadata: Metadata = { title: 'Not found' };
 
@@ -13,7 +13,7 @@ export default function NotFound() {
       <p className="text-xl">
         The screen or record is not here: the link may be mistyped, or the record belongs to another fleet.
       </p>
-      <Link href="/go" className={slabClass('primary')}>
+      <Link href="/go" className={buttonClass('primary')}>
         Go to my screens
       </Link>
     </main>

@@ -1,7 +1,8 @@
 import Link from 'next/link';
 import { ThemeToggle } from '@/components/app-shell/theme-toggle';
-import { slabClass } from '@/components/ui/slab-button';
+import { buttonClass } from '@/components/ui/button';
 import { findPageUser } from '@/lib/auth/guards';
+import { Panel } from '@/components/ui/panel';
 
 export default async function HomePage() {
   const user = await findPageUser();
@@ -23,27 +24,27 @@ export default async function HomePage() {
       </section>
       <div className="space-y-3">
         {user ? (
-          <Link href="/go" className={slabClass('primary')}>
+          <Link href="/go" className={buttonClass('primary')}>
             Continue as {user.name}
           </Link>
         ) : (
-          <Link href="/sign-in" className={slabClass('primary')}>
+          <Link href="/sign-in" className={buttonClass('primary')}>
             Sign in
           </Link>
         )}
       </div>
       <ul className="space-y-3 text-lg">
-        <li className="rounded-lg border-slab border-edge bg-panel p-4">
+        <Panel as="li">
           <span className="font-bold">Drivers:</span> pre-trip and post-trip walk-arounds by voice, photos of defects,
           the last report reviewed before you drive.
-        </li>
-        <li className="rounded-lg border-slab border-edge bg-panel p-4">
+        </Panel>
+        <Panel as="li">
           <span className="font-bold">Mechanics:</span> the open-defect queue, repairs recorded and certified.
-        </li>
-        <li className="rounded-lg border-slab border-edge bg-panel p-4">
+        </Panel>
+        <Panel as="li">
           <span className="font-bold">Supervisors:</span> every report and its transcript of findings, units out of
           service, records ready for an audit.
-        </li>
+        </Panel>
       </ul>
       <p className="text-base text-muted">
         Local regulations and your carrier&apos;s licensed maintenance practice decide what may be driven. RigCall

@@ -3,6 +3,7 @@ import type { SessionUser } from '@/lib/schemas/session';
 import { roleHome, roleLabel, roles, type Role } from '@/lib/auth/roles';
 import { SignOutButton } from './sign-out-button';
 import { ThemeToggle } from './theme-toggle';
+import { buttonClass } from '@/components/ui/button';
 
 /** The bar on every signed-in screen: who you are, which view, switch view, theme, sign out. */
 export function AppHeader({ user, view }: { user: SessionUser; view: Role }) {
@@ -24,11 +25,7 @@ export function AppHeader({ user, view }: { user: SessionUser; view: Role }) {
             {views
               .filter((r) => r !== view)
               .map((r) => (
-                <Link
-                  key={r}
-                  href={roleHome[r]}
-                  className="flex min-h-target items-center rounded-lg border-slab border-edge px-4 text-lg font-bold"
-                >
+                <Link key={r} href={roleHome[r]} className={buttonClass('plain', 'touch')}>
                   {roleLabel[r]} view
                 </Link>
               ))}

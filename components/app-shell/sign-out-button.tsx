@@ -1,15 +1,12 @@
 'use client';
 
 import { signOut } from 'next-auth/react';
+import { Button } from '@/components/ui/button';
 
 export function SignOutButton() {
   return (
-    <button
-      type="button"
-      className="min-h-target rounded-lg border-slab border-edge bg-panel px-4 text-lg font-bold"
-      onClick={() => void signOut({ callbackUrl: '/sign-in?signedOut=1' })}
-    >
+    <Button size="touch" onClick={() => void signOut({ callbackUrl: '/sign-in?signedOut=1' })}>
       Sign out
-    </button>
+    </Button>
   );
 }

@@ -1,6 +1,7 @@
 'use client';
 
 import { useEffect, useState } from 'react';
+import { Button } from '@/components/ui/button';
 
 type Theme = 'day' | 'night';
 
@@ -16,9 +17,8 @@ export function ThemeToggle() {
   useEffect(() => setTheme(currentTheme()), []);
   const next: Theme = theme === 'night' ? 'day' : 'night';
   return (
-    <button
-      type="button"
-      className="min-h-target min-w-target rounded-lg border-slab border-edge bg-panel px-4 text-lg font-bold"
+    <Button
+      size="touch"
       aria-label={`Switch to ${next} theme`}
       onClick={() => {
         document.documentElement.dataset.theme = next;
@@ -27,6 +27,6 @@ export function ThemeToggle() {
       }}
     >
       {theme === null ? 'Theme' : next === 'night' ? '☾ Night' : '☀ Day'}
-    </button>
+    </Button>
   );
 }

@@ -1,20 +1,8 @@
-import Link from 'next/link';
+import { NavTabs, type NavTab } from '@/components/ui/tabs';
 
-export type OfficeNavItem = { href: string; label: string };
+export type OfficeNavItem = NavTab;
 
-/** The office screens' own tab strip, under the app header. */
+/** The office screens' own tab strip, under the app header; the current screen is marked. */
 export function OfficeNav({ items, label }: { items: OfficeNavItem[]; label: string }) {
-  return (
-    <nav aria-label={label} className="-mt-2 mb-5 flex flex-wrap gap-1 border-b-2 border-edge/20 pb-2 text-base">
-      {items.map((i) => (
-        <Link
-          key={i.href}
-          href={i.href}
-          className="rounded-md px-3 py-1.5 font-bold hover:bg-panel hover:underline focus-visible:bg-panel"
-        >
-          {i.label}
-        </Link>
-      ))}
-    </nav>
-  );
+  return <NavTabs items={items} label={label} className="-mt-2 mb-5 border-b-2 border-edge/20 pb-2" />;
 }

@@ -1,10 +1,8 @@
+import { Panel } from '@/components/ui/panel';
 /** The cautions to read before anyone works on a unit. RigCall records the work; it does not make it safe. */
 export function SafetyCautions() {
   return (
-    <aside
-      aria-label="Before you work on the unit"
-      className="rounded-lg border-slab border-minor bg-panel p-4 text-base"
-    >
+    <Panel as="aside" tone="minor" aria-label="Before you work on the unit" className="text-base">
       <p className="mb-2 flex items-center gap-2 font-extrabold">
         <svg
           aria-hidden
@@ -32,6 +30,6 @@ export function SafetyCautions() {
         Local regulations and the carrier&apos;s licensed maintenance practice decide how a repair is done and whether
         the unit may be driven.
       </p>
-    </aside>
+    </Panel>
   );
 }

@@ -1,14 +1,19 @@
 'use client';
 
 import { useOpenDraftMutation } from '@/lib/queries/vocabulary';
-import { buttonClass } from './controls';
+import { buttonClass } from '@/components/ui/button';
 
 /** Opens the fleet's draft (a copy of the newest published version). */
 export function OpenDraftButton({ label = 'Open a draft' }: { label?: string }) {
   const open = useOpenDraftMutation();
   return (
     <span className="inline-flex flex-col gap-1">
-      <button type="button" className={buttonClass('primary')} disabled={open.isPending} onClick={() => open.mutate()}>
+      <button
+        type="button"
+        className={buttonClass('primary', 'compact')}
+        disabled={open.isPending}
+        onClick={() => open.mutate()}
+      >
         {open.isPending ? 'Opening…' : label}
       </button>
       {open.error && (

@@ -1,7 +1,8 @@
 'use client';
 
 import { useState } from 'react';
-import { chipClass, fieldClass, buttonClass } from './controls';
+import { buttonClass } from '@/components/ui/button';
+import { chipClass, fieldClass } from './controls';
 
 /** Spoken phrases as removable chips, with a box to add one. */
 export function PhraseList({
@@ -53,7 +54,7 @@ export function PhraseList({
           placeholder="add a phrase or synonym"
           aria-label={`New phrase for ${label}`}
         />
-        <button type="submit" className={buttonClass()} disabled={!draft.trim()}>
+        <button type="submit" className={buttonClass('plain', 'compact')} disabled={!draft.trim()}>
           Add
         </button>
       </form>

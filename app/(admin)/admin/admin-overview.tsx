@@ -1,9 +1,10 @@
 import Link from 'next/link';
 import type { ReactNode } from 'react';
-import { officeButtonClass, panelClass } from '@/components/admin/office-controls';
 import { roleLabel, roles } from '@/lib/auth/roles';
 import { ruleProfileLabel } from '@/lib/schemas/fleet';
 import type { AdminSummary } from '@/lib/schemas/admin';
+import { buttonClass } from '@/components/ui/button';
+import { panelClass } from '@/components/ui/panel';
 
 const actionWords: Record<string, string> = {
   'user.invited': 'invited',
@@ -35,12 +36,12 @@ function Card({
   children: ReactNode;
 }) {
   return (
-    <section className={`${panelClass} flex flex-col gap-3 p-4`} aria-labelledby={`card-${href}`}>
+    <section className={`${panelClass({ padding: 'none' })} flex flex-col gap-3 p-4`} aria-labelledby={`card-${href}`}>
       <h2 id={`card-${href}`} className="text-xl font-extrabold">
         {title}
       </h2>
       <div className="flex-1">{children}</div>
-      <Link href={href} className={officeButtonClass('plain')}>
+      <Link href={href} className={buttonClass('plain', 'compact')}>
         {linkLabel}
       </Link>
     </section>
@@ -114,7 +115,7 @@ export function AdminOverview({ summary }: { summary: AdminSummary }) {
           </dl>
         </Card>
       </div>
-      <section className={`${panelClass} p-4`} aria-labelledby="recent-heading">
+      <section className={`${panelClass({ padding: 'none' })} p-4`} aria-labelledby="recent-heading">
         <h2 id="recent-heading" className="mb-2 text-xl font-extrabold">
           Recent changes
         </h2>

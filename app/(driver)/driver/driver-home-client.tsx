@@ -1,7 +1,8 @@
 'use client';
 
 import Link from 'next/link';
-import { slabClass } from '@/components/ui/slab-button';
+import { buttonClass } from '@/components/ui/button';
+import { Panel } from '@/components/ui/panel';
 
 type Recent = {
   id: string;
@@ -23,10 +24,10 @@ export function DriverHomeClient({ recent }: { recent: Recent[] }) {
   return (
     <div className="flex flex-col gap-6">
       <div className="grid gap-3 sm:grid-cols-2">
-        <Link href="/driver/start?kind=pre_trip" className={slabClass('primary')}>
+        <Link href="/driver/start?kind=pre_trip" className={buttonClass('primary')}>
           Start pre-trip
         </Link>
-        <Link href="/driver/start?kind=post_trip" className={slabClass()}>
+        <Link href="/driver/start?kind=post_trip" className={buttonClass()}>
           Start post-trip
         </Link>
       </div>
@@ -34,7 +35,7 @@ export function DriverHomeClient({ recent }: { recent: Recent[] }) {
         <section className="space-y-3">
           <h2 className="text-2xl font-bold">Not signed yet</h2>
           {drafts.map((d) => (
-            <Link key={d.id} href={`/driver/inspections/${d.id}/walk`} className={slabClass()}>
+            <Link key={d.id} href={`/driver/inspections/${d.id}/walk`} className={buttonClass()}>
               Resume {kindLabel(d.kind).toLowerCase()} · unit {d.tractorNumber}
               {d.trailerNumber ? ` + ${d.trailerNumber}` : ''}
             </Link>
@@ -48,9 +49,11 @@ export function DriverHomeClient({ recent }: { recent: Recent[] }) {
           {recent
             .filter((r) => r.status === 'submitted')
             .map((r) => (
-              <li
+              <Panel
+                as="li"
+                padding="none"
                 key={r.id}
-                className="flex min-h-target flex-wrap items-center justify-between gap-2 rounded-lg border-slab border-edge bg-panel px-4 py-3 text-lg"
+                className="flex min-h-target flex-wrap items-center justify-between gap-2 px-4 py-3 text-lg"
               >
                 <span>
                   <span className="font-bold">{kindLabel(r.kind)}</span> · {r.tractorNumber}
@@ -59,7 +62,7 @@ export function DriverHomeClient({ recent }: { recent: Recent[] }) {
                 <span className={r.defectCount ? 'font-bold text-minor' : 'text-pass'}>
                   {r.defectCount ? `▲ ${r.defectCount} defect${r.defectCount > 1 ? 's' : ''}` : '✓ no defects'}
                 </span>
-              </li>
+              </Panel>
             ))}
         </ul>
       </section>

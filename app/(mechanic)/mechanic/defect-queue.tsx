@@ -1,7 +1,12 @@
 import Link from 'next/link';
-import { formatDateTime, zoneLabel } from '@/components/office/format';
-import { MajorMark, MinorMark, UnitStatusBadge } from '@/components/office/severity-mark';
+import { zoneLabel } from '@/components/office/format';
+import { SeverityMark } from '@/components/ui/severity-mark';
+import { NavTabs } from '@/components/ui/tabs';
+import { TimeStamp } from '@/components/ui/time-stamp';
+import { UnitStatus } from '@/components/ui/unit-status';
 import type { DefectQueueGroup, DefectQueueRow } from '@/lib/schemas/defects';
+import { EmptyState } from '@/components/ui/empty-state';
+import { Panel } from '@/components/ui/panel';
 
 function Row({ d }: { d: DefectQueueRow }) {
   return (
@@ -11,7 +16,9 @@ function Row({ d }: { d: DefectQueueRow }) {
         className={`grid gap-x-4 gap-y-1 px-4 py-2.5 hover:bg-ground md:grid-cols-[8.5rem_minmax(0,1fr)_15rem] ${d.severity === 'major' ? 'shadow-[inset_8px_0_0_rgb(var(--major))]' : ''}`}
         data-testid="queue-defect"
       >
-        <span className="pl-1">{d.severity === 'major' ? <MajorMark compact /> : <MinorMark />}</span>
+        <span className="pl-1">
+          <SeverityMark severity={d.severity === 'major' ? 'major' : 'minor'} compact />
+        </span>
         <span>
           <span className="font-bold">{d.description}</span>
           <span className="block text-sm text-muted capitalize">
@@ -21,13 +28,13 @@ function Row({ d }: { d: DefectQueueRow }) {
         <span className="text-sm text-muted md:text-right">
           {d.status === 'open' ? (
             <>
-              reported {formatDateTime(d.reportedAt)}
+              reported <TimeStamp iso={d.reportedAt} />
               <span className="block">by {d.driverName}</span>
             </>
           ) : (
             <>
               {d.status === 'repaired' ? 'repaired' : 'no repair needed'}: {d.certifiedName}
-              <span className="block">{formatDateTime(d.certifiedAt)}</span>
+              <TimeStamp iso={d.certifiedAt} className="block" />
             </>
           )}
           {d.photoCount > 0 && (
@@ -41,6 +48,12 @@ function Row({ d }: { d: DefectQueueRow }) {
   );
 }
 
+const statusTabs = [
+  { status: 'open', href: '/mechanic', label: 'Open' },
+  { status: 'closed', href: '/mechanic?status=closed', label: 'Certified' },
+  { status: 'all', href: '/mechanic?status=all', label: 'All' },
+];
+
 export function DefectQueue({
   groups,
   status,
@@ -50,23 +63,12 @@ export function DefectQueue({
   status: 'open' | 'closed' | 'all';
   filteredUnit: string | null;
 }) {
-  const tab = (s: string, label: string) => (
-    <Link
-      href={s === 'open' ? '/mechanic' : `/mechanic?status=${s}`}
-      aria-current={status === s ? 'page' : undefined}
-      className={`rounded-md px-3 py-1.5 font-bold ${status === s ? 'bg-ink text-ground' : 'hover:bg-panel'}`}
-    >
-      {label}
-    </Link>
-  );
   const majors = groups.reduce((n, g) => n + g.major.length, 0);
   const minors = groups.reduce((n, g) => n + g.minor.length, 0);
   return (
     <div className="space-y-4">
       <div className="flex flex-wrap items-center gap-2">
-        {tab('open', 'Open')}
-        {tab('closed', 'Certified')}
-        {tab('all', 'All')}
+        <NavTabs label="Which defects" items={statusTabs} current={statusTabs.find((t) => t.status === status)?.href} />
         <p className="ml-auto text-base text-muted">
           {groups.length} unit{groups.length === 1 ? '' : 's'} ·{' '}
           <span className="font-bold text-major">{majors} major</span> ·{' '}
@@ -82,21 +84,22 @@ export function DefectQueue({
         </p>
       </div>
       {groups.length === 0 && (
-        <p className="rounded-lg border-slab border-edge bg-panel p-6 text-lg">
-          Nothing here. No defect waits for the shop.
-        </p>
+        <Panel padding="none">
+          <EmptyState title="Nothing here. No defect waits for the shop." />
+        </Panel>
       )}
       {groups.map((g) => (
-        <section
+        <Panel
+          as="section"
+          padding="none"
           key={g.unitId}
           aria-label={`Unit ${g.unitNumber}`}
-          className="rounded-lg border-slab border-edge bg-panel"
           data-testid={`queue-unit-${g.unitNumber}`}
         >
           <header className="flex flex-wrap items-center gap-3 border-b-2 border-edge/20 px-4 py-2">
             <h2 className="text-xl font-extrabold">Unit {g.unitNumber}</h2>
             <span className="text-sm text-muted">{g.unitKind}</span>
-            <UnitStatusBadge status={g.unitStatus} />
+            <UnitStatus status={g.unitStatus} />
           </header>
           <ul className="divide-y divide-edge/15">
             {g.major.map((d) => (
@@ -106,7 +109,7 @@ export function DefectQueue({
               <Row key={d.id} d={d} />
             ))}
           </ul>
-        </section>
+        </Panel>
       ))}
     </div>
   );

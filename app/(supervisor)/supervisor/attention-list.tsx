@@ -1,6 +1,8 @@
 import Link from 'next/link';
 import { formatDateTime, formatDuration, kindLabel } from '@/components/office/format';
 import type { SupervisorBoard } from '@/lib/schemas/dashboard';
+import { EmptyState } from '@/components/ui/empty-state';
+import { Panel } from '@/components/ui/panel';
 
 const reasonText: Record<string, string> = {
   major_defect: 'major defect',
@@ -33,7 +35,7 @@ export function AttentionList({
 }) {
   const open = rows.filter((r) => !r.reviewedAt);
   return (
-    <section aria-labelledby="attention-heading" className="rounded-lg border-slab border-edge bg-panel">
+    <Panel as="section" padding="none" aria-labelledby="attention-heading">
       <header className="border-b-2 border-edge/20 px-4 py-3">
         <h2 id="attention-heading" className="text-xl font-extrabold">
           Needs a look
@@ -44,7 +46,7 @@ export function AttentionList({
         </p>
       </header>
       {rows.length === 0 ? (
-        <p className="px-4 py-6 text-muted">Nothing needs a look.</p>
+        <EmptyState title="Nothing needs a look." />
       ) : (
         <ul className="divide-y divide-edge/15">
           {rows.map((r) => (
@@ -81,6 +83,6 @@ export function AttentionList({
           ))}
         </ul>
       )}
-    </section>
+    </Panel>
   );
 }

@@ -1,13 +1,66 @@
 'use client';
 
 import { useQuery } from '@tanstack/react-query';
+import { createColumnHelper } from '@tanstack/react-table';
 import Link from 'next/link';
 import { formatDateTime } from '@/components/office/format';
 import { useHydrated } from '@/components/ui/use-hydrated';
-import { buttonClass, cardClass } from '@/components/trainer/controls';
 import { OpenDraftButton } from '@/components/trainer/open-draft-button';
 import { useVersions } from '@/components/trainer/use-draft';
 import { inboxOptions } from '@/lib/queries/vocabulary';
+import { buttonClass } from '@/components/ui/button';
+import { EmptyState } from '@/components/ui/empty-state';
+import { panelClass } from '@/components/ui/panel';
+import { Table } from '@/components/ui/table';
+import { TimeStamp } from '@/components/ui/time-stamp';
+
+type Version = ReturnType<typeof useVersions>['versions'][number];
+const col = createColumnHelper<Version>();
+
+const makeColumns = (inUseId: string | undefined) => [
+  col.accessor('label', { header: 'Label', meta: { className: 'font-bold', card: 'title' } }),
+  col.accessor('status', {
+    header: 'State',
+    cell: ({ row: { original: v } }) =>
+      v.status === 'draft' ? (
+        <span className="rounded border-2 border-dashed border-edge/60 px-1.5 text-sm font-bold">✎ DRAFT</span>
+      ) : v.id === inUseId ? (
+        <span className="rounded bg-vest px-1.5 text-sm font-bold text-on-vest">● IN USE</span>
+      ) : (
+        <span className="text-sm text-muted">published, replaced</span>
+      ),
+  }),
+  col.accessor('publishedAt', {
+    header: 'Published',
+    meta: { className: 'text-sm' },
+    cell: ({ row: { original: v } }) =>
+      v.publishedAt ? (
+        <>
+          <TimeStamp iso={v.publishedAt} />
+          {v.publishedBy ? ` · ${v.publishedBy}` : ''}
+        </>
+      ) : (
+        '—'
+      ),
+  }),
+  col.accessor('inspections', { header: 'Inspections', meta: { align: 'right', className: 'tabular-nums' } }),
+  col.display({
+    id: 'export',
+    header: 'Export',
+    meta: { className: 'text-sm' },
+    cell: ({ row: { original: v } }) => (
+      <>
+        <a className="underline" href={`/api/vocabulary/versions/${v.id}/export`}>
+          grammar
+        </a>{' '}
+        ·{' '}
+        <a className="underline" href={`/api/vocabulary/versions/${v.id}/export?file=vocabulary`}>
+          vocabulary.json
+        </a>
+      </>
+    ),
+  }),
+];
 
 export function VersionsClient() {
   const hydrated = useHydrated();
@@ -23,64 +76,26 @@ export function VersionsClient() {
   const tz = hydrated ? undefined : 'UTC';
   return (
     <div className="grid gap-4 lg:grid-cols-[2fr_1fr]">
-      <section className={cardClass} aria-labelledby="versions-title">
+      <section className={panelClass({ tone: 'quiet' })} aria-labelledby="versions-title">
         <h2 id="versions-title" className="mb-3 text-xl font-extrabold">
           Versions
         </h2>
-        <table className="w-full text-left text-base">
-          <thead className="border-b-2 border-edge/30 text-sm tracking-wide text-muted uppercase">
-            <tr>
-              <th className="py-1.5 pr-3">Label</th>
-              <th className="py-1.5 pr-3">State</th>
-              <th className="py-1.5 pr-3">Published</th>
-              <th className="py-1.5 pr-3 text-right">Inspections</th>
-              <th className="py-1.5">Export</th>
-            </tr>
-          </thead>
-          <tbody>
-            {versions.map((v) => (
-              <tr key={v.id} className="border-b border-edge/15" data-testid="version-row">
-                <td className="py-2 pr-3 font-bold">{v.label}</td>
-                <td className="py-2 pr-3">
-                  {v.status === 'draft' ? (
-                    <span className="rounded border-2 border-dashed border-edge/60 px-1.5 text-sm font-bold">
-                      ✎ DRAFT
-                    </span>
-                  ) : v.id === publishedSummary?.id ? (
-                    <span className="rounded bg-vest px-1.5 text-sm font-bold text-on-vest">● IN USE</span>
-                  ) : (
-                    <span className="text-sm text-muted">published, replaced</span>
-                  )}
-                </td>
-                <td className="py-2 pr-3 text-sm">
-                  {v.publishedAt
-                    ? `${formatDateTime(v.publishedAt, tz)}${v.publishedBy ? ` · ${v.publishedBy}` : ''}`
-                    : '—'}
-                </td>
-                <td className="py-2 pr-3 text-right tabular-nums">{v.inspections}</td>
-                <td className="py-2 text-sm">
-                  <a className="underline" href={`/api/vocabulary/versions/${v.id}/export`}>
-                    grammar
-                  </a>{' '}
-                  ·{' '}
-                  <a className="underline" href={`/api/vocabulary/versions/${v.id}/export?file=vocabulary`}>
-                    vocabulary.json
-                  </a>
-                </td>
-              </tr>
-            ))}
-            {versions.length === 0 && (
-              <tr>
-                <td colSpan={5} className="py-3 text-muted">
-                  No version yet: drivers use the built-in vocabulary. Open a draft to start.
-                </td>
-              </tr>
-            )}
-          </tbody>
-        </table>
+        <Table
+          label="Versions"
+          data={versions}
+          columns={makeColumns(publishedSummary?.id)}
+          getRowId={(v) => v.id}
+          framed={false}
+          rowProps={() => ({ 'data-testid': 'version-row' })}
+          empty={
+            <EmptyState title="No version yet: drivers use the built-in vocabulary." className="px-0">
+              Open a draft to start.
+            </EmptyState>
+          }
+        />
       </section>
       <aside className="space-y-4">
-        <section className={cardClass}>
+        <section className={panelClass({ tone: 'quiet' })}>
           <h2 className="mb-2 text-xl font-extrabold">Draft</h2>
           {draftSummary ? (
             <div className="space-y-2">
@@ -89,10 +104,10 @@ export function VersionsClient() {
                 <span className="text-sm text-muted">last saved {formatDateTime(draftSummary.updatedAt, tz)}</span>
               </p>
               <div className="flex flex-wrap gap-2">
-                <Link className={buttonClass('primary')} href="/trainer/editor">
+                <Link className={buttonClass('primary', 'compact')} href="/trainer/editor">
                   Edit the draft
                 </Link>
-                <Link className={buttonClass()} href="/trainer/evaluation">
+                <Link className={buttonClass('plain', 'compact')} href="/trainer/evaluation">
                   Evaluate &amp; publish
                 </Link>
               </div>
@@ -107,7 +122,7 @@ export function VersionsClient() {
             </div>
           )}
         </section>
-        <section className={cardClass}>
+        <section className={panelClass({ tone: 'quiet' })}>
           <h2 className="mb-2 text-xl font-extrabold">Field utterances</h2>
           <p className="text-lg">
             <span className="text-3xl font-extrabold tabular-nums" data-testid="inbox-count">
@@ -115,7 +130,7 @@ export function VersionsClient() {
             </span>{' '}
             waiting, in {inbox.data?.groups.length ?? '…'} groups
           </p>
-          <Link className={`${buttonClass()} mt-2`} href="/trainer/inbox">
+          <Link className={`${buttonClass('plain', 'compact')} mt-2`} href="/trainer/inbox">
             Open the inbox
           </Link>
         </section>

@@ -1,7 +1,7 @@
 'use client';
 
 import { useQuery } from '@tanstack/react-query';
-import { FormNotice } from '@/components/admin/field';
+import { FormNotice } from '@/components/ui/field';
 import { fleetSettingsQuery } from '@/lib/queries/admin';
 import { SettingsForm } from './settings-form';
 

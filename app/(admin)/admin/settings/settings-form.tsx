@@ -1,10 +1,9 @@
 'use client';
 
 import { useState, type FormEvent, type ReactNode } from 'react';
-import { Field, FormNotice } from '@/components/admin/field';
+import { Field, FormNotice, inputClass } from '@/components/ui/field';
 import { useHydrated } from '@/components/ui/use-hydrated';
 import { fieldsOfZod, firstError, numberOrNull, readFailure, type FieldErrors } from '@/components/admin/form-errors';
-import { inputClass, officeButtonClass, panelClass } from '@/components/admin/office-controls';
 import { useUpdateFleetSettingsMutation } from '@/lib/queries/admin';
 import {
   ruleProfileLabel,
@@ -13,6 +12,8 @@ import {
   type FleetSettings,
   type RuleProfile,
 } from '@/lib/schemas/fleet';
+import { buttonClass } from '@/components/ui/button';
+import { panelClass } from '@/components/ui/panel';
 
 const timeFormat = new Intl.DateTimeFormat('en-US', { hour: 'numeric', minute: '2-digit' });
 
@@ -72,7 +73,7 @@ export function SettingsForm({ fleet }: { fleet: FleetSettings }) {
 
   return (
     <form onSubmit={onSubmit} noValidate className="grid items-start gap-5 lg:grid-cols-2">
-      <section aria-labelledby="times-heading" className={`${panelClass} flex flex-col gap-4 p-4`}>
+      <section aria-labelledby="times-heading" className={`${panelClass({ padding: 'none' })} flex flex-col gap-4 p-4`}>
         <h2 id="times-heading" className="text-xl font-extrabold">
           Minimum inspection time
         </h2>
@@ -113,7 +114,7 @@ export function SettingsForm({ fleet }: { fleet: FleetSettings }) {
         </Field>
       </section>
 
-      <section aria-labelledby="tires-heading" className={`${panelClass} flex flex-col gap-4 p-4`}>
+      <section aria-labelledby="tires-heading" className={`${panelClass({ padding: 'none' })} flex flex-col gap-4 p-4`}>
         <h2 id="tires-heading" className="text-xl font-extrabold">
           Default cold-inflation targets
         </h2>
@@ -163,7 +164,10 @@ export function SettingsForm({ fleet }: { fleet: FleetSettings }) {
         </div>
       </section>
 
-      <section aria-labelledby="profile-heading" className={`${panelClass} flex flex-col gap-3 p-4`}>
+      <section
+        aria-labelledby="profile-heading"
+        className={`${panelClass({ padding: 'none' })} flex flex-col gap-3 p-4`}
+      >
         <h2 id="profile-heading" className="text-xl font-extrabold">
           Rule profile
         </h2>
@@ -196,7 +200,7 @@ export function SettingsForm({ fleet }: { fleet: FleetSettings }) {
         </fieldset>
       </section>
 
-      <section aria-labelledby="mail-heading" className={`${panelClass} flex flex-col gap-4 p-4`}>
+      <section aria-labelledby="mail-heading" className={`${panelClass({ padding: 'none' })} flex flex-col gap-4 p-4`}>
         <h2 id="mail-heading" className="text-xl font-extrabold">
           Where alerts go
         </h2>
@@ -235,7 +239,7 @@ export function SettingsForm({ fleet }: { fleet: FleetSettings }) {
         <div>
           <button
             type="submit"
-            className={`${officeButtonClass('primary')} min-w-60`}
+            className={`${buttonClass('primary', 'compact')} min-w-60`}
             disabled={save.isPending || !hydrated}
           >
             {save.isPending ? 'Saving…' : 'Save settings'}

@@ -1,12 +1,13 @@
 'use client';
 
 import { useState } from 'react';
-import { FormNotice } from '@/components/admin/field';
+import { FormNotice } from '@/components/ui/field';
 import { firstError, readFailure, type FieldErrors } from '@/components/admin/form-errors';
-import { officeButtonClass } from '@/components/admin/office-controls';
 import { useUpdateUserMutation } from '@/lib/queries/admin';
 import { roleLabel, type AdminUser, type Role } from '@/lib/schemas/users';
 import { RoleChoices } from './role-choices';
+import { buttonClass } from '@/components/ui/button';
+import { panelClass } from '@/components/ui/panel';
 
 const dateFormat = new Intl.DateTimeFormat('en-US', { day: 'numeric', month: 'short', year: 'numeric' });
 
@@ -76,7 +77,7 @@ export function PersonRow({ person, isSelf }: { person: AdminUser; isSelf: boole
         </div>
         <button
           type="button"
-          className={officeButtonClass('plain')}
+          className={buttonClass('plain', 'compact')}
           aria-expanded={open}
           aria-controls={editorId}
           aria-label={`${open ? 'Close' : 'Change'} ${person.name}`}
@@ -104,7 +105,7 @@ export function PersonRow({ person, isSelf }: { person: AdminUser; isSelf: boole
             />
             <button
               type="button"
-              className={officeButtonClass('primary')}
+              className={buttonClass('primary', 'compact')}
               disabled={update.isPending || roles.length === 0 || roles.join() === person.roles.join()}
               onClick={() => void save({ roles }, 'Roles saved.')}
             >
@@ -117,33 +118,37 @@ export function PersonRow({ person, isSelf }: { person: AdminUser; isSelf: boole
               <p className="text-base text-muted">You cannot deactivate your own account. Another admin can.</p>
             ) : person.active ? (
               confirming ? (
-                <div className="flex flex-col gap-2 rounded-md border-slab border-major p-3">
+                <div className={`flex flex-col gap-2 ${panelClass({ tone: 'major', padding: 'sm' })}`}>
                   <p className="text-lg">
                     Deactivate <b>{person.name}</b>? They can no longer sign in. Their inspections and records stay.
                   </p>
                   <div className="flex flex-wrap gap-2">
                     <button
                       type="button"
-                      className={officeButtonClass('danger')}
+                      className={buttonClass('danger', 'compact')}
                       disabled={update.isPending}
                       onClick={() => void save({ active: false }, 'Deactivated.')}
                     >
                       Yes, deactivate
                     </button>
-                    <button type="button" className={officeButtonClass('plain')} onClick={() => setConfirming(false)}>
+                    <button
+                      type="button"
+                      className={buttonClass('plain', 'compact')}
+                      onClick={() => setConfirming(false)}
+                    >
                       Keep active
                     </button>
                   </div>
                 </div>
               ) : (
-                <button type="button" className={officeButtonClass('plain')} onClick={() => setConfirming(true)}>
+                <button type="button" className={buttonClass('plain', 'compact')} onClick={() => setConfirming(true)}>
                   Deactivate…
                 </button>
               )
             ) : (
               <button
                 type="button"
-                className={officeButtonClass('plain')}
+                className={buttonClass('plain', 'compact')}
                 disabled={update.isPending}
                 onClick={() => void save({ active: true }, 'Reactivated.')}
               >

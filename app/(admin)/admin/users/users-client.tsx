@@ -1,11 +1,11 @@
 'use client';
 
 import { useQuery } from '@tanstack/react-query';
-import { FormNotice } from '@/components/admin/field';
-import { panelClass } from '@/components/admin/office-controls';
+import { FormNotice } from '@/components/ui/field';
 import { adminUsersQuery } from '@/lib/queries/admin';
 import { InviteForm } from './invite-form';
 import { PersonRow } from './person-row';
+import { panelClass } from '@/components/ui/panel';
 
 export function UsersClient({ selfId }: { selfId: string }) {
   const { data: users, error, isPending } = useQuery(adminUsersQuery());
@@ -20,7 +20,10 @@ export function UsersClient({ selfId }: { selfId: string }) {
         <div className="lg:col-start-2 lg:row-start-1">
           <InviteForm />
         </div>
-        <section aria-label="Everyone in the fleet" className={`${panelClass} px-4 lg:col-start-1 lg:row-start-1`}>
+        <section
+          aria-label="Everyone in the fleet"
+          className={`${panelClass({ padding: 'none' })} px-4 lg:col-start-1 lg:row-start-1`}
+        >
           {error ? <FormNotice kind="error">{error.message}</FormNotice> : null}
           {isPending ? <p className="py-4 text-lg">Loading people…</p> : null}
           <ul>

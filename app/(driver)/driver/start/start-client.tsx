@@ -2,7 +2,10 @@
 
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
-import { SlabButton, slabClass } from '@/components/ui/slab-button';
+import { Button } from '@/components/ui/button';
+import { Panel } from '@/components/ui/panel';
+import { SeverityMark } from '@/components/ui/severity-mark';
+import { UnitStatus } from '@/components/ui/unit-status';
 import { ApiError, fetchJson } from '@/lib/http/fetch-json';
 
 type UnitChoice = { id: string; unitNumber: string; status: string; label: string };
@@ -56,7 +59,11 @@ function UnitPicker({
             onClick={() => onPick(u.id)}
           >
             <span className="text-2xl font-extrabold">{u.unitNumber}</span>
-            <span className="text-base">{u.status === 'out_of_service' ? '■ OUT OF SERVICE' : u.label}</span>
+            {u.status === 'out_of_service' ? (
+              <UnitStatus status="out_of_service" />
+            ) : (
+              <span className="text-base">{u.label}</span>
+            )}
           </button>
         ))}
         {allowNone && (
@@ -102,10 +109,7 @@ function ReviewPanel({
     }
   }
   return (
-    <section
-      className="space-y-3 rounded-lg border-slab border-edge bg-panel p-4"
-      aria-label={`Last report of unit ${unitNumber}`}
-    >
+    <Panel as="section" className="space-y-3" aria-label={`Last report of unit ${unitNumber}`}>
       <h2 className="text-2xl font-extrabold">Review the last report of unit {unitNumber}</h2>
       <p className="text-lg">
         {report.kind === 'pre_trip' ? 'Pre-trip' : 'Post-trip'} by {report.driverName},{' '}
@@ -113,13 +117,9 @@ function ReviewPanel({
       </p>
       <ul className="space-y-2">
         {report.defects.map((d) => (
-          <li key={d.id} className="rounded-lg border-slab border-edge p-3 text-lg">
+          <Panel as="li" key={d.id} padding="sm" className="text-lg">
             <p className="font-bold">
-              {d.severity === 'major' ? (
-                <span className="mr-2 rounded bg-major px-2 text-on-major">■ MAJOR</span>
-              ) : (
-                <span className="mr-2 text-minor">△ minor</span>
-              )}
+              <SeverityMark severity={d.severity === 'major' ? 'major' : 'minor'} className="mr-2" />
               {d.description}
             </p>
             {d.status === 'open' ? (
@@ -131,7 +131,7 @@ function ReviewPanel({
                 {d.repairWork ? `: ${d.repairWork}` : ''}
               </p>
             )}
-          </li>
+          </Panel>
         ))}
       </ul>
       {!review.mayOperate && (
@@ -154,10 +154,10 @@ function ReviewPanel({
           ▲ {error}
         </p>
       )}
-      <SlabButton tone="primary" onClick={() => void sign()} disabled={name.trim().length < 2}>
+      <Button tone="primary" onClick={() => void sign()} disabled={name.trim().length < 2}>
         I reviewed it — sign
-      </SlabButton>
-    </section>
+      </Button>
+    </Panel>
   );
 }
 
@@ -285,14 +285,14 @@ export function StartClient({
         )}
       </div>
       {error && (
-        <p role="alert" className="rounded-lg border-slab border-major bg-panel p-4 text-lg font-bold text-major">
+        <Panel as="p" role="alert" tone="major" className="text-lg font-bold text-major">
           ▲ {error}
-        </p>
+        </Panel>
       )}
       {reviews === null ? (
-        <SlabButton tone="primary" onClick={() => void checkReviews()} disabled={busy || !tractorId}>
+        <Button tone="primary" onClick={() => void checkReviews()} disabled={busy || !tractorId}>
           Continue
-        </SlabButton>
+        </Button>
       ) : pendingReviews.length > 0 ? (
         pendingReviews.map((r) => (
           <ReviewPanel
@@ -308,9 +308,9 @@ export function StartClient({
           />
         ))
       ) : (
-        <button type="button" className={slabClass('primary')} onClick={() => void start()} disabled={busy}>
+        <Button tone="primary" onClick={() => void start()} disabled={busy}>
           {busy ? 'Starting…' : `Start the walk · ${kind === 'pre_trip' ? 'pre-trip' : 'post-trip'}`}
-        </button>
+        </Button>
       )}
     </div>
   );

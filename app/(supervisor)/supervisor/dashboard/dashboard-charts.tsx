@@ -13,6 +13,7 @@ import {
   YAxis,
 } from 'recharts';
 import type { OfficeDashboard } from '@/lib/schemas/dashboard';
+import { Panel } from '@/components/ui/panel';
 
 // Axis and text colours come from the theme tokens, so the charts follow day and night.
 const ink = 'rgb(var(--ink))';
@@ -34,11 +35,11 @@ const systemColours = [
 
 function Card({ title, note, children }: { title: string; note: string; children: ReactNode }) {
   return (
-    <section className="rounded-lg border-slab border-edge bg-panel p-4" aria-label={title}>
+    <Panel as="section" aria-label={title}>
       <h2 className="text-lg font-extrabold">{title}</h2>
       <p className="mb-2 text-sm text-muted">{note}</p>
       <div className="h-64">{children}</div>
-    </section>
+    </Panel>
   );
 }
 
@@ -116,7 +117,7 @@ export function DashboardCharts({ data }: { data: OfficeDashboard }) {
             <CartesianGrid strokeDasharray="3 3" stroke="rgb(var(--edge) / 0.15)" />
             <XAxis type="number" domain={[0, 100]} unit="%" {...axis} />
             <YAxis type="category" dataKey="zone" width={130} {...axis} />
-            <Tooltip {...tooltip} formatter={(v) => `${v}%`} />
+            <Tooltip {...tooltip} formatter={(v) => `${String(v ?? '')}%`} />
             <Bar dataKey="share" name="first try" fill="#16703e" />
           </BarChart>
         </ResponsiveContainer>

@@ -1,18 +1,17 @@
 'use client';
 
 import { useQuery } from '@tanstack/react-query';
-import {
-  createColumnHelper,
-  flexRender,
-  getCoreRowModel,
-  useReactTable,
-  type SortingState,
-} from '@tanstack/react-table';
+import { createColumnHelper, type SortingState } from '@tanstack/react-table';
 import Link from 'next/link';
 import { usePathname, useRouter, useSearchParams } from 'next/navigation';
 import { useMemo } from 'react';
-import { formatDateTime, formatDuration, kindLabel } from '@/components/office/format';
-import { MajorMark, MinorMark, PassMark } from '@/components/office/severity-mark';
+import { formatDuration, kindLabel } from '@/components/office/format';
+import { SeverityMark } from '@/components/ui/severity-mark';
+import { buttonClass } from '@/components/ui/button';
+import { EmptyState } from '@/components/ui/empty-state';
+import { Panel, panelClass } from '@/components/ui/panel';
+import { Table } from '@/components/ui/table';
+import { TimeStamp } from '@/components/ui/time-stamp';
 import { useHydrated } from '@/components/ui/use-hydrated';
 import { paramsFromSearch, reportListOptions, toReportSearch, type ReportListParams } from '@/lib/queries/reports';
 import type { ReportRow } from '@/lib/schemas/reports';
@@ -22,13 +21,14 @@ const col = createColumnHelper<ReportRow>();
 const makeColumns = (tz: string) => [
   col.accessor('startedAt', {
     header: 'Started',
+    meta: { card: 'title' },
     cell: (c) => (
       <Link
         href={`/supervisor/reports/${c.row.original.id}`}
         className="font-bold underline-offset-2 hover:underline"
         data-testid="report-link"
       >
-        {formatDateTime(c.getValue(), tz)}
+        <TimeStamp iso={c.getValue()} timeZone={tz} />
       </Link>
     ),
   }),
@@ -59,11 +59,11 @@ const makeColumns = (tz: string) => [
     header: 'Defects',
     cell: (c) => {
       const r = c.row.original;
-      if (!r.majorCount && !r.minorCount) return <PassMark label="None" />;
+      if (!r.majorCount && !r.minorCount) return <SeverityMark severity="pass" label="None" />;
       return (
         <span className="flex flex-col">
-          {r.majorCount > 0 && <MajorMark compact />}
-          {r.minorCount > 0 && <MinorMark label={`${r.minorCount} minor`} />}
+          {r.majorCount > 0 && <SeverityMark severity="major" count={r.majorCount} compact />}
+          {r.minorCount > 0 && <SeverityMark severity="minor" count={r.minorCount} label="minor" compact />}
           {r.openCount > 0 && <span className="text-sm text-muted">{r.openCount} open</span>}
         </span>
       );
@@ -82,8 +82,6 @@ const makeColumns = (tz: string) => [
       ),
   }),
 ];
-
-const sortable = new Set(['startedAt', 'kind', 'driverName', 'tractorNumber', 'durationS', 'defects']);
 
 type Option = { id: string; name?: string; unitNumber?: string; kind?: string };
 
@@ -106,20 +104,6 @@ export function ReportsClient({ drivers, units, timezone }: { drivers: Option[];
   };
 
   const sorting: SortingState = [{ id: String(params.sort ?? 'startedAt'), desc: (params.dir ?? 'desc') === 'desc' }];
-  const table = useReactTable({
-    data: data?.rows ?? [],
-    columns,
-    getCoreRowModel: getCoreRowModel(),
-    manualSorting: true,
-    manualPagination: true,
-    pageCount: data?.pageCount ?? 1,
-    state: { sorting },
-    onSortingChange: (updater) => {
-      const next = typeof updater === 'function' ? updater(sorting) : updater;
-      const s = next[0];
-      set({ sort: s?.id ?? 'startedAt', dir: s ? (s.desc ? 'desc' : 'asc') : 'desc' });
-    },
-  });
 
   const page = Number(params.page ?? 1);
   const exportHref = `/api/reports/export?${toReportSearch({ ...params, page: undefined, pageSize: undefined })}`;
@@ -129,11 +113,7 @@ export function ReportsClient({ drivers, units, timezone }: { drivers: Option[];
     <section className="space-y-4">
       <div className="flex flex-wrap items-end justify-between gap-3">
         <h1 className="text-3xl font-extrabold">Inspection reports</h1>
-        <a
-          href={exportHref}
-          className="rounded-lg border-slab border-edge bg-panel px-4 py-2 text-base font-bold hover:bg-ground"
-          download
-        >
+        <a href={exportHref} className={buttonClass('plain', 'compact')} download>
           Export CSV ({data?.total ?? '…'} reports)
         </a>
       </div>
@@ -141,7 +121,7 @@ export function ReportsClient({ drivers, units, timezone }: { drivers: Option[];
       <form
         aria-label="Filters"
         data-live={live ? 'yes' : 'no'}
-        className="grid grid-cols-[repeat(auto-fill,minmax(9.5rem,1fr))] gap-3 rounded-lg border-2 border-edge/30 bg-panel p-3"
+        className={`grid grid-cols-[repeat(auto-fill,minmax(9.5rem,1fr))] gap-3 ${panelClass({ tone: 'quiet', padding: 'sm' })}`}
         onSubmit={(e) => e.preventDefault()}
       >
         <label className="flex flex-col text-sm font-bold">
@@ -236,72 +216,36 @@ export function ReportsClient({ drivers, units, timezone }: { drivers: Option[];
       </form>
 
       {error && (
-        <p role="alert" className="rounded-lg border-slab border-major p-3 font-bold">
+        <Panel as="p" role="alert" tone="major" padding="sm" className="font-bold">
           {error.message}
-        </p>
+        </Panel>
       )}
 
-      <div className="overflow-x-auto rounded-lg border-slab border-edge bg-panel" aria-busy={isFetching}>
-        <table className="w-full min-w-[860px] text-base">
-          <thead className="text-left text-sm tracking-wide text-muted uppercase">
-            {table.getHeaderGroups().map((hg) => (
-              <tr key={hg.id} className="border-b-2 border-edge/30">
-                {hg.headers.map((h) => {
-                  const can = sortable.has(h.column.id);
-                  const dir = h.column.getIsSorted();
-                  return (
-                    <th
-                      key={h.id}
-                      className="px-3 py-2"
-                      aria-sort={dir === 'asc' ? 'ascending' : dir === 'desc' ? 'descending' : 'none'}
-                    >
-                      {can ? (
-                        <button
-                          type="button"
-                          className="inline-flex items-center gap-1 font-bold uppercase hover:text-ink"
-                          onClick={h.column.getToggleSortingHandler()}
-                        >
-                          {flexRender(h.column.columnDef.header, h.getContext())}
-                          <span aria-hidden>{dir === 'asc' ? '▲' : dir === 'desc' ? '▼' : '↕'}</span>
-                        </button>
-                      ) : (
-                        flexRender(h.column.columnDef.header, h.getContext())
-                      )}
-                    </th>
-                  );
-                })}
-              </tr>
-            ))}
-          </thead>
-          <tbody className={isFetching ? 'opacity-60' : ''}>
-            {table.getRowModel().rows.map((row) => (
-              <tr
-                key={row.id}
-                className={`border-t border-edge/15 align-top ${row.original.majorCount ? 'shadow-[inset_8px_0_0_rgb(var(--major))]' : ''}`}
-                data-testid="report-row"
-              >
-                {row.getVisibleCells().map((cell) => (
-                  <td key={cell.id} className="px-3 py-2">
-                    {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                  </td>
-                ))}
-              </tr>
-            ))}
-            {data && data.rows.length === 0 && (
-              <tr>
-                <td colSpan={columns.length} className="px-3 py-8 text-center text-muted">
-                  No report matches these filters.
-                </td>
-              </tr>
-            )}
-          </tbody>
-        </table>
-      </div>
+      <Table
+        label="Inspection reports"
+        data={data?.rows ?? []}
+        columns={columns}
+        getRowId={(r) => r.id}
+        manualSorting
+        sorting={sorting}
+        onSortingChange={(updater) => {
+          const next = typeof updater === 'function' ? updater(sorting) : updater;
+          const s = next[0];
+          set({ sort: s?.id ?? 'startedAt', dir: s ? (s.desc ? 'desc' : 'asc') : 'desc' });
+        }}
+        busy={isFetching}
+        tableClassName="sm:min-w-[860px]"
+        rowProps={(r) => ({
+          'data-testid': 'report-row',
+          className: r.majorCount ? 'shadow-[inset_8px_0_0_rgb(var(--major))] max-sm:pl-5' : undefined,
+        })}
+        empty={data ? <EmptyState title="No report matches these filters." /> : null}
+      />
 
       <nav aria-label="Pages" className="flex flex-wrap items-center gap-3 text-base">
         <button
           type="button"
-          className="rounded-lg border-slab border-edge bg-panel px-4 py-2 font-bold disabled:opacity-40"
+          className={buttonClass('plain', 'compact')}
           disabled={page <= 1}
           onClick={() => set({ page: page - 1 }, false)}
         >
@@ -312,7 +256,7 @@ export function ReportsClient({ drivers, units, timezone }: { drivers: Option[];
         </span>
         <button
           type="button"
-          className="rounded-lg border-slab border-edge bg-panel px-4 py-2 font-bold disabled:opacity-40"
+          className={buttonClass('plain', 'compact')}
           disabled={!data || page >= data.pageCount}
           onClick={() => set({ page: page + 1 }, false)}
         >

@@ -2,11 +2,13 @@
 
 import { useState } from 'react';
 import { useHydrated } from '@/components/ui/use-hydrated';
-import { buttonClass, cardClass, fieldClass } from '@/components/trainer/controls';
+import { fieldClass } from '@/components/trainer/controls';
 import { ScoreBar } from '@/components/trainer/score-bar';
 import { useBenchMutation } from '@/lib/queries/vocabulary';
 import { zoneIdSchema } from '@/lib/schemas/grammar';
 import type { BenchMatch, BenchResult } from '@/lib/schemas/vocabulary';
+import { buttonClass } from '@/components/ui/button';
+import { panelClass } from '@/components/ui/panel';
 
 type Recognition = {
   lang: string;
@@ -50,7 +52,7 @@ export function BenchClient() {
   return (
     <div className="space-y-4">
       <form
-        className={`${cardClass} flex flex-wrap items-end gap-3`}
+        className={`${panelClass({ tone: 'quiet' })} flex flex-wrap items-end gap-3`}
         onSubmit={(e) => {
           e.preventDefault();
           run();
@@ -77,11 +79,11 @@ export function BenchClient() {
             ))}
           </select>
         </label>
-        <button type="submit" className={buttonClass('primary')} disabled={!text.trim() || bench.isPending}>
+        <button type="submit" className={buttonClass('primary', 'compact')} disabled={!text.trim() || bench.isPending}>
           Try it
         </button>
         {hydrated && speechCtor() && (
-          <button type="button" className={buttonClass()} onClick={speak} disabled={listening}>
+          <button type="button" className={buttonClass('plain', 'compact')} onClick={speak} disabled={listening}>
             {listening ? '● Listening…' : '● Speak'}
           </button>
         )}
@@ -99,7 +101,7 @@ export function BenchClient() {
 function BenchOutput({ result }: { result: BenchResult }) {
   return (
     <div className="space-y-3">
-      <dl className={`${cardClass} grid grid-cols-[auto_1fr] gap-x-4 gap-y-1`}>
+      <dl className={`${panelClass({ tone: 'quiet' })} grid grid-cols-[auto_1fr] gap-x-4 gap-y-1`}>
         <dt className="font-bold">Normalised</dt>
         <dd data-testid="bench-normalized">
           <code>{result.normalized || '—'}</code>
@@ -140,7 +142,7 @@ function MatchColumn({
   empty: string;
 }) {
   return (
-    <section className={cardClass} data-testid={testId} aria-label={title}>
+    <section className={panelClass({ tone: 'quiet' })} data-testid={testId} aria-label={title}>
       <h2 className="text-lg font-extrabold">{title}</h2>
       {!side ? <p className="text-muted">{empty}</p> : <RankedMatches label={side.label} match={side.match} />}
     </section>

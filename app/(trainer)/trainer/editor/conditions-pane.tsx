@@ -1,10 +1,12 @@
 'use client';
 
 import { useState } from 'react';
-import { buttonClass, cardClass, fieldClass } from '@/components/trainer/controls';
+import { fieldClass } from '@/components/trainer/controls';
 import { PhraseList } from '@/components/trainer/phrase-list';
 import type { Grammar } from '@/lib/schemas/grammar';
 import type { EditFn } from './editor-client';
+import { buttonClass } from '@/components/ui/button';
+import { panelClass } from '@/components/ui/panel';
 
 const toId = (s: string) =>
   s
@@ -20,7 +22,7 @@ export function ConditionsPane({ grammar, edit, focus }: { grammar: Grammar; edi
   const users = selected ? v.components.filter((c) => c.defects.some((d) => d.condition === selected.id)) : [];
   return (
     <div className="grid gap-3 lg:grid-cols-[18rem_1fr]">
-      <section className={`${cardClass} space-y-2 p-2`} aria-label="Conditions">
+      <section className={`${panelClass({ tone: 'quiet' })} space-y-2 p-2`} aria-label="Conditions">
         <ul className="max-h-[32rem] overflow-y-auto">
           {v.conditions.map((c) => (
             <li key={c.id}>
@@ -55,12 +57,12 @@ export function ConditionsPane({ grammar, edit, focus }: { grammar: Grammar; edi
             onChange={(e) => setNewName(e.target.value)}
             aria-label="New condition name"
           />
-          <button type="submit" className={buttonClass()} disabled={!newName.trim()}>
+          <button type="submit" className={buttonClass('plain', 'compact')} disabled={!newName.trim()}>
             Add
           </button>
         </form>
       </section>
-      <section className={`${cardClass} space-y-4`} aria-label="Condition">
+      <section className={`${panelClass({ tone: 'quiet' })} space-y-4`} aria-label="Condition">
         {!selected ? (
           <p className="text-muted">Pick a condition.</p>
         ) : (

@@ -1,7 +1,6 @@
 'use client';
 
 import { useEffect, useMemo, useState } from 'react';
-import { buttonClass, cardClass } from '@/components/trainer/controls';
 import { OpenDraftButton } from '@/components/trainer/open-draft-button';
 import { useVersions } from '@/components/trainer/use-draft';
 import { useSaveDraftMutation } from '@/lib/queries/vocabulary';
@@ -10,6 +9,9 @@ import { listGrammarProblems } from '@/lib/schemas/vocabulary';
 import { ConditionsPane } from './conditions-pane';
 import { TermsPane } from './terms-pane';
 import { ZonesPane } from './zones-pane';
+import { buttonClass } from '@/components/ui/button';
+import { panelClass } from '@/components/ui/panel';
+import { panelId, tabId, Tabs } from '@/components/ui/tabs';
 
 export type EditFn = (change: (g: Grammar) => void) => void;
 
@@ -24,7 +26,7 @@ export function EditorClient() {
   if (list.isPending || draftLoading) return <p className="text-muted">Loading the draft…</p>;
   if (!draftSummary || !draft) {
     return (
-      <div className={`${cardClass} space-y-3`}>
+      <div className={`${panelClass({ tone: 'quiet' })} space-y-3`}>
         <p className="text-lg">Edits are made in a draft. Published versions never change.</p>
         <OpenDraftButton />
       </div>
@@ -80,7 +82,7 @@ function DraftEditor({
         )}
         <button
           type="button"
-          className={buttonClass()}
+          className={buttonClass('plain', 'compact')}
           disabled={!dirty || save.isPending}
           onClick={() => {
             setGrammar(saved);
@@ -91,7 +93,7 @@ function DraftEditor({
         </button>
         <button
           type="button"
-          className={buttonClass('primary')}
+          className={buttonClass('primary', 'compact')}
           disabled={!dirty || save.isPending || problems.length > 0}
           onClick={() =>
             save.mutateAsync({ grammar, baseUpdatedAt: updatedAt }).then(
@@ -103,32 +105,28 @@ function DraftEditor({
           Save draft
         </button>
       </div>
-      <div role="tablist" aria-label="Editor sections" className="flex gap-1">
-        {tabs.map((t) => (
-          <button
-            key={t.id}
-            role="tab"
-            type="button"
-            aria-selected={tab === t.id}
-            onClick={() => setTab(t.id)}
-            className={`rounded-t-md border-2 border-b-0 px-3 py-1.5 font-bold ${tab === t.id ? 'border-edge bg-panel' : 'border-transparent text-muted hover:text-ink'}`}
-          >
-            {t.label}
-          </button>
-        ))}
+      <Tabs
+        label="Editor sections"
+        idPrefix="editor"
+        items={[...tabs]}
+        value={tab}
+        onChange={setTab}
+        className="border-b-2 border-edge/20 pb-2"
+      />
+      <div role="tabpanel" id={panelId('editor', tab)} aria-labelledby={tabId('editor', tab)}>
+        {tab === 'terms' && (
+          <TermsPane
+            grammar={grammar}
+            edit={edit}
+            onOpenCondition={(cid) => {
+              setConditionFocus(cid);
+              setTab('conditions');
+            }}
+          />
+        )}
+        {tab === 'conditions' && <ConditionsPane grammar={grammar} edit={edit} focus={conditionFocus} />}
+        {tab === 'zones' && <ZonesPane grammar={grammar} edit={edit} />}
       </div>
-      {tab === 'terms' && (
-        <TermsPane
-          grammar={grammar}
-          edit={edit}
-          onOpenCondition={(cid) => {
-            setConditionFocus(cid);
-            setTab('conditions');
-          }}
-        />
-      )}
-      {tab === 'conditions' && <ConditionsPane grammar={grammar} edit={edit} focus={conditionFocus} />}
-      {tab === 'zones' && <ZonesPane grammar={grammar} edit={edit} />}
     </div>
   );
 }

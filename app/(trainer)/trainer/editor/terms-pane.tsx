@@ -1,10 +1,17 @@
 'use client';
 
+import { createColumnHelper } from '@tanstack/react-table';
 import { useMemo, useState } from 'react';
-import { buttonClass, cardClass, fieldClass } from '@/components/trainer/controls';
+import { fieldClass } from '@/components/trainer/controls';
 import { PhraseList } from '@/components/trainer/phrase-list';
 import { zoneIdSchema, type Grammar, type ZoneId } from '@/lib/schemas/grammar';
 import type { EditFn } from './editor-client';
+import { buttonClass } from '@/components/ui/button';
+import { panelClass } from '@/components/ui/panel';
+import { Table } from '@/components/ui/table';
+
+type ComponentDefect = Grammar['vocabulary']['components'][number]['defects'][number];
+const defectCol = createColumnHelper<ComponentDefect>();
 
 const toId = (s: string) =>
   s
@@ -42,7 +49,7 @@ export function TermsPane({
   const unused = selected ? v.conditions.filter((c) => !selected.defects.some((d) => d.condition === c.id)) : [];
   return (
     <div className="grid gap-3 lg:grid-cols-[14rem_18rem_1fr]">
-      <section className={`${cardClass} p-2`} aria-label="Systems">
+      <section className={`${panelClass({ tone: 'quiet' })} p-2`} aria-label="Systems">
         <h2 className="px-2 pb-1 text-sm font-bold tracking-wide text-muted uppercase">Systems</h2>
         <ul>
           {v.systems.map((s) => {
@@ -66,7 +73,7 @@ export function TermsPane({
           })}
         </ul>
       </section>
-      <section className={`${cardClass} space-y-2 p-2`} aria-label="Components">
+      <section className={`${panelClass({ tone: 'quiet' })} space-y-2 p-2`} aria-label="Components">
         <input
           className={fieldClass}
           placeholder="find a component or phrase"
@@ -122,13 +129,13 @@ export function TermsPane({
               onChange={(e) => setNewComponent(e.target.value)}
               aria-label="New component name"
             />
-            <button type="submit" className={buttonClass()} disabled={!newComponent.trim()}>
+            <button type="submit" className={buttonClass('plain', 'compact')} disabled={!newComponent.trim()}>
               Add
             </button>
           </form>
         )}
       </section>
-      <section className={`${cardClass} space-y-4`} aria-label="Component">
+      <section className={`${panelClass({ tone: 'quiet' })} space-y-4`} aria-label="Component">
         {!selected ? (
           <p className="text-muted">Pick a component to edit its phrases, zones and defects.</p>
         ) : (
@@ -192,69 +199,77 @@ export function TermsPane({
             </fieldset>
             <div>
               <h3 className="mb-1 font-bold">Conditions (defects) with severity and source</h3>
-              <table className="w-full text-left text-base">
-                <thead className="text-sm text-muted">
-                  <tr>
-                    <th className="py-1 pr-2">Condition</th>
-                    <th className="py-1 pr-2">US</th>
-                    <th className="py-1 pr-2">Canada</th>
-                    <th className="py-1 pr-2">Source note</th>
-                    <th className="sr-only">Remove</th>
-                  </tr>
-                </thead>
-                <tbody>
-                  {selected.defects.map((d, i) => (
-                    <tr key={d.condition} className="border-t border-edge/15 align-top">
-                      <td className="py-1 pr-2">
-                        <button
-                          type="button"
-                          className="text-left font-bold underline-offset-2 hover:underline"
-                          onClick={() => onOpenCondition(d.condition)}
+              <Table
+                label="Conditions (defects) with severity and source"
+                data={selected.defects}
+                getRowId={(d) => d.condition}
+                enableSorting={false}
+                framed={false}
+                density="dense"
+                columns={[
+                  defectCol.accessor('condition', {
+                    header: 'Condition',
+                    meta: { card: 'title' },
+                    cell: ({ row: { original: d } }) => (
+                      <button
+                        type="button"
+                        className="text-left font-bold underline-offset-2 hover:underline"
+                        onClick={() => onOpenCondition(d.condition)}
+                      >
+                        {conditionName.get(d.condition) ?? d.condition}
+                      </button>
+                    ),
+                  }),
+                  ...(['us', 'ca'] as const).map((p) =>
+                    defectCol.display({
+                      id: p,
+                      header: p === 'us' ? 'US' : 'Canada',
+                      cell: ({ row: { original: d, index: i } }) => (
+                        <select
+                          aria-label={`${p === 'us' ? 'US' : 'Canada'} severity of ${conditionName.get(d.condition)}`}
+                          className={fieldClass.replace('w-full', 'w-28')}
+                          value={d.severity[p]}
+                          onChange={(e) =>
+                            editComponent((c) => void (c.defects[i]!.severity[p] = e.target.value as 'minor' | 'major'))
+                          }
                         >
-                          {conditionName.get(d.condition) ?? d.condition}
-                        </button>
-                      </td>
-                      {(['us', 'ca'] as const).map((p) => (
-                        <td key={p} className="py-1 pr-2">
-                          <select
-                            aria-label={`${p === 'us' ? 'US' : 'Canada'} severity of ${conditionName.get(d.condition)}`}
-                            className={fieldClass.replace('w-full', 'w-28')}
-                            value={d.severity[p]}
-                            onChange={(e) =>
-                              editComponent(
-                                (c) => void (c.defects[i]!.severity[p] = e.target.value as 'minor' | 'major'),
-                              )
-                            }
-                          >
-                            <option value="minor">△ minor</option>
-                            <option value="major">■ major</option>
-                          </select>
-                        </td>
-                      ))}
-                      <td className="w-full py-1 pr-2">
-                        <input
-                          title={d.source}
-                          aria-label={`Source of ${conditionName.get(d.condition)}`}
-                          className={fieldClass}
-                          value={d.source}
-                          onChange={(e) => editComponent((c) => void (c.defects[i]!.source = e.target.value))}
-                        />
-                      </td>
-                      <td className="py-1">
-                        <button
-                          type="button"
-                          className={buttonClass()}
-                          disabled={selected.defects.length <= 1}
-                          aria-label={`Remove ${conditionName.get(d.condition)}`}
-                          onClick={() => editComponent((c) => void c.defects.splice(i, 1))}
-                        >
-                          ×
-                        </button>
-                      </td>
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
+                          <option value="minor">△ minor</option>
+                          <option value="major">■ major</option>
+                        </select>
+                      ),
+                    }),
+                  ),
+                  defectCol.accessor('source', {
+                    header: 'Source note',
+                    meta: { className: 'sm:w-full' },
+                    cell: ({ row: { original: d, index: i } }) => (
+                      <input
+                        title={d.source}
+                        aria-label={`Source of ${conditionName.get(d.condition)}`}
+                        className={fieldClass}
+                        value={d.source}
+                        onChange={(e) => editComponent((c) => void (c.defects[i]!.source = e.target.value))}
+                      />
+                    ),
+                  }),
+                  defectCol.display({
+                    id: 'remove',
+                    header: () => <span className="sr-only">Remove</span>,
+                    meta: { cardLabel: '' },
+                    cell: ({ row: { original: d, index: i } }) => (
+                      <button
+                        type="button"
+                        className={buttonClass('plain', 'compact')}
+                        disabled={selected.defects.length <= 1}
+                        aria-label={`Remove ${conditionName.get(d.condition)}`}
+                        onClick={() => editComponent((c) => void c.defects.splice(i, 1))}
+                      >
+                        ×
+                      </button>
+                    ),
+                  }),
+                ]}
+              />
               {unused.length > 0 && (
                 <label className="mt-2 flex items-center gap-2">
                   <span className="text-sm font-bold">Add a condition</span>

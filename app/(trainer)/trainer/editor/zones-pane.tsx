@@ -1,9 +1,16 @@
 'use client';
 
+import { createColumnHelper } from '@tanstack/react-table';
 import { useState } from 'react';
-import { buttonClass, cardClass, fieldClass } from '@/components/trainer/controls';
+import { fieldClass } from '@/components/trainer/controls';
 import type { Grammar, VehicleConfiguration } from '@/lib/schemas/grammar';
 import type { EditFn } from './editor-client';
+import { buttonClass } from '@/components/ui/button';
+import { panelClass } from '@/components/ui/panel';
+import { Table } from '@/components/ui/table';
+
+type ZoneItemRow = { item: Grammar['zones']['zones'][number]['items'][number]; i: number };
+const itemCol = createColumnHelper<ZoneItemRow>();
 
 function move<T>(xs: T[], from: number, to: number) {
   if (to < 0 || to >= xs.length) return;
@@ -41,7 +48,7 @@ export function ZonesPane({ grammar, edit }: { grammar: Grammar; edit: EditFn })
         </select>
       </label>
       <div className="grid gap-3 lg:grid-cols-[20rem_1fr]">
-        <section className={`${cardClass} p-2`} aria-label="Walk order">
+        <section className={`${panelClass({ tone: 'quiet' })} p-2`} aria-label="Walk order">
           <h2 className="px-2 pb-1 text-sm font-bold tracking-wide text-muted uppercase">Walk order</h2>
           <ol>
             {inConfig.map(({ z, i }, n) => (
@@ -76,26 +83,30 @@ export function ZonesPane({ grammar, edit }: { grammar: Grammar; edit: EditFn })
             ))}
           </ol>
         </section>
-        <section className={`${cardClass} space-y-3`} aria-label="Checklist">
+        <section className={`${panelClass({ tone: 'quiet' })} space-y-3`} aria-label="Checklist">
           {zone && (
             <>
               <h2 className="text-xl font-extrabold">
                 {zone.name}: checklist for {grammar.zones.configurations.find((c) => c.id === config)?.name}
               </h2>
-              <table className="w-full text-left">
-                <thead className="text-sm text-muted">
-                  <tr>
-                    <th className="w-16 py-1">Order</th>
-                    <th className="py-1 pr-2">Item as read to the driver</th>
-                    <th className="py-1 pr-2">Component</th>
-                    <th className="py-1 pr-2">Configurations</th>
-                    <th className="sr-only">Remove</th>
-                  </tr>
-                </thead>
-                <tbody>
-                  {items.map(({ item, i }, n) => (
-                    <tr key={item.id} className="border-t border-edge/15">
-                      <td className="py-1">
+              <Table
+                label={`Checklist of ${zone.name}`}
+                data={items}
+                getRowId={({ item }) => item.id}
+                enableSorting={false}
+                framed={false}
+                density="dense"
+                columns={[
+                  itemCol.display({
+                    id: 'order',
+                    header: 'Order',
+                    cell: ({
+                      row: {
+                        original: { item, i },
+                        index: n,
+                      },
+                    }) => (
+                      <>
                         <button
                           type="button"
                           aria-label={`Move ${item.label} up`}
@@ -112,8 +123,19 @@ export function ZonesPane({ grammar, edit }: { grammar: Grammar; edit: EditFn })
                         >
                           ↓
                         </button>
-                      </td>
-                      <td className="w-1/2 py-1 pr-2">
+                      </>
+                    ),
+                  }),
+                  itemCol.display({
+                    id: 'label',
+                    header: 'Item as read to the driver',
+                    meta: { className: 'sm:w-1/2' },
+                    cell: ({
+                      row: {
+                        original: { item, i },
+                      },
+                    }) => (
+                      <>
                         <input
                           aria-label={`Label of ${item.id}`}
                           className={fieldClass}
@@ -122,8 +144,18 @@ export function ZonesPane({ grammar, edit }: { grammar: Grammar; edit: EditFn })
                             edit((g) => void (g.zones.zones[zoneIndex]!.items[i]!.label = e.target.value))
                           }
                         />
-                      </td>
-                      <td className="py-1 pr-2">
+                      </>
+                    ),
+                  }),
+                  itemCol.display({
+                    id: 'component',
+                    header: 'Component',
+                    cell: ({
+                      row: {
+                        original: { item, i },
+                      },
+                    }) => (
+                      <>
                         <select
                           aria-label={`Component of ${item.label}`}
                           className={fieldClass}
@@ -141,8 +173,19 @@ export function ZonesPane({ grammar, edit }: { grammar: Grammar; edit: EditFn })
                         {item.measure && (
                           <span className="text-sm text-muted">reading: {item.measure.replace(/_/g, ' ')}</span>
                         )}
-                      </td>
-                      <td className="py-1 pr-2 text-sm">
+                      </>
+                    ),
+                  }),
+                  itemCol.display({
+                    id: 'configurations',
+                    header: 'Configurations',
+                    meta: { className: 'text-sm' },
+                    cell: ({
+                      row: {
+                        original: { item, i },
+                      },
+                    }) => (
+                      <>
                         {grammar.zones.configurations.map((c) => (
                           <label key={c.id} className="mr-2 inline-flex items-center gap-1">
                             <input
@@ -161,22 +204,33 @@ export function ZonesPane({ grammar, edit }: { grammar: Grammar; edit: EditFn })
                             {c.id === 'bobtail' ? 'bobtail' : 'with trailer'}
                           </label>
                         ))}
-                      </td>
-                      <td className="py-1">
+                      </>
+                    ),
+                  }),
+                  itemCol.display({
+                    id: 'remove',
+                    header: () => <span className="sr-only">Remove</span>,
+                    meta: { cardLabel: '' },
+                    cell: ({
+                      row: {
+                        original: { item, i },
+                      },
+                    }) => (
+                      <>
                         <button
                           type="button"
-                          className={buttonClass()}
+                          className={buttonClass('plain', 'compact')}
                           disabled={zone.items.length <= 1}
                           aria-label={`Remove ${item.label}`}
                           onClick={() => edit((g) => void g.zones.zones[zoneIndex]!.items.splice(i, 1))}
                         >
                           ×
                         </button>
-                      </td>
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
+                      </>
+                    ),
+                  }),
+                ]}
+              />
               <form
                 className="flex gap-2"
                 onSubmit={(e) => {
@@ -205,7 +259,7 @@ export function ZonesPane({ grammar, edit }: { grammar: Grammar; edit: EditFn })
                   onChange={(e) => setNewLabel(e.target.value)}
                   aria-label="New checklist item"
                 />
-                <button type="submit" className={buttonClass()} disabled={!newLabel.trim()}>
+                <button type="submit" className={buttonClass('plain', 'compact')} disabled={!newLabel.trim()}>
                   Add item
                 </button>
               </form>

@@ -1,8 +1,9 @@
 'use client';
 
+import { createColumnHelper } from '@tanstack/react-table';
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
-import { buttonClass, cardClass, fieldClass, pct } from '@/components/trainer/controls';
+import { fieldClass, pct } from '@/components/trainer/controls';
 import { OpenDraftButton } from '@/components/trainer/open-draft-button';
 import { useVersions } from '@/components/trainer/use-draft';
 import { ApiError } from '@/lib/http/fetch-json';
@@ -15,6 +16,9 @@ import {
   type PublishResult,
 } from '@/lib/queries/vocabulary';
 import type { EvaluationLine, EvaluationReport, Figures } from '@/lib/schemas/vocabulary';
+import { buttonClass } from '@/components/ui/button';
+import { panelClass } from '@/components/ui/panel';
+import { Table } from '@/components/ui/table';
 
 const grammarFiles = ['vocabulary', 'commands', 'positions', 'numbers', 'zones'] as const;
 
@@ -45,7 +49,7 @@ export function EvaluationClient() {
           onPublished={setPublished}
         />
       ) : (
-        <div className={`${cardClass} flex items-center gap-3`}>
+        <div className={`${panelClass({ tone: 'quiet' })} flex items-center gap-3`}>
           <span>No draft is open{publishedSummary ? `; drivers use “${publishedSummary.label}”` : ''}.</span>
           <OpenDraftButton />
         </div>
@@ -60,7 +64,7 @@ function TestSetCard() {
   const save = useSaveTestSetMutation();
   const [picked, setPicked] = useState<{ name: string; jsonl: string } | null>(null);
   return (
-    <section className={`${cardClass} flex flex-wrap items-center gap-4`} aria-label="Labelled set">
+    <section className={`${panelClass({ tone: 'quiet' })} flex flex-wrap items-center gap-4`} aria-label="Labelled set">
       <div className="mr-auto">
         <h2 className="text-lg font-extrabold">Labelled utterance set</h2>
         <p>
@@ -74,7 +78,7 @@ function TestSetCard() {
           )}
         </p>
       </div>
-      <a className={buttonClass()} href="/api/vocabulary/test-set?format=jsonl">
+      <a className={buttonClass('plain', 'compact')} href="/api/vocabulary/test-set?format=jsonl">
         Export JSONL
       </a>
       <label className="flex items-center gap-2">
@@ -92,7 +96,7 @@ function TestSetCard() {
       {picked && (
         <button
           type="button"
-          className={buttonClass('primary')}
+          className={buttonClass('primary', 'compact')}
           disabled={save.isPending}
           onClick={() => save.mutate(picked, { onSuccess: () => setPicked(null) })}
         >
@@ -110,7 +114,7 @@ function TestSetCard() {
 
 function FigureCard({ title, figures, testId }: { title: string; figures: Figures; testId: string }) {
   return (
-    <div className={cardClass} data-testid={testId}>
+    <div className={panelClass({ tone: 'quiet' })} data-testid={testId}>
       <h3 className="text-sm font-bold tracking-wide text-muted uppercase">{title}</h3>
       <p className="text-3xl font-extrabold tabular-nums">{pct(figures.top1Rate)}</p>
       <p className="tabular-nums">
@@ -125,7 +129,7 @@ const signed = (n: number) => (n > 0 ? `+${n}` : n === 0 ? '±0' : `−${Math.ab
 function Difference({ report }: { report: EvaluationReport }) {
   if (!report.published)
     return (
-      <div className={cardClass}>
+      <div className={panelClass({ tone: 'quiet' })}>
         <h3 className="text-sm font-bold tracking-wide text-muted uppercase">Difference</h3>
         <p>Nothing published yet to compare with.</p>
       </div>
@@ -134,7 +138,10 @@ function Difference({ report }: { report: EvaluationReport }) {
   const d3 = report.figures.top3 - report.published.figures.top3;
   const worse = report.lowersAccuracy;
   return (
-    <div className={`${cardClass} ${worse ? 'border-major' : ''}`} data-testid="evaluation-difference">
+    <div
+      className={`${panelClass({ tone: 'quiet' })} ${worse ? 'border-major' : ''}`}
+      data-testid="evaluation-difference"
+    >
       <h3 className="text-sm font-bold tracking-wide text-muted uppercase">
         Difference from “{report.published.label}”
       </h3>
@@ -150,40 +157,43 @@ function Difference({ report }: { report: EvaluationReport }) {
   );
 }
 
+const lineCol = createColumnHelper<EvaluationLine>();
+const lineColumns = [
+  lineCol.accessor('text', { header: 'Utterance', meta: { card: 'title' } }),
+  lineCol.accessor((l) => l.zone?.replace(/_/g, ' ') ?? '—', { id: 'zone', header: 'Zone' }),
+  lineCol.accessor('expected', { header: 'Labelled', cell: (c) => <code className="text-sm">{c.getValue()}</code> }),
+  lineCol.accessor('got', {
+    header: 'Read as',
+    cell: ({ row: { original: l } }) => (
+      <>
+        <code className="text-sm">{l.got}</code>
+        {l.top3 && <span className="ml-1 text-sm text-muted">(in top 3)</span>}
+      </>
+    ),
+  }),
+  lineCol.accessor('score', {
+    header: 'Score',
+    meta: { align: 'right', className: 'tabular-nums' },
+    cell: (c) => c.getValue().toFixed(2),
+  }),
+];
+
 function LineTable({ lines, caption }: { lines: EvaluationLine[]; caption: string }) {
   if (!lines.length) return null;
   return (
-    <details className={cardClass} open={lines.length <= 12}>
+    <details className={panelClass({ tone: 'quiet' })} open={lines.length <= 12}>
       <summary className="cursor-pointer text-lg font-extrabold">
         {caption} ({lines.length})
       </summary>
-      <table className="mt-2 w-full text-left text-base">
-        <thead className="text-sm text-muted">
-          <tr>
-            <th className="py-1 pr-2">Utterance</th>
-            <th className="py-1 pr-2">Zone</th>
-            <th className="py-1 pr-2">Labelled</th>
-            <th className="py-1 pr-2">Read as</th>
-            <th className="py-1 text-right">Score</th>
-          </tr>
-        </thead>
-        <tbody>
-          {lines.slice(0, 200).map((l, i) => (
-            <tr key={`${l.text}-${i}`} className="border-t border-edge/15">
-              <td className="py-1 pr-2">{l.text}</td>
-              <td className="py-1 pr-2 text-sm">{l.zone?.replace(/_/g, ' ') ?? '—'}</td>
-              <td className="py-1 pr-2">
-                <code className="text-sm">{l.expected}</code>
-              </td>
-              <td className="py-1 pr-2">
-                <code className="text-sm">{l.got}</code>
-                {l.top3 && <span className="ml-1 text-sm text-muted">(in top 3)</span>}
-              </td>
-              <td className="py-1 text-right tabular-nums">{l.score.toFixed(2)}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <Table
+        label={caption}
+        data={lines.slice(0, 200)}
+        columns={lineColumns}
+        getRowId={(l, i) => `${l.text}-${i}`}
+        framed={false}
+        density="dense"
+        className="mt-2"
+      />
     </details>
   );
 }
@@ -204,13 +214,13 @@ function DraftEvaluation({
   const needsReason = report?.lowersAccuracy || (publish.error instanceof ApiError && publish.error.status === 409);
   return (
     <section className="space-y-3" aria-label="Evaluation">
-      <div className={`${cardClass} flex flex-wrap items-center gap-3`}>
+      <div className={`${panelClass({ tone: 'quiet' })} flex flex-wrap items-center gap-3`}>
         <p className="mr-auto text-lg">
           Draft <b>{label}</b>
         </p>
         <button
           type="button"
-          className={buttonClass('primary')}
+          className={buttonClass('primary', 'compact')}
           disabled={evaluation.isPending}
           onClick={() => evaluation.mutate()}
         >
@@ -233,7 +243,7 @@ function DraftEvaluation({
                 testId="evaluation-published"
               />
             ) : (
-              <div className={cardClass}>No published version.</div>
+              <div className={panelClass({ tone: 'quiet' })}>No published version.</div>
             )}
             <Difference report={report} />
           </div>
@@ -242,7 +252,7 @@ function DraftEvaluation({
           <LineTable lines={report.misses} caption="All misses of the draft" />
         </>
       )}
-      <div className={`${cardClass} space-y-2`} aria-label="Publish">
+      <div className={`${panelClass({ tone: 'quiet' })} space-y-2`} aria-label="Publish">
         <h2 className="text-lg font-extrabold">Publish</h2>
         <p>
           New inspections use the published version from the moment it is published; inspections already started keep
@@ -266,7 +276,7 @@ function DraftEvaluation({
             {needsReason ? (
               <button
                 type="button"
-                className={buttonClass('danger')}
+                className={buttonClass('danger', 'compact')}
                 disabled={reason.trim().length < 10 || publish.isPending}
                 onClick={() =>
                   publish.mutateAsync({ override: { reason: reason.trim() } }).then(onPublished, () => undefined)
@@ -277,7 +287,7 @@ function DraftEvaluation({
             ) : (
               <button
                 type="button"
-                className={buttonClass('primary')}
+                className={buttonClass('primary', 'compact')}
                 disabled={publish.isPending}
                 onClick={() => publish.mutateAsync({}).then(onPublished, () => undefined)}
               >
@@ -300,7 +310,7 @@ function GrammarFilesCard({ draftId, publishedId }: { draftId: string | null; pu
   const importer = useImportGrammarMutation();
   const [message, setMessage] = useState<string | null>(null);
   return (
-    <section className={`${cardClass} space-y-2`} aria-label="Grammar files">
+    <section className={`${panelClass({ tone: 'quiet' })} space-y-2`} aria-label="Grammar files">
       <h2 className="text-lg font-extrabold">Grammar files</h2>
       <p className="text-sm text-muted">
         The same format as the grammars/ folder: export a version’s files, or import files into the draft.

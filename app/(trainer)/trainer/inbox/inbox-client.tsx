@@ -4,7 +4,7 @@ import { useQuery } from '@tanstack/react-query';
 import { useMemo, useState } from 'react';
 import { formatDateTime } from '@/components/office/format';
 import { useHydrated } from '@/components/ui/use-hydrated';
-import { buttonClass, cardClass, chipClass, fieldClass } from '@/components/trainer/controls';
+import { chipClass, fieldClass } from '@/components/trainer/controls';
 import { OpenDraftButton } from '@/components/trainer/open-draft-button';
 import { useVersions } from '@/components/trainer/use-draft';
 import {
@@ -14,6 +14,8 @@ import {
   type AddPhraseResult,
 } from '@/lib/queries/vocabulary';
 import type { FieldUtteranceGroup } from '@/lib/schemas/vocabulary';
+import { buttonClass } from '@/components/ui/button';
+import { panelClass } from '@/components/ui/panel';
 
 const outcomeWords: Record<string, string> = {
   unmatched: 'matched nothing',
@@ -51,7 +53,7 @@ export function InboxClient() {
         published.
       </p>
       {!draftSummary && (
-        <div className={`${cardClass} flex items-center gap-3`}>
+        <div className={`${panelClass({ tone: 'quiet' })} flex items-center gap-3`}>
           <span>Phrases go into a draft.</span>
           <OpenDraftButton />
         </div>
@@ -72,7 +74,7 @@ export function InboxClient() {
           <option key={label} value={label} />
         ))}
       </datalist>
-      {groups.length === 0 && <p className={cardClass}>The inbox is empty.</p>}
+      {groups.length === 0 && <p className={panelClass({ tone: 'quiet' })}>The inbox is empty.</p>}
       <ul className="space-y-2">
         {groups.map((g) => (
           <InboxGroup
@@ -105,7 +107,7 @@ function InboxGroup({
   const dismiss = useDismissUtterancesMutation();
   const termKey = terms.get(term.trim()) ?? null;
   return (
-    <li className={`${cardClass} grid gap-3 lg:grid-cols-[1fr_26rem]`} data-testid="inbox-group">
+    <li className={`${panelClass({ tone: 'quiet' })} grid gap-3 lg:grid-cols-[1fr_26rem]`} data-testid="inbox-group">
       <div className="space-y-1">
         <p className="text-xl font-bold">
           “{group.text}”{' '}
@@ -146,7 +148,7 @@ function InboxGroup({
           <div className="flex flex-wrap gap-2">
             <button
               type="button"
-              className={buttonClass('primary')}
+              className={buttonClass('primary', 'compact')}
               disabled={!draftId || !termKey || add.isPending}
               onClick={() => {
                 // The group leaves the list once resolved, so the notice is raised by the list.
@@ -160,7 +162,7 @@ function InboxGroup({
             </button>
             <button
               type="button"
-              className={buttonClass()}
+              className={buttonClass('plain', 'compact')}
               disabled={dismiss.isPending}
               onClick={() => dismiss.mutate(group.ids)}
             >

@@ -2,8 +2,8 @@
 
 import { useQuery } from '@tanstack/react-query';
 import Link from 'next/link';
-import { FormNotice } from '@/components/admin/field';
-import { UnitStatusBadge } from '@/components/admin/unit-status-badge';
+import { FormNotice } from '@/components/ui/field';
+import { UnitStatus } from '@/components/ui/unit-status';
 import { adminUnitQuery, useUpdateUnitMutation } from '@/lib/queries/admin';
 import { UnitForm } from '../_components/unit-form';
 import { RetirePanel } from './retire-panel';
@@ -24,7 +24,7 @@ export function EditUnitClient({ id }: { id: string }) {
           <h1 className="text-3xl font-extrabold">
             {unit.kind === 'tractor' ? 'Tractor' : 'Trailer'} {unit.unitNumber}
           </h1>
-          <UnitStatusBadge unit={unit} />
+          <UnitStatus status={unit.status} retired={Boolean(unit.retiredAt)} />
         </div>
       </header>
       {unit.retiredAt ? (

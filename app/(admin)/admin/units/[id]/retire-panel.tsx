@@ -1,11 +1,12 @@
 'use client';
 
 import { useState } from 'react';
-import { Field, FormNotice } from '@/components/admin/field';
+import { Field, FormNotice, inputClass } from '@/components/ui/field';
 import { firstError, readFailure, type FieldErrors } from '@/components/admin/form-errors';
-import { inputClass, officeButtonClass, panelClass } from '@/components/admin/office-controls';
 import { useRetireUnitMutation } from '@/lib/queries/admin';
 import type { UnitDto } from '@/lib/schemas/units';
+import { buttonClass } from '@/components/ui/button';
+import { panelClass } from '@/components/ui/panel';
 
 /** Retiring is for good: a second, explicit step, with an optional reason for the record. */
 export function RetirePanel({ unit }: { unit: UnitDto }) {
@@ -27,7 +28,7 @@ export function RetirePanel({ unit }: { unit: UnitDto }) {
   }
 
   return (
-    <section aria-labelledby="retire-heading" className={`${panelClass} flex flex-col gap-3 p-4`}>
+    <section aria-labelledby="retire-heading" className={`${panelClass({ padding: 'none' })} flex flex-col gap-3 p-4`}>
       <h2 id="retire-heading" className="text-xl font-extrabold">
         Retire this unit
       </h2>
@@ -36,7 +37,7 @@ export function RetirePanel({ unit }: { unit: UnitDto }) {
         drivers can no longer pick it.
       </p>
       {confirming ? (
-        <div className="flex flex-col gap-3 rounded-md border-slab border-major p-3">
+        <div className={`flex flex-col gap-3 ${panelClass({ tone: 'major', padding: 'sm' })}`}>
           <Field id="retire-reason" label="Reason (optional)" error={firstError(errors, 'reason')}>
             {(c) => (
               <input
@@ -51,20 +52,20 @@ export function RetirePanel({ unit }: { unit: UnitDto }) {
           <div className="flex flex-wrap gap-2">
             <button
               type="button"
-              className={officeButtonClass('danger')}
+              className={buttonClass('danger', 'compact')}
               disabled={retire.isPending}
               onClick={() => void onRetire()}
             >
               Yes, retire unit {unit.unitNumber}
             </button>
-            <button type="button" className={officeButtonClass('plain')} onClick={() => setConfirming(false)}>
+            <button type="button" className={buttonClass('plain', 'compact')} onClick={() => setConfirming(false)}>
               Keep it
             </button>
           </div>
         </div>
       ) : (
         <div>
-          <button type="button" className={officeButtonClass('plain')} onClick={() => setConfirming(true)}>
+          <button type="button" className={buttonClass('plain', 'compact')} onClick={() => setConfirming(true)}>
             Retire…
           </button>
         </div>

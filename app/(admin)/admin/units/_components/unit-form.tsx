@@ -3,10 +3,9 @@
 import { useQuery } from '@tanstack/react-query';
 import { useState, type FormEvent } from 'react';
 import type { z } from 'zod';
-import { Field, FormNotice } from '@/components/admin/field';
+import { Field, FormNotice, inputClass, selectClass } from '@/components/ui/field';
 import { useHydrated } from '@/components/ui/use-hydrated';
 import { fieldsOfZod, firstError, numberOrNull, readFailure, type FieldErrors } from '@/components/admin/form-errors';
-import { inputClass, officeButtonClass, panelClass, selectClass } from '@/components/admin/office-controls';
 import { fleetSettingsQuery } from '@/lib/queries/admin';
 import {
   axlePositions,
@@ -17,6 +16,8 @@ import {
   type UnitKind,
 } from '@/lib/schemas/units';
 import { fromTemplate, layoutTemplates, makeAxle, removeAxle, tireLabels, type AxleDraft } from './axle-layout';
+import { buttonClass } from '@/components/ui/button';
+import { panelClass } from '@/components/ui/panel';
 
 const fallbackTargets = { steer: 110, drive: 100, trailer: 100 };
 const usCodes = plateJurisdictions.slice(0, 51);
@@ -148,7 +149,10 @@ export function UnitForm({
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-5">
       <fieldset disabled={readOnly} className="contents">
-        <section className={`${panelClass} grid gap-4 p-4 md:grid-cols-4`} aria-labelledby="unit-identity">
+        <section
+          className={`${panelClass({ padding: 'none' })} grid gap-4 p-4 md:grid-cols-4`}
+          aria-labelledby="unit-identity"
+        >
           <h2 id="unit-identity" className="text-xl font-extrabold md:col-span-4">
             The unit
           </h2>
@@ -159,7 +163,7 @@ export function UnitForm({
                 {(['tractor', 'trailer'] as const).map((k) => (
                   <label
                     key={k}
-                    className={`${officeButtonClass(kind === k ? 'primary' : 'plain')} cursor-pointer has-[:focus-visible]:outline-4 has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-vest`}
+                    className={`${buttonClass(kind === k ? 'primary' : 'plain', 'compact')} cursor-pointer has-[:focus-visible]:outline-4 has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-vest`}
                   >
                     <input
                       type="radio"
@@ -206,7 +210,10 @@ export function UnitForm({
           </Field>
         </section>
 
-        <section className={`${panelClass} grid gap-4 p-4 md:grid-cols-4`} aria-labelledby="unit-registration">
+        <section
+          className={`${panelClass({ padding: 'none' })} grid gap-4 p-4 md:grid-cols-4`}
+          aria-labelledby="unit-registration"
+        >
           <h2 id="unit-registration" className="text-xl font-extrabold md:col-span-4">
             Registration
           </h2>
@@ -264,7 +271,10 @@ export function UnitForm({
           </Field>
         </section>
 
-        <section className={`${panelClass} flex flex-col gap-3 p-3 md:p-4`} aria-labelledby="unit-axles">
+        <section
+          className={`${panelClass({ padding: 'none' })} flex flex-col gap-3 p-3 md:p-4`}
+          aria-labelledby="unit-axles"
+        >
           <div className="flex flex-wrap items-end justify-between gap-2">
             <div>
               <h2 id="unit-axles" className="text-xl font-extrabold">
@@ -284,7 +294,7 @@ export function UnitForm({
                     <button
                       key={t.label}
                       type="button"
-                      className={officeButtonClass('plain')}
+                      className={buttonClass('plain', 'compact')}
                       onClick={() => setAxles(fromTemplate(t, targets))}
                     >
                       {t.label}
@@ -361,7 +371,7 @@ export function UnitForm({
                 {readOnly ? null : (
                   <button
                     type="button"
-                    className={`${officeButtonClass('plain')} col-span-2 md:col-span-1 md:mt-7`}
+                    className={`${buttonClass('plain', 'compact')} col-span-2 md:col-span-1 md:mt-7`}
                     aria-label={`Remove axle ${i + 1}`}
                     disabled={axles.length === 1}
                     onClick={() => setAxles((list) => removeAxle(list, i))}
@@ -375,7 +385,7 @@ export function UnitForm({
           {readOnly || axles.length >= 6 ? null : (
             <button
               type="button"
-              className={`${officeButtonClass('plain')} self-start`}
+              className={`${buttonClass('plain', 'compact')} self-start`}
               onClick={() =>
                 setAxles((list) => [...list, makeAxle(kind === 'trailer' ? 'trailer' : 'drive', list.length, targets)])
               }
@@ -390,7 +400,11 @@ export function UnitForm({
       {saved ? <FormNotice kind="saved">{saved}</FormNotice> : null}
       {readOnly ? null : (
         <div>
-          <button type="submit" className={`${officeButtonClass('primary')} min-w-60`} disabled={busy || !hydrated}>
+          <button
+            type="submit"
+            className={`${buttonClass('primary', 'compact')} min-w-60`}
+            disabled={busy || !hydrated}
+          >
             {busy ? 'Saving…' : submitLabel}
           </button>
         </div>

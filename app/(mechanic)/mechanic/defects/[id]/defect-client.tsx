@@ -6,12 +6,16 @@ import { useState } from 'react';
 import { formatDateTime, kindLabel, zoneLabel } from '@/components/office/format';
 import { useHydrated } from '@/components/ui/use-hydrated';
 import { SafetyCautions } from '@/components/office/safety-cautions';
-import { PassMark, SeverityMark, UnitStatusBadge } from '@/components/office/severity-mark';
+import { Button, buttonClass } from '@/components/ui/button';
+import { Field, FieldError } from '@/components/ui/field';
+import { Panel } from '@/components/ui/panel';
+import { SeverityMark } from '@/components/ui/severity-mark';
+import { UnitStatus } from '@/components/ui/unit-status';
 import { ApiError, fetchJson } from '@/lib/http/fetch-json';
 import { defectDetailOptions, useCertifyRepairMutation } from '@/lib/queries/defects';
 import { repairCertificationStatement } from '@/lib/schemas/defects';
 
-const input = 'w-full rounded-md border-2 border-edge/60 bg-ground p-2 text-base';
+const input = 'w-full rounded-md border-2 border-edge/60 bg-ground p-2 text-base aria-[invalid=true]:border-major';
 
 export function DefectClient({ id, userName, canCertify }: { id: string; userName: string; canCertify: boolean }) {
   const { data: d } = useQuery(defectDetailOptions(id));
@@ -41,21 +45,14 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
   };
   if (!d) return <p>Loading the defect…</p>;
   const fields: Record<string, string[]> = certify.error instanceof ApiError ? (certify.error.fields ?? {}) : {};
-  const fieldError = (k: string) =>
-    fields[k] ? (
-      <span className="block text-sm font-bold text-major" role="alert">
-        {fields[k]!.join(' ')}
-      </span>
-    ) : null;
+  const fieldError = (k: string) => fields[k]?.join(' ');
 
   return (
     <article className="space-y-5">
       <Link href="/mechanic" className="text-base font-bold underline-offset-2 hover:underline">
         ← Open defects
       </Link>
-      <header
-        className={`space-y-2 rounded-lg border-slab bg-panel p-4 ${d.severity === 'major' ? 'border-l-[12px] border-major' : 'border-edge'}`}
-      >
+      <Panel as="header" className={`space-y-2 ${d.severity === 'major' ? 'border-l-[12px] border-l-major' : ''}`}>
         <SeverityMark severity={d.severity} />
         <h1 className="text-3xl font-extrabold">{d.description}</h1>
         <p className="flex flex-wrap items-center gap-3 text-lg">
@@ -66,7 +63,7 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
               {d.unitMake ? `, ${d.unitMake} ${d.unitModel ?? ''}` : ''})
             </span>
           </span>
-          <UnitStatusBadge status={d.unitStatus} />
+          <UnitStatus status={d.unitStatus} />
         </p>
         <dl className="grid grid-cols-2 gap-3 text-base md:grid-cols-4">
           <div>
@@ -122,7 +119,9 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
         )}
         {canCertify && (
           <div className="flex flex-wrap items-center gap-3">
-            <label className="inline-flex min-h-target cursor-pointer items-center rounded-lg border-slab border-edge bg-panel px-4 text-lg font-bold">
+            <label
+              className={`${buttonClass('plain', 'touch')} cursor-pointer has-[:focus-visible]:outline-4 has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-vest`}
+            >
               Add a repair photo
               <input
                 type="file"
@@ -143,7 +142,7 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
             )}
           </div>
         )}
-      </header>
+      </Panel>
 
       {certify.data && (
         <p role="status" className="rounded border-2 border-pass p-2 text-lg font-bold" data-testid="certify-result">
@@ -156,13 +155,12 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
         </p>
       )}
       {d.certification ? (
-        <section
-          aria-labelledby="cert-heading"
-          className="rounded-lg border-slab border-pass bg-panel p-4"
-          data-testid="certification"
-        >
+        <Panel as="section" tone="pass" aria-labelledby="cert-heading" data-testid="certification">
           <h2 id="cert-heading" className="text-xl font-extrabold">
-            <PassMark label={d.status === 'repaired' ? 'Repaired and certified' : 'No repair needed, certified'} />
+            <SeverityMark
+              severity="pass"
+              label={d.status === 'repaired' ? 'Repaired and certified' : 'No repair needed, certified'}
+            />
           </h2>
           <p className="text-lg">
             {d.certification.name}, {formatDateTime(d.certification.at)}
@@ -171,43 +169,53 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
           {d.repair.parts && <p>Parts: {d.repair.parts}</p>}
           {d.repair.notes && <p>Notes: {d.repair.notes}</p>}
           <p className="mt-2 text-muted italic">&ldquo;{d.certification.text}&rdquo;</p>
-        </section>
+        </Panel>
       ) : (
         <div className="grid gap-5 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
-          <form
+          <Panel
+            as="form"
             aria-label="Repair and certification"
-            className="space-y-4 rounded-lg border-slab border-edge bg-panel p-4"
+            className="space-y-4"
             onSubmit={(e) => {
               e.preventDefault();
               certify.mutate({ outcome, work, parts, notes, certifiedName: name, confirm: confirm as true });
             }}
           >
             <h2 className="text-xl font-extrabold">Repair</h2>
-            <label className="block font-bold">
-              Work done
-              <textarea
-                className={input}
-                rows={3}
-                value={work}
-                onChange={(e) => setWork(e.target.value)}
-                placeholder="What you did, or what you checked"
-              />
-              {fieldError('work')}
-            </label>
-            <label className="block font-bold">
-              Parts
-              <input
-                className={input}
-                value={parts}
-                onChange={(e) => setParts(e.target.value)}
-                placeholder="Part numbers, or none"
-              />
-            </label>
-            <label className="block font-bold">
-              Notes
-              <textarea className={input} rows={2} value={notes} onChange={(e) => setNotes(e.target.value)} />
-              {fieldError('notes')}
-            </label>
+            <Field id="repair-work" label="Work done" error={fieldError('work')}>
+              {(control) => (
+                <textarea
+                  {...control}
+                  className={input}
+                  rows={3}
+                  value={work}
+                  onChange={(e) => setWork(e.target.value)}
+                  placeholder="What you did, or what you checked"
+                />
+              )}
+            </Field>
+            <Field id="repair-parts" label="Parts" error={fieldError('parts')}>
+              {(control) => (
+                <input
+                  {...control}
+                  className={input}
+                  value={parts}
+                  onChange={(e) => setParts(e.target.value)}
+                  placeholder="Part numbers, or none"
+                />
+              )}
+            </Field>
+            <Field id="repair-notes" label="Notes" error={fieldError('notes')}>
+              {(control) => (
+                <textarea
+                  {...control}
+                  className={input}
+                  rows={2}
+                  value={notes}
+                  onChange={(e) => setNotes(e.target.value)}
+                />
+              )}
+            </Field>
             <fieldset className="space-y-2">
               <legend className="text-xl font-extrabold">Certification</legend>
               {(['repaired', 'no_repair_needed'] as const).map((o) => (
@@ -226,11 +234,17 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
                   {o === 'repaired' ? 'Repaired' : 'No repair needed'}
                 </label>
               ))}
-              <label className="block font-bold">
-                Your full name (signature)
-                <input className={input} value={name} onChange={(e) => setName(e.target.value)} autoComplete="name" />
-                {fieldError('certifiedName')}
-              </label>
+              <Field id="repair-signature" label="Your full name (signature)" error={fieldError('certifiedName')}>
+                {(control) => (
+                  <input
+                    {...control}
+                    className={input}
+                    value={name}
+                    onChange={(e) => setName(e.target.value)}
+                    autoComplete="name"
+                  />
+                )}
+              </Field>
               <label className="flex items-start gap-3 text-base">
                 <input
                   type="checkbox"
@@ -240,7 +254,7 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
                 />
                 <span>{repairCertificationStatement[outcome]} The time of signing is recorded.</span>
               </label>
-              {fieldError('confirm')}
+              {fieldError('confirm') ? <FieldError message={fieldError('confirm') ?? ''} /> : null}
             </fieldset>
             {certify.error && !Object.keys(fields).length && (
               <p role="alert" className="font-bold text-major">
@@ -248,17 +262,13 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
               </p>
             )}
             {canCertify ? (
-              <button
-                type="submit"
-                disabled={!live || certify.isPending}
-                className="min-h-target w-full rounded-lg border-slab border-edge bg-vest px-5 text-xl font-extrabold text-on-vest disabled:opacity-50"
-              >
+              <Button type="submit" tone="primary" disabled={!live || certify.isPending}>
                 {certify.isPending ? 'Signing…' : 'Sign the certification'}
-              </button>
+              </Button>
             ) : (
               <p className="text-muted">Only a mechanic signs a repair certification.</p>
             )}
-          </form>
+          </Panel>
           <SafetyCautions />
         </div>
       )}

@@ -5,12 +5,15 @@ import Link from 'next/link';
 import { useState } from 'react';
 import { formatDateTime, formatDuration, formatTime, kindLabel } from '@/components/office/format';
 import { useHydrated } from '@/components/ui/use-hydrated';
-import { MajorMark, MinorMark, PassMark, SeverityMark, UnitStatusBadge } from '@/components/office/severity-mark';
+import { Button, buttonClass } from '@/components/ui/button';
+import { Panel, panelClass } from '@/components/ui/panel';
+import { SeverityMark } from '@/components/ui/severity-mark';
+import { UnitStatus } from '@/components/ui/unit-status';
 import { reportDetailOptions, useNotifyShopMutation, useReviewReportMutation } from '@/lib/queries/reports';
 import type { ReportDetail } from '@/lib/schemas/reports';
 import { Transcript } from './transcript';
 
-function Field({ label, children }: { label: string; children: React.ReactNode }) {
+function Fact({ label, children }: { label: string; children: React.ReactNode }) {
   return (
     <div>
       <dt className="text-sm font-bold tracking-wide text-muted uppercase">{label}</dt>
@@ -22,11 +25,7 @@ function Field({ label, children }: { label: string; children: React.ReactNode }
 function HashState({ hash }: { hash: ReportDetail['hash'] }) {
   if (hash.state === 'mismatch')
     return (
-      <div
-        role="alert"
-        data-testid="hash-mismatch"
-        className="rounded-lg border-slab border-edge bg-major p-4 text-on-major"
-      >
+      <div role="alert" data-testid="hash-mismatch" className={`${panelClass()} bg-major text-on-major`}>
         <p className="text-xl font-extrabold">THE RECORD DOES NOT MATCH ITS SIGNATURE</p>
         <p>
           The steps stored for this report no longer give the hash signed with it: something changed after the driver
@@ -39,7 +38,7 @@ function HashState({ hash }: { hash: ReportDetail['hash'] }) {
   if (hash.state === 'unsigned') return <p className="text-muted">Not signed yet: no content hash.</p>;
   return (
     <p className="flex flex-wrap items-center gap-2 text-sm" data-testid="hash-match">
-      <PassMark label="Rows match the signed hash" />
+      <SeverityMark severity="pass" label="Rows match the signed hash" />
       <span className="font-mono break-all text-muted">{hash.stored}</span>
     </p>
   );
@@ -60,7 +59,7 @@ export function ReportClient({ id }: { id: string }) {
       <Link href="/supervisor/reports" className="text-base font-bold underline-offset-2 hover:underline">
         ← All reports
       </Link>
-      <header className="space-y-3 rounded-lg border-slab border-edge bg-panel p-4">
+      <Panel as="header" className="space-y-3">
         <div className="flex flex-wrap items-baseline gap-x-4 gap-y-1">
           <h1 className="text-3xl font-extrabold">
             {kindLabel(r.kind)} · unit {r.tractor.number}
@@ -70,64 +69,65 @@ export function ReportClient({ id }: { id: string }) {
           {r.status === 'draft' && <span className="rounded border-2 border-edge px-2 font-bold">still walking</span>}
         </div>
         <dl className="grid grid-cols-2 gap-x-6 gap-y-3 md:grid-cols-4">
-          <Field label="Driver">{r.driverName}</Field>
-          <Field label="Tractor">
+          <Fact label="Driver">{r.driverName}</Fact>
+          <Fact label="Tractor">
             {r.tractor.number} {r.tractor.plate ? `· ${r.tractor.plate}` : ''}{' '}
-            <UnitStatusBadge status={r.tractor.status === 'out_of_service' ? 'out_of_service' : 'in_service'} />
-          </Field>
-          <Field label="Trailer">
+            <UnitStatus status={r.tractor.status === 'out_of_service' ? 'out_of_service' : 'in_service'} />
+          </Fact>
+          <Fact label="Trailer">
             {r.trailer ? (
               <>
                 {r.trailer.number}{' '}
-                <UnitStatusBadge status={r.trailer.status === 'out_of_service' ? 'out_of_service' : 'in_service'} />
+                <UnitStatus status={r.trailer.status === 'out_of_service' ? 'out_of_service' : 'in_service'} />
               </>
             ) : (
               'none (bobtail)'
             )}
-          </Field>
-          <Field label="Odometer">{r.odometer === null ? '—' : `${r.odometer.toLocaleString('en-US')} mi`}</Field>
-          <Field label="Started · finished">
+          </Fact>
+          <Fact label="Odometer">{r.odometer === null ? '—' : `${r.odometer.toLocaleString('en-US')} mi`}</Fact>
+          <Fact label="Started · finished">
             {formatTime(r.startedAt, tz)} · {formatTime(r.finishedAt, tz)}
-          </Field>
-          <Field label="Duration">
+          </Fact>
+          <Fact label="Duration">
             {r.duration ? (
               <span className={r.duration.short ? 'font-extrabold text-minor' : ''} data-testid="duration">
                 {formatDuration(r.durationS ?? r.duration.minutes * 60)} of {r.duration.minimumMinutes} min minimum
                 {r.duration.short && (
                   <span className="block">
-                    <MinorMark label="shorter than the fleet minimum" />
+                    <SeverityMark severity="minor" label="shorter than the fleet minimum" />
                   </span>
                 )}
               </span>
             ) : (
               '—'
             )}
-          </Field>
-          <Field label="Vocabulary">{r.vocabulary.label ?? '—'}</Field>
-          <Field label="Location">{r.location ?? '—'}</Field>
+          </Fact>
+          <Fact label="Vocabulary">{r.vocabulary.label ?? '—'}</Fact>
+          <Fact label="Location">{r.location ?? '—'}</Fact>
         </dl>
         <HashState hash={r.hash} />
         {r.skippedZones.length > 0 && (
           <p className="rounded border-2 border-minor p-2">
-            <MinorMark label="Zones not walked:" /> {r.skippedZones.map((z) => z.name).join(', ')}
+            <SeverityMark severity="minor" label="Zones not walked:" /> {r.skippedZones.map((z) => z.name).join(', ')}
           </p>
         )}
         {r.lowConfidenceUnconfirmed > 0 && (
           <p className="rounded border-2 border-minor p-2">
-            <MinorMark
+            <SeverityMark
+              severity="minor"
               label={`${r.lowConfidenceUnconfirmed} unsure match(es) accepted without the driver confirming`}
             />
           </p>
         )}
-      </header>
+      </Panel>
 
       <div className="grid gap-5 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
-        <section aria-labelledby="defects-heading" className="rounded-lg border-slab border-edge bg-panel p-4">
+        <Panel as="section" aria-labelledby="defects-heading">
           <h2 id="defects-heading" className="mb-2 text-xl font-extrabold">
             Defects ({r.defects.length})
           </h2>
           {r.defects.length === 0 ? (
-            <PassMark label="No defect found or reported" />
+            <SeverityMark severity="pass" label="No defect found or reported" />
           ) : (
             <ul className="space-y-2">
               {r.defects.map((d) => (
@@ -146,8 +146,8 @@ export function ReportClient({ id }: { id: string }) {
                   </div>
                   {d.status !== 'open' && (
                     <p className="text-sm">
-                      <PassMark label={d.status === 'repaired' ? 'Repaired' : 'No repair needed'} /> by{' '}
-                      {d.certifiedName}, {formatDateTime(d.certifiedAt, tz)}
+                      <SeverityMark severity="pass" label={d.status === 'repaired' ? 'Repaired' : 'No repair needed'} />{' '}
+                      by {d.certifiedName}, {formatDateTime(d.certifiedAt, tz)}
                       {d.repairWork ? ` — ${d.repairWork}` : ''}
                     </p>
                   )}
@@ -171,16 +171,17 @@ export function ReportClient({ id }: { id: string }) {
                 : 'No defect listed: no review signature needed.'}
             </p>
           )}
-        </section>
+        </Panel>
 
         <aside className="space-y-4">
-          <section aria-labelledby="review-heading" className="rounded-lg border-slab border-edge bg-panel p-4">
+          <Panel as="section" aria-labelledby="review-heading">
             <h2 id="review-heading" className="mb-2 text-xl font-extrabold">
               Office review
             </h2>
             {r.review.reviewedAt && (
               <p className="mb-2" data-testid="review-state">
-                <PassMark label="Reviewed" /> by {r.review.reviewerName}, {formatDateTime(r.review.reviewedAt, tz)}
+                <SeverityMark severity="pass" label="Reviewed" /> by {r.review.reviewerName},{' '}
+                {formatDateTime(r.review.reviewedAt, tz)}
               </p>
             )}
             <form
@@ -201,13 +202,15 @@ export function ReportClient({ id }: { id: string }) {
                 value={note ?? r.review.note ?? ''}
                 onChange={(e) => setNote(e.target.value)}
               />
-              <button
+              <Button
                 type="submit"
+                tone="primary"
+                size="compact"
+                className="w-full"
                 disabled={!live || review.isPending || r.status !== 'submitted'}
-                className="w-full rounded-lg border-slab border-edge bg-vest px-4 py-3 text-lg font-extrabold text-on-vest disabled:opacity-50"
               >
                 {review.isPending ? 'Saving…' : r.review.reviewedAt ? 'Update review' : 'Mark reviewed'}
-              </button>
+              </Button>
               {review.error && (
                 <p role="alert" className="font-bold text-major">
                   {review.error.message}
@@ -215,25 +218,25 @@ export function ReportClient({ id }: { id: string }) {
               )}
               {review.isSuccess && <p role="status">Saved.</p>}
             </form>
-          </section>
-          <section className="space-y-2 rounded-lg border-slab border-edge bg-panel p-4">
+          </Panel>
+          <Panel as="section" aria-label="Printing and mail" className="space-y-2">
             <a
               href={`/api/reports/${r.id}/pdf`}
               target="_blank"
               rel="noreferrer"
-              className="block rounded-lg border-slab border-edge px-4 py-2.5 text-center text-base font-bold hover:bg-ground"
+              className={`${buttonClass('plain', 'compact')} w-full`}
             >
               Printable report (PDF)
             </a>
             {openDefects.length > 0 && (
-              <button
-                type="button"
+              <Button
+                size="compact"
+                className="w-full"
                 onClick={() => notify.mutate()}
                 disabled={!live || notify.isPending}
-                className="w-full rounded-lg border-slab border-edge px-4 py-2.5 text-base font-bold hover:bg-ground disabled:opacity-50"
               >
                 {notify.isPending ? 'Sending…' : 'Mail the shop about open defects'}
-              </button>
+              </Button>
             )}
             {notify.data && (
               <p role="status" className="text-sm">
@@ -253,10 +256,10 @@ export function ReportClient({ id }: { id: string }) {
             )}
             {openDefects.some((d) => d.severity === 'major') && (
               <p className="text-sm">
-                <MajorMark /> — a major defect is open.
+                <SeverityMark severity="major" /> — a major defect is open.
               </p>
             )}
-          </section>
+          </Panel>
         </aside>
       </div>
 

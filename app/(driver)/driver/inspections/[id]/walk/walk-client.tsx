@@ -3,7 +3,9 @@
 import Link from 'next/link';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { useStore } from 'zustand';
-import { SlabButton, slabClass } from '@/components/ui/slab-button';
+import { Button, buttonClass } from '@/components/ui/button';
+import { panelClass } from '@/components/ui/panel';
+import { SeverityMark } from '@/components/ui/severity-mark';
 import { buildCheckInput, measureUnit, type CheckContext } from '@/lib/inspection/build-check';
 import { deviceQueue, dropFailedRequest, enqueueRequest } from '@/lib/inspection/device-queue';
 import { planResend } from '@/lib/inspection/resend-missing';
@@ -26,7 +28,6 @@ import {
   PendingMatchPanel,
   ReadingResult,
   SealCheckPanel,
-  SeverityMark,
   SignaturePad,
   WalkStatusBar,
 } from './walk-parts';
@@ -315,24 +316,22 @@ export function WalkClient(props: Props) {
           return say('No reading of that kind here.');
         case 'finding':
           if (d.needsConfirmation) {
-            store
-              .getState()
-              .holdForConfirmation({
-                heard,
-                alternatives,
-                inputMode,
-                top: {
-                  termKey: d.termKey,
-                  component: d.component,
-                  condition: d.condition,
-                  position: d.position,
-                  severity: d.severity,
-                  score: d.score,
-                  itemId: d.itemId,
-                },
-                others: d.alternatives,
-                declined: false,
-              });
+            store.getState().holdForConfirmation({
+              heard,
+              alternatives,
+              inputMode,
+              top: {
+                termKey: d.termKey,
+                component: d.component,
+                condition: d.condition,
+                position: d.position,
+                severity: d.severity,
+                score: d.score,
+                itemId: d.itemId,
+              },
+              others: d.alternatives,
+              declined: false,
+            });
             return say(`Did you mean ${d.component}, ${d.condition}? Yes or no.`);
           }
           return logFinding({
@@ -454,7 +453,7 @@ export function WalkClient(props: Props) {
         queue={queue}
         itemsLeft={itemsLeft}
       >
-        <section aria-live="polite" className="mt-2 rounded-lg border-slab border-edge bg-panel px-3 py-2">
+        <section aria-live="polite" className={`mt-2 ${panelClass({ padding: 'none' })} px-3 py-2`}>
           <p className="text-base text-muted">
             {mic.state === 'listening'
               ? '● Listening'
@@ -484,7 +483,7 @@ export function WalkClient(props: Props) {
           </p>
         )}
         {queue.failed.length > 0 && (
-          <div role="alert" className="rounded-lg border-slab border-major bg-panel p-3 text-lg">
+          <div role="alert" className={`${panelClass({ padding: 'sm', tone: 'major' })} text-lg`}>
             <p className="font-bold text-major">
               ▲ The server refused {queue.failed.length} entr{queue.failed.length > 1 ? 'ies' : 'y'}:
             </p>
@@ -540,14 +539,11 @@ export function WalkClient(props: Props) {
           />
         )}
         {pickerFor && (
-          <section
-            aria-label={`Defect on ${pickerFor.label}`}
-            className="space-y-2 rounded-lg border-slab border-edge bg-panel p-3"
-          >
+          <section aria-label={`Defect on ${pickerFor.label}`} className={`space-y-2 ${panelClass({ padding: 'sm' })}`}>
             <p className="text-xl font-bold">What is wrong with the {pickerFor.label}?</p>
             <div className="grid grid-cols-2 gap-2">
               {(componentById.get(pickerFor.component)?.defects ?? []).map((d) => (
-                <SlabButton
+                <Button
                   key={d.condition}
                   onClick={() => {
                     setPickerFor(null);
@@ -564,14 +560,14 @@ export function WalkClient(props: Props) {
                   }}
                 >
                   {conditionName.get(d.condition) ?? d.condition}
-                </SlabButton>
+                </Button>
               ))}
             </div>
-            <SlabButton onClick={() => setPickerFor(null)}>Cancel</SlabButton>
+            <Button onClick={() => setPickerFor(null)}>Cancel</Button>
           </section>
         )}
         {(zoneCautions[zone.id] ?? []).length > 0 && (
-          <aside aria-label="Safety" className="rounded-lg border-slab border-edge bg-panel p-3 text-lg">
+          <aside aria-label="Safety" className={`${panelClass({ padding: 'sm' })} text-lg`}>
             {zoneCautions[zone.id]!.map((c) => (
               <p key={c.text}>
                 <span aria-hidden="true">⚠ </span>
@@ -617,28 +613,23 @@ export function WalkClient(props: Props) {
             placeholder="Type a finding or a reading"
             aria-label="Type a finding or a reading"
           />
-          <button
-            type="submit"
-            className="min-h-target min-w-target shrink-0 rounded-lg border-slab border-edge bg-panel px-4 text-xl font-bold"
-          >
+          <Button type="submit" size="touch">
             Send
-          </button>
+          </Button>
         </form>
         <div className="grid grid-cols-2 gap-2">
-          <SlabButton onClick={() => goTo(zoneIndex - 1)} disabled={zoneIndex === 0}>
+          <Button onClick={() => goTo(zoneIndex - 1)} disabled={zoneIndex === 0}>
             ◀ Back
-          </SlabButton>
-          <SlabButton onClick={() => goTo(zoneIndex + 1)} disabled={zoneIndex === zones.length - 1}>
+          </Button>
+          <Button onClick={() => goTo(zoneIndex + 1)} disabled={zoneIndex === zones.length - 1}>
             Next ▶
-          </SlabButton>
-          <SlabButton onClick={() => photoInput.current?.click()}>
-            Photo{photos.length ? ` (${photos.length})` : ''}
-          </SlabButton>
-          <SlabButton onClick={() => takeBack('tap')}>Undo</SlabButton>
-          <SlabButton onClick={() => setMuted((m) => !m)} aria-pressed={muted}>
+          </Button>
+          <Button onClick={() => photoInput.current?.click()}>Photo{photos.length ? ` (${photos.length})` : ''}</Button>
+          <Button onClick={() => takeBack('tap')}>Undo</Button>
+          <Button onClick={() => setMuted((m) => !m)} aria-pressed={muted}>
             {muted ? 'Voice prompts off' : 'Voice prompts on'}
-          </SlabButton>
-          <SlabButton onClick={() => store.getState().setPhase('reviewing')}>Review &amp; sign</SlabButton>
+          </Button>
+          <Button onClick={() => store.getState().setPhase('reviewing')}>Review &amp; sign</Button>
         </div>
         <input
           ref={photoInput}
@@ -656,18 +647,18 @@ export function WalkClient(props: Props) {
         </p>
       </div>
       <div className="fixed inset-x-0 bottom-0 z-10 grid grid-cols-2 gap-2 border-t-slab border-edge bg-ground p-2">
-        <SlabButton
+        <Button
           tone={listening ? 'plain' : 'primary'}
           onClick={toggleListen}
           disabled={!listener.current || mic.state === 'denied'}
           aria-pressed={listening}
         >
           {listening ? '■ Stop listening' : '● Listen'}
-        </SlabButton>
+        </Button>
         {mic.state === 'unavailable' || mic.state === 'denied' ? (
-          <SlabButton tone="primary" onClick={() => markZoneGood('tap', null)}>
+          <Button tone="primary" onClick={() => markZoneGood('tap', null)}>
             All good ▶
-          </SlabButton>
+          </Button>
         ) : (
           <HoldToTalk
             disabled={!listener.current}
@@ -676,9 +667,9 @@ export function WalkClient(props: Props) {
           />
         )}
         <div className="col-span-2">
-          <SlabButton tone="primary" onClick={() => markZoneGood('tap', null)}>
+          <Button tone="primary" onClick={() => markZoneGood('tap', null)}>
             All good here ▶ next zone
-          </SlabButton>
+          </Button>
         </div>
       </div>
     </div>
@@ -703,7 +694,7 @@ function ChecklistRow({
   const [value, setValue] = useState('');
   const measure = item.measure;
   return (
-    <li className="space-y-2 rounded-lg border-slab border-edge bg-panel p-3" data-item={item.id}>
+    <li className={`space-y-2 ${panelClass({ padding: 'sm' })}`} data-item={item.id}>
       <div className="flex flex-wrap items-center justify-between gap-2">
         <p className="text-xl font-bold">{capitalize(item.label)}</p>
         <AnswerMark answer={answer} />
@@ -729,23 +720,20 @@ function ChecklistRow({
               aria-label={`${item.label} in ${measureUnit[measure]}`}
               placeholder={measureUnit[measure] === '32nds' ? 'e.g. 6 (/32 in)' : measureUnit[measure]}
             />
-            <button
-              type="submit"
-              className="min-h-target min-w-target shrink-0 rounded-lg border-slab border-edge bg-vest px-4 text-xl font-bold text-on-vest"
-            >
+            <Button type="submit" tone="primary" size="touch">
               Record
-            </button>
+            </Button>
           </form>
           <ReadingResult step={reading} />
         </>
       ) : (
         <div className="grid grid-cols-2 gap-2">
-          <SlabButton onClick={onOk} aria-label={`${item.label}: OK`}>
+          <Button onClick={onOk} aria-label={`${item.label}: OK`}>
             ✓ OK
-          </SlabButton>
-          <SlabButton onClick={onDefect} aria-label={`${item.label}: defect`}>
+          </Button>
+          <Button onClick={onDefect} aria-label={`${item.label}: defect`}>
             ▲ Defect
-          </SlabButton>
+          </Button>
         </div>
       )}
     </li>
@@ -846,13 +834,13 @@ function ReviewAndSign(
     <div className="flex flex-col gap-4 pb-10">
       <h1 className="text-3xl font-extrabold">{phase === 'signed' ? 'Signed' : 'Review and sign'}</h1>
       <div className="grid grid-cols-3 gap-2 text-center">
-        <p className="rounded-lg border-slab border-edge bg-panel p-3">
+        <p className={panelClass({ padding: 'sm' })}>
           <span className="block text-3xl font-extrabold">{majors.length}</span> major
         </p>
-        <p className="rounded-lg border-slab border-edge bg-panel p-3">
+        <p className={panelClass({ padding: 'sm' })}>
           <span className="block text-3xl font-extrabold">{defects.length - majors.length}</span> minor
         </p>
-        <p className="rounded-lg border-slab border-edge bg-panel p-3">
+        <p className={panelClass({ padding: 'sm' })}>
           <span className="block text-3xl font-extrabold">{unchecked.length}</span> not checked
         </p>
       </div>
@@ -871,7 +859,7 @@ function ReviewAndSign(
       )}
       <ul className="space-y-2" aria-label="Defects">
         {defects.map((d) => (
-          <li key={d.id} className="rounded-lg border-slab border-edge bg-panel p-3 text-lg">
+          <li key={d.id} className={`${panelClass({ padding: 'sm' })} text-lg`}>
             <SeverityMark severity={d.severity ?? 'major'} /> {d.label}
             {d.kind === 'measurement' && d.limit
               ? ` (limit ${formatReading(Number(d.limit.split(' ')[0]), d.limit.split(' ').slice(1).join(' '))})`
@@ -880,7 +868,7 @@ function ReviewAndSign(
         ))}
       </ul>
       {unchecked.length > 0 && (
-        <details className="rounded-lg border-slab border-edge bg-panel p-3 text-lg">
+        <details className={`${panelClass({ padding: 'sm' })} text-lg`}>
           <summary className="min-h-target cursor-pointer content-center font-bold">
             Items not checked ({unchecked.length})
           </summary>
@@ -905,13 +893,13 @@ function ReviewAndSign(
                   ? `▲ ${queue.failed[0]!.error}`
                   : `Saved on this phone; sending ${queue.pending}…`}
           </p>
-          <Link href="/driver" className={slabClass('primary')}>
+          <Link href="/driver" className={buttonClass('primary')}>
             Done
           </Link>
         </div>
       ) : (
         <>
-          <SlabButton onClick={() => store.getState().setPhase('walking')}>◀ Back to the walk</SlabButton>
+          <Button onClick={() => store.getState().setPhase('walking')}>◀ Back to the walk</Button>
           <label className="flex min-h-target items-center gap-3 rounded-lg border-slab border-edge bg-panel p-3 text-lg">
             <input
               type="checkbox"
@@ -933,13 +921,9 @@ function ReviewAndSign(
           </label>
           <p className="text-lg font-bold">Sign with your finger</p>
           <SignaturePad canvasRef={pad} onInk={setInked} />
-          <SlabButton
-            tone="primary"
-            disabled={!certified || name.trim().length < 2 || !inked}
-            onClick={() => void sign()}
-          >
+          <Button tone="primary" disabled={!certified || name.trim().length < 2 || !inked} onClick={() => void sign()}>
             Sign and lock the report
-          </SlabButton>
+          </Button>
         </>
       )}
     </div>

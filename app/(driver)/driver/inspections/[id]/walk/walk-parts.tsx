@@ -2,21 +2,15 @@
 // Pieces of the walk screen. Every control is a slab at least 64 px high, for a gloved thumb.
 
 import { useEffect, useRef, useState, type ReactNode } from 'react';
-import { SlabButton } from '@/components/ui/slab-button';
+import { Button } from '@/components/ui/button';
+import { panelClass } from '@/components/ui/panel';
+import { SeverityMark } from '@/components/ui/severity-mark';
 import type { QueueStatus } from '@/lib/inspection/use-flush-queue';
 import type { PendingMatch, WalkStep } from '@/lib/inspection/store';
 import type { ItemAnswer } from '@/lib/inspection/walk-progress';
 import { compareSeal, readSpokenSeal } from '@/lib/inspection/seal-check';
 
 export const inputClass = 'min-h-target w-full rounded-lg border-slab border-edge bg-panel px-4 text-2xl text-ink';
-
-/** Severity in words and shape, never by colour alone. */
-export function SeverityMark({ severity }: { severity: 'minor' | 'major' | null | undefined }) {
-  if (severity === 'major')
-    return <span className="rounded bg-major px-2 py-0.5 font-extrabold text-on-major">■ MAJOR · OUT OF SERVICE</span>;
-  if (severity === 'minor') return <span className="font-bold text-minor">△ minor</span>;
-  return null;
-}
 
 export function AnswerMark({ answer }: { answer: ItemAnswer | undefined }) {
   if (answer === 'ok' || answer === 'measured')
@@ -110,7 +104,7 @@ export function PendingMatchPanel({
   onNone: () => void;
 }) {
   return (
-    <section aria-label="Did you mean" className="space-y-3 rounded-lg border-slab border-edge bg-panel p-4">
+    <section aria-label="Did you mean" className={`space-y-3 ${panelClass()}`}>
       <p className="text-lg text-muted">Heard: “{pending.heard}”</p>
       {!pending.declined ? (
         <>
@@ -119,10 +113,10 @@ export function PendingMatchPanel({
             {pending.top.component}, {pending.top.condition}?
           </p>
           <div className="grid grid-cols-2 gap-2">
-            <SlabButton tone="primary" onClick={onYes}>
+            <Button tone="primary" onClick={onYes}>
               Yes
-            </SlabButton>
-            <SlabButton onClick={onNo}>No</SlabButton>
+            </Button>
+            <Button onClick={onNo}>No</Button>
           </div>
         </>
       ) : (
@@ -130,11 +124,11 @@ export function PendingMatchPanel({
           <p className="text-2xl font-extrabold">Which one?</p>
           <div className="flex flex-col gap-2">
             {pending.others.slice(0, 4).map((a) => (
-              <SlabButton key={a.termId} onClick={() => onPick(a.termId)}>
+              <Button key={a.termId} onClick={() => onPick(a.termId)}>
                 {a.component}, {a.condition}
-              </SlabButton>
+              </Button>
             ))}
-            <SlabButton onClick={onNone}>None of these</SlabButton>
+            <Button onClick={onNone}>None of these</Button>
           </div>
         </>
       )}
@@ -155,7 +149,7 @@ export function AirTimer({ mode, onResult }: { mode: 'minute' | 'stopwatch'; onR
   if (mode === 'minute') {
     const left = Math.max(0, 60 - seconds);
     return startedAt === null ? (
-      <SlabButton onClick={() => (setStartedAt(Date.now()), setNow(Date.now()))}>Start the 1-minute timer</SlabButton>
+      <Button onClick={() => (setStartedAt(Date.now()), setNow(Date.now()))}>Start the 1-minute timer</Button>
     ) : (
       <p
         className="flex min-h-target items-center justify-center rounded-lg border-slab border-edge text-3xl font-extrabold"
@@ -166,9 +160,9 @@ export function AirTimer({ mode, onResult }: { mode: 'minute' | 'stopwatch'; onR
     );
   }
   return startedAt === null ? (
-    <SlabButton onClick={() => (setStartedAt(Date.now()), setNow(Date.now()))}>Start at 85 psi</SlabButton>
+    <Button onClick={() => (setStartedAt(Date.now()), setNow(Date.now()))}>Start at 85 psi</Button>
   ) : (
-    <SlabButton
+    <Button
       tone="primary"
       onClick={() => {
         onResult?.(seconds);
@@ -176,7 +170,7 @@ export function AirTimer({ mode, onResult }: { mode: 'minute' | 'stopwatch'; onR
       }}
     >
       Stop at 100 psi · {seconds} s
-    </SlabButton>
+    </Button>
   );
 }
 
@@ -185,7 +179,7 @@ export function SealCheckPanel({ expected, lastHeard }: { expected: string; last
   const heard = typed || (lastHeard ? readSpokenSeal(lastHeard) : '');
   const result = heard ? compareSeal(expected, heard) : null;
   return (
-    <section aria-label="Seal check" className="space-y-2 rounded-lg border-slab border-edge bg-panel p-4">
+    <section aria-label="Seal check" className={`space-y-2 ${panelClass()}`}>
       <p className="text-xl font-bold">
         Seal check: read the seal number aloud (say “seal” then the digits) or type it.
       </p>
@@ -225,8 +219,8 @@ export function ReadingResult({ step }: { step: WalkStep | undefined }) {
     return (
       <div className="space-y-1 text-lg">
         <p className="font-bold">
-          <SeverityMark severity={step.severity} /> {formatReading(step.reading?.value, unit)}: fails the limit{' '}
-          {limit ? `(${limit})` : ''}
+          {step.severity ? <SeverityMark severity={step.severity} /> : null} {formatReading(step.reading?.value, unit)}:
+          fails the limit {limit ? `(${limit})` : ''}
         </p>
         {step.message && <p>{step.message}</p>}
         {step.source && <p className="text-base text-muted">Source: {step.source}</p>}
@@ -314,7 +308,7 @@ export function SignaturePad({
         onPointerUp={() => (drawing.current = false)}
         onPointerCancel={() => (drawing.current = false)}
       />
-      <SlabButton onClick={clear}>Clear the signature</SlabButton>
+      <Button onClick={clear}>Clear the signature</Button>
     </div>
   );
 }

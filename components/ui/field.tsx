@@ -1,15 +1,24 @@
 import type { ReactNode } from 'react';
+import { cx } from './cx';
+
+/** The office screens' text inputs and selects; an invalid one gets a thicker, red outline. */
+export const inputClass =
+  'min-h-12 w-full rounded-md border-2 border-edge bg-panel px-3 text-lg text-ink placeholder:text-muted aria-[invalid=true]:border-slab aria-[invalid=true]:border-major';
+
+export const selectClass = `${inputClass} px-2`;
+
+export type FieldControlProps = { id: string; 'aria-describedby'?: string; 'aria-invalid': boolean };
 
 /**
- * A labelled form control with its hint and its error beside it. `children` receives the ids
- * to wire up: the control gets `id`, `aria-describedby` and `aria-invalid`.
+ * A labelled form control with its hint and its error beside it. `children` receives the props
+ * to spread on the control: `id`, `aria-describedby` (error, then hint) and `aria-invalid`.
  */
 export function Field({
   id,
   label,
   hint,
   error,
-  className = '',
+  className,
   children,
 }: {
   id: string;
@@ -17,18 +26,18 @@ export function Field({
   hint?: ReactNode;
   error?: string;
   className?: string;
-  children: (control: { id: string; 'aria-describedby'?: string; 'aria-invalid': boolean }) => ReactNode;
+  children: (control: FieldControlProps) => ReactNode;
 }) {
   const hintId = hint ? `${id}-hint` : undefined;
   const errorId = error ? `${id}-error` : undefined;
   const describedBy = [errorId, hintId].filter(Boolean).join(' ') || undefined;
   return (
-    <div className={`flex flex-col gap-1 ${className}`}>
+    <div className={cx('flex flex-col gap-1', className)}>
       <label htmlFor={id} className="text-base font-bold">
         {label}
       </label>
       {children({ id, 'aria-describedby': describedBy, 'aria-invalid': Boolean(error) })}
-      {error ? <FieldError id={errorId!} message={error} /> : null}
+      {error ? <FieldError id={errorId} message={error} /> : null}
       {hint ? (
         <p id={hintId} className="text-sm text-muted">
           {hint}
@@ -38,6 +47,7 @@ export function Field({
   );
 }
 
+/** One field's error: a glyph and words, not colour alone. */
 export function FieldError({ id, message }: { id?: string; message: string }) {
   return (
     <p id={id} className="text-base font-bold text-major">
