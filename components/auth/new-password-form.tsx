@@ -4,9 +4,8 @@ import { useState, type FormEvent } from 'react';
 import { buttonClass } from '@/components/ui/button';
 import { ApiError, fetchJson } from '@/lib/http/fetch-json';
 import { findPasswordProblem, passwordMinLength } from '@/lib/schemas/password';
-
-const field =
-  'min-h-target w-full rounded-lg border-slab border-edge bg-panel px-4 text-xl text-ink placeholder:text-muted';
+import { slabInputClass } from '@/components/ui/field';
+import { Panel } from '@/components/ui/panel';
 
 const textOf = (v: FormDataEntryValue | null) => (typeof v === 'string' ? v : '');
 
@@ -53,13 +52,13 @@ export function NewPasswordForm(props: Props) {
 
   if (done && props.mode === 'reset')
     return (
-      <p role="status" className="rounded-lg border-slab border-edge bg-panel p-4 text-lg">
+      <Panel as="p" role="status" className="text-lg">
         Your new password is set, and every other session has been signed out.{' '}
         <a href="/sign-in" className="font-bold underline">
           Sign in
         </a>{' '}
         with it.
-      </p>
+      </Panel>
     );
 
   const hint = (id: string) =>
@@ -83,7 +82,7 @@ export function NewPasswordForm(props: Props) {
               required
               aria-invalid={!!errors.currentPassword}
               aria-describedby={errors.currentPassword ? 'currentPassword-error' : undefined}
-              className={field}
+              className={slabInputClass}
             />
             {hint('currentPassword')}
           </label>
@@ -99,7 +98,7 @@ export function NewPasswordForm(props: Props) {
           minLength={passwordMinLength}
           aria-invalid={!!errors.newPassword}
           aria-describedby={errors.newPassword ? 'newPassword-error' : 'newPassword-help'}
-          className={field}
+          className={slabInputClass}
         />
         <span id="newPassword-help" className="text-base font-normal text-muted">
           At least {passwordMinLength} characters. A few words with spaces are easy to type and hard to guess.
@@ -115,15 +114,15 @@ export function NewPasswordForm(props: Props) {
           required
           aria-invalid={!!errors.repeatPassword}
           aria-describedby={errors.repeatPassword ? 'repeatPassword-error' : undefined}
-          className={field}
+          className={slabInputClass}
         />
         {hint('repeatPassword')}
       </label>
       {failure ? (
-        <p role="alert" className="rounded-lg border-slab border-major bg-panel p-4 text-lg font-bold text-major">
+        <Panel as="p" role="alert" tone="major" className="text-lg font-bold text-major">
           <span aria-hidden="true">▲ </span>
           {failure}
-        </p>
+        </Panel>
       ) : null}
       <button type="submit" className={buttonClass('primary')} disabled={busy}>
         {busy ? 'Saving…' : 'Save the new password'}

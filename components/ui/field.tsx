@@ -7,6 +7,10 @@ export const inputClass =
 
 export const selectClass = `${inputClass} px-2`;
 
+/** The driver's screens' text inputs: as tall as a slab button (64 px), for a gloved thumb. */
+export const slabInputClass =
+  'min-h-target w-full rounded-lg border-slab border-edge bg-panel px-4 text-xl text-ink placeholder:text-muted aria-[invalid=true]:border-major';
+
 export type FieldControlProps = { id: string; 'aria-describedby'?: string; 'aria-invalid': boolean };
 
 /**

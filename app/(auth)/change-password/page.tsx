@@ -2,6 +2,7 @@ import type { Metadata } from 'next';
 import { AuthFrame } from '@/components/auth/auth-frame';
 import { NewPasswordForm } from '@/components/auth/new-password-form';
 import { requirePasswordChanger } from '@/lib/auth/guards';
+import { Panel } from '@/components/ui/panel';
 
 export const metadata: Metadata = { title: 'Change password' };
 
@@ -10,10 +11,10 @@ export default async function ChangePasswordPage() {
   return (
     <AuthFrame title="Change password">
       {mustChangePassword ? (
-        <p role="status" className="rounded-lg border-slab border-edge bg-panel p-4 text-lg">
+        <Panel as="p" role="status" className="text-lg">
           You signed in with a temporary password. Choose your own before you carry on: nobody else, the person who
           invited you included, should know it.
-        </p>
+        </Panel>
       ) : (
         <p className="text-lg">Every other place you are signed in is signed out when you save.</p>
       )}

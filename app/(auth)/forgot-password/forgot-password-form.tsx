@@ -3,9 +3,8 @@
 import { useState, type FormEvent } from 'react';
 import { buttonClass } from '@/components/ui/button';
 import { fetchJson } from '@/lib/http/fetch-json';
-
-const field =
-  'min-h-target w-full rounded-lg border-slab border-edge bg-panel px-4 text-xl text-ink placeholder:text-muted';
+import { slabInputClass } from '@/components/ui/field';
+import { Panel } from '@/components/ui/panel';
 
 export function ForgotPasswordForm() {
   const [sent, setSent] = useState<string | null>(null);
@@ -31,21 +30,28 @@ export function ForgotPasswordForm() {
 
   if (sent)
     return (
-      <p role="status" className="rounded-lg border-slab border-edge bg-panel p-4 text-lg">
+      <Panel as="p" role="status" className="text-lg">
         {sent} The link works once, for an hour.
-      </p>
+      </Panel>
     );
   return (
     <form onSubmit={onSubmit} className="flex flex-col gap-4" noValidate>
       <label className="flex flex-col gap-2 text-lg font-bold">
         E-mail
-        <input name="email" type="email" autoComplete="username" inputMode="email" required className={field} />
+        <input
+          name="email"
+          type="email"
+          autoComplete="username"
+          inputMode="email"
+          required
+          className={slabInputClass}
+        />
       </label>
       {failure ? (
-        <p role="alert" className="rounded-lg border-slab border-major bg-panel p-4 text-lg font-bold text-major">
+        <Panel as="p" role="alert" tone="major" className="text-lg font-bold text-major">
           <span aria-hidden="true">▲ </span>
           {failure}
-        </p>
+        </Panel>
       ) : null}
       <button type="submit" className={buttonClass('primary')} disabled={busy}>
         {busy ? 'Sending…' : 'Send me a link'}

@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import { AuthFrame } from '@/components/auth/auth-frame';
 import { NewPasswordForm } from '@/components/auth/new-password-form';
+import { Panel } from '@/components/ui/panel';
 
 export const metadata: Metadata = { title: 'Choose a new password', referrer: 'no-referrer' };
 
@@ -15,13 +16,13 @@ export default async function ResetPasswordPage({
       {typeof token === 'string' && token ? (
         <NewPasswordForm mode="reset" token={token} />
       ) : (
-        <p role="alert" className="rounded-lg border-slab border-major bg-panel p-4 text-lg font-bold">
+        <Panel as="p" role="alert" tone="major" className="text-lg font-bold">
           This link is not complete. Open the whole link from the e-mail, or{' '}
           <a href="/forgot-password" className="underline">
             ask for a new one
           </a>
           .
-        </p>
+        </Panel>
       )}
     </AuthFrame>
   );

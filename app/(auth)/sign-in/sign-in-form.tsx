@@ -5,9 +5,7 @@ import { useState, type FormEvent } from 'react';
 import { Button } from '@/components/ui/button';
 import { findSafeNextPath } from '@/lib/http/find-safe-next-path';
 import { Panel } from '@/components/ui/panel';
-
-const field =
-  'min-h-target w-full rounded-lg border-slab border-edge bg-panel px-4 text-xl text-ink placeholder:text-muted';
+import { slabInputClass } from '@/components/ui/field';
 
 const textOf = (v: FormDataEntryValue | null) => (typeof v === 'string' ? v : '');
 
@@ -46,11 +44,18 @@ export function SignInForm({ next }: { next: string }) {
     <form onSubmit={onSubmit} className="flex flex-col gap-4" noValidate>
       <label className="flex flex-col gap-2 text-lg font-bold">
         E-mail
-        <input name="email" type="email" autoComplete="username" inputMode="email" required className={field} />
+        <input
+          name="email"
+          type="email"
+          autoComplete="username"
+          inputMode="email"
+          required
+          className={slabInputClass}
+        />
       </label>
       <label className="flex flex-col gap-2 text-lg font-bold">
         Password
-        <input name="password" type="password" autoComplete="current-password" required className={field} />
+        <input name="password" type="password" autoComplete="current-password" required className={slabInputClass} />
       </label>
       {error ? (
         <Panel as="p" role="alert" tone="major" className="text-lg font-bold text-major">

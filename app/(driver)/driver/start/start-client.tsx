@@ -3,6 +3,7 @@
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
+import { slabInputClass } from '@/components/ui/field';
 import { Panel } from '@/components/ui/panel';
 import { SeverityMark } from '@/components/ui/severity-mark';
 import { UnitStatus } from '@/components/ui/unit-status';
@@ -29,7 +30,6 @@ type Review = {
   report: { id: string; kind: string; finishedAt: string; driverName: string; defects: ReviewDefect[] } | null;
 };
 
-const field = 'min-h-target w-full rounded-lg border-slab border-edge bg-panel px-4 text-xl text-ink';
 const choice = (on: boolean) =>
   `flex min-h-target flex-col items-start justify-center rounded-lg border-slab px-4 py-2 text-left ${on ? 'border-edge bg-vest text-on-vest' : 'border-edge bg-panel text-ink'}`;
 
@@ -142,7 +142,7 @@ function ReviewPanel({
       <label className="flex flex-col gap-2 text-lg font-bold">
         Type your name to sign that you reviewed this report
         <input
-          className={field}
+          className={slabInputClass}
           value={name}
           onChange={(e) => setName(e.target.value)}
           placeholder={driverName}
@@ -260,7 +260,7 @@ export function StartClient({
         <label className="flex flex-col gap-2 text-lg font-bold">
           Odometer
           <input
-            className={field}
+            className={slabInputClass}
             inputMode="numeric"
             pattern="[0-9]*"
             value={odometer}
@@ -269,17 +269,21 @@ export function StartClient({
         </label>
         <label className="flex flex-col gap-2 text-lg font-bold">
           Location (optional)
-          <input className={field} value={location} onChange={(e) => setLocation(e.target.value)} />
+          <input className={slabInputClass} value={location} onChange={(e) => setLocation(e.target.value)} />
         </label>
         {trailerId && (
           <>
             <label className="flex flex-col gap-2 text-lg font-bold">
               Bill of lading (optional)
-              <input className={field} value={billOfLading} onChange={(e) => setBillOfLading(e.target.value)} />
+              <input
+                className={slabInputClass}
+                value={billOfLading}
+                onChange={(e) => setBillOfLading(e.target.value)}
+              />
             </label>
             <label className="flex flex-col gap-2 text-lg font-bold">
               Seal number (optional)
-              <input className={field} value={sealNumber} onChange={(e) => setSealNumber(e.target.value)} />
+              <input className={slabInputClass} value={sealNumber} onChange={(e) => setSealNumber(e.target.value)} />
             </label>
           </>
         )}
