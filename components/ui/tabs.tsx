@@ -33,6 +33,17 @@ function scoreTab(tab: NavTab, path: string, search: URLSearchParams): number {
   return url.pathname.length * 10 + params.length;
 }
 
+/** The tab the address is on: the most specific match ("/trainer/editor" over "/trainer"). */
+export function findCurrentTab<T extends NavTab>(items: T[], path: string, search: URLSearchParams): T | undefined {
+  let best: T | undefined;
+  let bestScore = -1;
+  for (const t of items) {
+    const score = scoreTab(t, path, search);
+    if (score > bestScore) [bestScore, best] = [score, t];
+  }
+  return best;
+}
+
 /**
  * A strip of links between screens. The current one is drawn filled and carries
  * aria-current="page". By default it is found from the address (path, then query); `current`
@@ -51,15 +62,7 @@ export function NavTabs({
 }) {
   const path = usePathname();
   const search = useSearchParams();
-  // The most specific match wins: "/trainer/editor" over "/trainer", "/mechanic?status=closed" over "/mechanic".
-  let active = current;
-  if (active === undefined) {
-    let best = -1;
-    for (const t of items) {
-      const score = scoreTab(t, path, new URLSearchParams(search.toString()));
-      if (score > best) [best, active] = [score, t.href];
-    }
-  }
+  const active = current ?? findCurrentTab(items, path, new URLSearchParams(search.toString()))?.href;
   return (
     <nav aria-label={label} className={cx('flex flex-wrap gap-1.5', className)}>
       {items.map((t) => (
