@@ -1,5 +1,11 @@
 import 'server-only';
-import { GetObjectCommand, HeadBucketCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
+import {
+  DeleteObjectCommand,
+  GetObjectCommand,
+  HeadBucketCommand,
+  PutObjectCommand,
+  S3Client,
+} from '@aws-sdk/client-s3';
 import { getSignedUrl } from '@aws-sdk/s3-request-presigner';
 import { getEnv } from '@/lib/env';
 
@@ -22,6 +28,28 @@ export async function putObject(key: string, body: Uint8Array, contentType: stri
   await client().send(
     new PutObjectCommand({ Bucket: getEnv().S3_BUCKET, Key: key, Body: body, ContentType: contentType }),
   );
+}
+
+/** Remove an object (nothing happens when it is not there). */
+export async function deleteObject(key: string): Promise<void> {
+  await client().send(new DeleteObjectCommand({ Bucket: getEnv().S3_BUCKET, Key: key }));
+}
+
+/**
+ * Objects that belong to a row being written: put them while the row's transaction is open, and
+ * discard them when the transaction fails, so that no object is left without its row.
+ */
+export function startObjectBatch() {
+  const stored: string[] = [];
+  return {
+    async put(key: string, body: Uint8Array, contentType: string): Promise<void> {
+      await putObject(key, body, contentType);
+      stored.push(key);
+    },
+    async discard(): Promise<void> {
+      await Promise.allSettled(stored.map((k) => deleteObject(k)));
+    },
+  };
 }
 
 export async function getObjectBytes(key: string): Promise<{ bytes: Uint8Array; contentType: string | undefined }> {

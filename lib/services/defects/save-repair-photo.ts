@@ -2,7 +2,8 @@ import 'server-only';
 import { createHash } from 'node:crypto';
 import { getDb } from '@/lib/db';
 import { AppError } from '@/lib/errors';
-import { putObject } from '@/lib/storage';
+import { startObjectBatch } from '@/lib/storage';
+import { idTakenError } from '../platform/id-taken';
 import { recordAudit } from '../platform/record-audit';
 import { encodePhoto } from '../inspections/save-photo';
 
@@ -35,15 +36,16 @@ export async function saveRepairPhoto({
     .where('fleetId', '=', fleetId)
     .executeTakeFirst();
   if (existing) {
-    if (existing.defectId !== defectId) throw new AppError('conflict', 'That photo id belongs to another record.');
+    if (existing.defectId !== defectId) throw idTakenError();
     return { attachment: existing, created: false };
   }
   const { full, thumb, type } = await encodePhoto(bytes);
   const key = `fleet/${fleetId}/defects/${defectId}/photos/${photoId}.jpg`;
-  await putObject(key, full, 'image/jpeg');
-  await putObject(key.replace(/\.jpg$/, '.thumb.jpg'), thumb, 'image/jpeg');
   const sha256 = createHash('sha256').update(full).digest('hex');
-  return db.transaction().execute(async (trx) => {
+  // The row first, the objects inside its transaction: an id taken in another fleet stores
+  // nothing, and a failed write removes what was stored.
+  const objects = startObjectBatch();
+  const write = db.transaction().execute(async (trx) => {
     const attachment = await trx
       .insertInto('attachment')
       .values({
@@ -60,6 +62,7 @@ export async function saveRepairPhoto({
       .onConflict((oc) => oc.column('id').doNothing())
       .returning(['id', 'defectId', 'sizeBytes', 'sha256'])
       .executeTakeFirst();
+    if (!attachment) throw idTakenError();
     await recordAudit(trx, {
       fleetId,
       actorId,
@@ -68,9 +71,12 @@ export async function saveRepairPhoto({
       entityId: defectId,
       detail: { photoId, sniffed: type, bytesStored: full.byteLength },
     });
-    return {
-      attachment: attachment ?? { id: photoId, defectId, sizeBytes: full.byteLength, sha256 },
-      created: !!attachment,
-    };
+    await objects.put(key, full, 'image/jpeg');
+    await objects.put(key.replace(/\.jpg$/, '.thumb.jpg'), thumb, 'image/jpeg');
+    return { attachment, created: true };
+  });
+  return write.catch(async (err: unknown) => {
+    await objects.discard();
+    throw err;
   });
 }

@@ -3,6 +3,8 @@ import { getDb } from '@/lib/db';
 import { findFleetSettings } from '@/lib/db/fleets';
 import { findFleetUnit } from '@/lib/db/units';
 import { AppError } from '@/lib/errors';
+import { idTakenError } from '../platform/id-taken';
+import { isUniqueViolation } from '../platform/record-admin-audit';
 import type { AcknowledgeBody } from '@/lib/schemas/inspections';
 import { isSameSignerName, signerNameMessage } from '@/lib/walk';
 import { findUnitReview } from './find-unit-review';
@@ -13,6 +15,24 @@ export const acknowledgementStatement =
 
 /** The driver's signature that they reviewed the unit's last report (49 CFR 396.13(c)). Idempotent by id. */
 export async function recordAcknowledgement({
+  fleetId,
+  actorId,
+  actorName,
+  body,
+}: {
+  fleetId: string;
+  actorId: string;
+  actorName: string;
+  body: AcknowledgeBody;
+}) {
+  return recordAcknowledgementRow({ fleetId, actorId, actorName, body }).catch((err: unknown) => {
+    // An id taken in another fleet fails the insert: the same answer as any taken id.
+    if (isUniqueViolation(err, 'acknowledgement_pkey')) throw idTakenError();
+    throw err;
+  });
+}
+
+function recordAcknowledgementRow({
   fleetId,
   actorId,
   actorName,

@@ -4,7 +4,8 @@ import sharp from 'sharp';
 import { getDb } from '@/lib/db';
 import { findInspectionForUpdate, findStep } from '@/lib/db/inspections';
 import { AppError } from '@/lib/errors';
-import { putObject } from '@/lib/storage';
+import { startObjectBatch } from '@/lib/storage';
+import { idTakenError } from '../platform/id-taken';
 import { recordAudit } from '../platform/record-audit';
 
 export const MAX_PHOTO_BYTES = 15 * 1024 * 1024;
@@ -75,11 +76,10 @@ export async function savePhoto({
     .where('fleetId', '=', fleetId)
     .executeTakeFirst();
   if (existing) {
-    if (existing.inspectionId !== inspectionId)
-      throw new AppError('conflict', 'That photo id belongs to another inspection.');
+    if (existing.inspectionId !== inspectionId) throw idTakenError();
     return { attachment: existing, created: false };
   }
-  const { type, full, thumb } = await encodePhoto(bytes);
+  // Whose inspection it is comes first: nothing is decoded or stored for one that is not ours.
   const inspection = await db
     .selectFrom('inspection')
     .select(['id', 'driverId', 'status'])
@@ -102,11 +102,13 @@ export async function savePhoto({
     return new AppError('conflict', 'This report is signed and locked; no photo can be added to it.');
   };
   if (inspection.status === 'submitted') throw await refuse();
+  const { type, full, thumb } = await encodePhoto(bytes);
   const key = `fleet/${fleetId}/inspections/${inspectionId}/photos/${photoId}.jpg`;
-  await putObject(key, full, 'image/jpeg');
-  await putObject(key.replace(/\.jpg$/, '.thumb.jpg'), thumb, 'image/jpeg');
   const sha256 = createHash('sha256').update(full).digest('hex');
-  const saved = await db.transaction().execute(async (trx) => {
+  // The row is written first, in the transaction that also stores the objects: an id taken in
+  // another fleet stores nothing, and a failed write removes what was stored.
+  const objects = startObjectBatch();
+  const write = db.transaction().execute(async (trx) => {
     const locked = await findInspectionForUpdate(trx, { fleetId, id: inspectionId });
     // Signed while the photo was being encoded: the report is locked and the photo stays out.
     if (locked?.status === 'submitted') return null;
@@ -128,6 +130,8 @@ export async function savePhoto({
       .onConflict((oc) => oc.column('id').doNothing())
       .returning(['id', 'inspectionId', 'sizeBytes', 'sha256'])
       .executeTakeFirst();
+    // Taken by another fleet (this fleet's own rows were looked up above).
+    if (!attachment) throw idTakenError();
     await recordAudit(trx, {
       fleetId,
       actorId,
@@ -136,10 +140,13 @@ export async function savePhoto({
       entityId: inspectionId,
       detail: { photoId, stepId, bytesIn: bytes.byteLength, bytesStored: full.byteLength, sniffed: type },
     });
-    return {
-      attachment: attachment ?? { id: photoId, inspectionId, sizeBytes: full.byteLength, sha256 },
-      created: !!attachment,
-    };
+    await objects.put(key, full, 'image/jpeg');
+    await objects.put(key.replace(/\.jpg$/, '.thumb.jpg'), thumb, 'image/jpeg');
+    return { attachment, created: true };
+  });
+  const saved = await write.catch(async (err: unknown) => {
+    await objects.discard();
+    throw err;
   });
   if (!saved) throw await refuse();
   return saved;

@@ -4,6 +4,8 @@ import { findFleetSettings } from '@/lib/db/fleets';
 import { findInspectionForUpdate, findPublishedVocabulary } from '@/lib/db/inspections';
 import { findUsableUnit } from '@/lib/db/units';
 import { AppError } from '@/lib/errors';
+import { idTakenError } from '../platform/id-taken';
+import { isUniqueViolation } from '../platform/record-admin-audit';
 import type { StartInspectionBody } from '@/lib/schemas/inspections';
 import { checkStartTime } from '@/lib/walk';
 import { findUnitReview } from './find-unit-review';
@@ -21,12 +23,21 @@ type Parsed = Omit<StartInspectionBody, 'location' | 'billOfLading' | 'sealNumbe
  * when it listed defects (49 CFR 396.13).
  */
 export async function startInspection({ fleetId, actorId, body }: { fleetId: string; actorId: string; body: Parsed }) {
+  // The id is unique across fleets: one already taken elsewhere fails the insert, and gets the
+  // same answer as one taken here.
+  return startInspectionRow({ fleetId, actorId, body }).catch((err: unknown) => {
+    if (isUniqueViolation(err, 'inspection_pkey')) throw idTakenError();
+    throw err;
+  });
+}
+
+function startInspectionRow({ fleetId, actorId, body }: { fleetId: string; actorId: string; body: Parsed }) {
   return getDb()
     .transaction()
     .execute(async (trx) => {
       const existing = await findInspectionForUpdate(trx, { fleetId, id: body.id });
       if (existing) {
-        if (existing.driverId !== actorId) throw new AppError('conflict', 'That inspection id is already used.');
+        if (existing.driverId !== actorId) throw idTakenError();
         return { inspection: existing, created: false };
       }
       const badTime = checkStartTime(body.startedAt, new Date());
