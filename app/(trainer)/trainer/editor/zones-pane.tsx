@@ -66,7 +66,7 @@ export function ZonesPane({ grammar, edit }: { grammar: Grammar; edit: EditFn })
                 <button
                   type="button"
                   aria-label={`Move ${z.name} earlier`}
-                  className="rounded px-1.5 hover:bg-ground hover:text-ink"
+                  className="inline-flex min-h-8 min-w-8 items-center justify-center rounded hover:bg-ground hover:text-ink"
                   onClick={() => edit((g) => move(g.zones.zones, i, inConfig[n - 1]?.i ?? -1))}
                 >
                   ↑
@@ -74,7 +74,7 @@ export function ZonesPane({ grammar, edit }: { grammar: Grammar; edit: EditFn })
                 <button
                   type="button"
                   aria-label={`Move ${z.name} later`}
-                  className="rounded px-1.5 hover:bg-ground hover:text-ink"
+                  className="inline-flex min-h-8 min-w-8 items-center justify-center rounded hover:bg-ground hover:text-ink"
                   onClick={() => edit((g) => move(g.zones.zones, i, inConfig[n + 1]?.i ?? -1))}
                 >
                   ↓
@@ -110,7 +110,7 @@ export function ZonesPane({ grammar, edit }: { grammar: Grammar; edit: EditFn })
                         <button
                           type="button"
                           aria-label={`Move ${item.label} up`}
-                          className="px-1"
+                          className="inline-flex min-h-8 min-w-8 items-center justify-center rounded hover:bg-ground"
                           onClick={() => edit((g) => move(g.zones.zones[zoneIndex]!.items, i, items[n - 1]?.i ?? -1))}
                         >
                           ↑
@@ -118,7 +118,7 @@ export function ZonesPane({ grammar, edit }: { grammar: Grammar; edit: EditFn })
                         <button
                           type="button"
                           aria-label={`Move ${item.label} down`}
-                          className="px-1"
+                          className="inline-flex min-h-8 min-w-8 items-center justify-center rounded hover:bg-ground"
                           onClick={() => edit((g) => move(g.zones.zones[zoneIndex]!.items, i, items[n + 1]?.i ?? -1))}
                         >
                           ↓
