@@ -24,12 +24,6 @@ export function formatTime(iso: string | null | undefined, timeZone?: string): s
   }).format(new Date(iso));
 }
 
-export function formatAge(hours: number): string {
-  if (hours < 1) return `${Math.max(1, Math.round(hours * 60))} min ago`;
-  if (hours < 48) return `${Math.round(hours)} h ago`;
-  return `${Math.round(hours / 24)} days ago`;
-}
-
 export function formatDuration(seconds: number | null | undefined): string {
   if (seconds === null || seconds === undefined) return '—';
   const m = Math.floor(seconds / 60);

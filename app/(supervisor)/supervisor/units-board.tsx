@@ -2,9 +2,10 @@
 
 import { createColumnHelper } from '@tanstack/react-table';
 import Link from 'next/link';
-import { formatAge, formatDateTime, kindLabel } from '@/components/office/format';
+import { kindLabel } from '@/components/office/format';
 import { Panel } from '@/components/ui/panel';
 import { Table } from '@/components/ui/table';
+import { TimeStamp } from '@/components/ui/time-stamp';
 import { UnitStatus } from '@/components/ui/unit-status';
 import type { SupervisorBoard } from '@/lib/schemas/dashboard';
 
@@ -31,9 +32,9 @@ const makeColumns = (timezone: string) => [
     cell: ({ row: { original: u } }) =>
       u.last ? (
         <Link href={`/supervisor/reports/${u.last.id}`} className="underline-offset-2 hover:underline">
-          <span className="font-bold">{formatAge(u.last.ageHours)}</span>{' '}
+          <TimeStamp iso={u.last.startedAt} timeZone={timezone} relative className="font-bold" />{' '}
           <span className="block text-sm text-muted">
-            {kindLabel(u.last.kind)}, {u.last.driverName}, {formatDateTime(u.last.startedAt, timezone)}
+            {kindLabel(u.last.kind)}, {u.last.driverName}, <TimeStamp iso={u.last.startedAt} timeZone={timezone} />
           </span>
         </Link>
       ) : (
