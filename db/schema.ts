@@ -66,6 +66,7 @@ export interface Attachment {
   sha256: string;
   sizeBytes: number;
   stepId: string | null;
+  thumbSha256: string | null;
   uploadedBy: string;
 }
 

@@ -80,10 +80,18 @@ async function waitForPort(port, label, ms = 30_000) {
 
 function secrets() {
   const file = path.join(dataDir, 'secrets.json');
-  if (fs.existsSync(file)) return JSON.parse(fs.readFileSync(file, 'utf8'));
-  fs.mkdirSync(dataDir, { recursive: true });
-  const s = { nextAuthSecret: crypto.randomBytes(32).toString('base64url') };
-  fs.writeFileSync(file, JSON.stringify(s, null, 2), { mode: 0o600 });
+  const s = fs.existsSync(file) ? JSON.parse(fs.readFileSync(file, 'utf8')) : {};
+  // The local object store refuses anonymous requests, like a hosted bucket: it gets a key of its own.
+  const want = {
+    nextAuthSecret: () => crypto.randomBytes(32).toString('base64url'),
+    s3SecretAccessKey: () => crypto.randomBytes(24).toString('base64url'),
+  };
+  const missing = Object.keys(want).filter((k) => !s[k]);
+  if (missing.length) {
+    for (const k of missing) s[k] = want[k]();
+    fs.mkdirSync(dataDir, { recursive: true });
+    fs.writeFileSync(file, JSON.stringify(s, null, 2), { mode: 0o600 });
+  }
   return s;
 }
 
@@ -101,8 +109,8 @@ function localEnv(p) {
     S3_ENDPOINT: `http://127.0.0.1:${p.s3}`,
     S3_REGION: 'us-east-1',
     S3_BUCKET: 'rigcall',
-    S3_ACCESS_KEY_ID: 'S3RVER',
-    S3_SECRET_ACCESS_KEY: 'S3RVER',
+    S3_ACCESS_KEY_ID: 'rigcall-local',
+    S3_SECRET_ACCESS_KEY: s.s3SecretAccessKey,
     S3_FORCE_PATH_STYLE: 'true',
     APP_PORT: String(p.app),
     RIGCALL_ENV: p.tag,
@@ -364,15 +372,22 @@ async function ensureFakes(p) {
     path.join(dataDir, `mail-${p.tag}`),
   ]);
   await waitForPort(p.smtp, `mail-${p.tag} smtp`);
-  await ensureService(`s3-${p.tag}`, p.s3, node, [
-    'scripts/object-store.mjs',
-    '--port',
-    String(p.s3),
-    '--dir',
-    path.join(dataDir, `s3-${p.tag}`),
-    '--bucket',
-    'rigcall',
-  ]);
+  const env = localEnv(p);
+  await ensureService(
+    `s3-${p.tag}`,
+    p.s3,
+    node,
+    [
+      'scripts/object-store.mjs',
+      '--port',
+      String(p.s3),
+      '--dir',
+      path.join(dataDir, `s3-${p.tag}`),
+      '--bucket',
+      'rigcall',
+    ],
+    { S3_ACCESS_KEY_ID: env.S3_ACCESS_KEY_ID, S3_SECRET_ACCESS_KEY: env.S3_SECRET_ACCESS_KEY },
+  );
 }
 
 // ---------------------------------------------------------------- build

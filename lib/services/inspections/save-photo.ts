@@ -125,6 +125,7 @@ export async function savePhoto({
         contentType: 'image/jpeg',
         sizeBytes: full.byteLength,
         sha256,
+        thumbSha256: createHash('sha256').update(thumb).digest('hex'),
         uploadedBy: actorId,
       })
       .onConflict((oc) => oc.column('id').doNothing())
