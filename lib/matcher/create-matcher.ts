@@ -1,11 +1,20 @@
 import Fuse from 'fuse.js';
 import { grammarSchema } from '@/lib/schemas/grammar';
-import type { CommandId, Grammar, MeasureKind, Unit } from '@/lib/schemas/grammar';
+import type { CommandId, MeasureKind, Unit } from '@/lib/schemas/grammar';
 import { createNormalizer } from './normalize-text';
 import { getPhoneticKey } from './phonetic-key';
+import { createPronouncer, encodePhonemes, getPhonemeSimilarityFast } from './pronounce';
 import { createQuantityReader } from './read-quantities';
 import type { Quantity } from './read-quantities';
-import type { MatchAlternative, MatchContext, MatchResult, Matcher } from './types';
+import type { MatchAlternative, MatchContext, MatchResult, Matcher, NbestAlternative } from './types';
+
+export type MatcherOptions = {
+  /** Word → ARPAbet phonemes for the vocabulary (lib/matcher/pronunciations.json); spelling rules cover the rest. */
+  pronunciations?: Readonly<Record<string, string>>;
+};
+
+/** Sound-alike matches at or above this phoneme similarity are offered, always to confirm. */
+const SOUND_MIN = 0.5;
 
 /** At or above this score a finding or measurement is recorded directly; below it the UI asks "did you mean …?". */
 export const CONFIRM_THRESHOLD = 0.75;
@@ -26,6 +35,36 @@ type Coverage = {
 type PositionHit = { id: string; group: string; start: number; end: number };
 
 const GROUP_ORDER = ['side', 'end', 'axle_group', 'axle', 'dual', 'height'];
+
+/** Words that carry a command said as a sentence or a question without changing it ("can you", "let us", "please"). */
+const CARRIERS = new Set(
+  'can could would will you we i let us please go ahead and just want to like the a an that this it me now so then do need am are is ok okay alright'.split(
+    ' ',
+  ),
+);
+/** What each command may be said about ("the next item", "the last one", "a picture of that"). */
+const COMMAND_OBJECTS: Partial<Record<CommandId, Set<string>>> = Object.fromEntries(
+  Object.entries({
+    next: 'one item zone step thing section on to next',
+    previous: 'one item zone step thing last to previous',
+    repeat: 'one item thing last again said say you what did was more time that it',
+    finish: 'inspection walk with whole this done finished all here now for today check',
+    undo: 'last one thing finding item said wait no oops entry',
+    photo: 'of picture photo take shot pic',
+    pause: 'second minute moment on me for bit wait',
+    yes: 'that is it one correct right yes yeah',
+    no: 'that is it not one wrong no',
+    ok: 'here it this side with on everything all is looks the zone so far of good',
+  }).map(([k, v]) => [k, new Set(v.split(' '))]),
+);
+/** Weights of n-best alternatives by rank when the recogniser gives no confidence. */
+const RANK_WEIGHTS = [1, 0.6, 0.45, 0.35, 0.3];
+/** Words after a reading that qualify it without changing it ("five thirty seconds roughly", "one ten psi cold"). */
+const READING_QUALIFIERS = new Set(
+  'about roughly approximately around even exactly maybe or so cold hot give take left reads reading measured measures got at'.split(
+    ' ',
+  ),
+);
 const MEASURE_RANGES: Record<Unit, [number, number]> = {
   '32nds': [0, 32],
   psi: [0, 200],
@@ -67,7 +106,7 @@ function round3(x: number): number {
  * Build a matcher from grammar data (validated with zod; throws on a malformed grammar).
  * Pure: no I/O, safe in the browser and in Node.
  */
-export function createMatcher(grammarInput: Grammar | unknown): Matcher {
+export function createMatcher(grammarInput: unknown, options: MatcherOptions = {}): Matcher {
   const grammar = grammarSchema.parse(grammarInput);
   const { vocabulary, commands, positions, numbers } = grammar;
   const normalize = createNormalizer(commands);
@@ -126,15 +165,26 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
 
   // ---- commands ----
   const commandByKey = new Map<string, CommandId>();
+  /** Keys that are a phrase as written (the others are phrases without their filler words: "move" for "move on"). */
+  const saidCommandKeys = new Set<string>();
   const stripFillers = (ws: string[]) => ws.filter((w) => !fillers.has(w));
   for (const c of commands.commands) {
     for (const p of c.phrases) {
       const ws = normalize(p);
       commandByKey.set(ws.join(' '), c.id);
-      const stripped = stripFillers(ws).join(' ');
+      saidCommandKeys.add(ws.join(' '));
+    }
+  }
+  for (const c of commands.commands) {
+    for (const p of c.phrases) {
+      const stripped = stripFillers(normalize(p)).join(' ');
       if (stripped && !commandByKey.has(stripped)) commandByKey.set(stripped, c.id);
     }
   }
+  const commandPhrases = [...saidCommandKeys]
+    .map((k) => ({ words: k.split(' '), id: commandByKey.get(k) }))
+    .filter((x): x is { words: string[]; id: CommandId } => x.id !== undefined)
+    .sort((a, b) => b.words.length - a.words.length);
   const commandKeys = [...commandByKey.keys()];
   const okWords = new Set(['good', 'fine', 'ok', 'okay', 'clear']);
   const negators = new Set(['no', 'not', 'never', 'nothing', 'without']);
@@ -233,6 +283,57 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     if (resolveCache.size > 5000) resolveCache.clear();
     resolveCache.set(t, out);
     return out;
+  };
+
+  // ---- sounds: what a recogniser's slip sounds like ("their fire" ≈ "steer tire", "doubled" ≈ "bulge") ----
+  const pronounce = createPronouncer(options.pronunciations ?? {});
+  const wordSounds = lexiconList
+    .map((w) => ({ word: w, ph: encodePhonemes(pronounce(w)) }))
+    .filter((x) => x.ph.length >= 2);
+  const spanSounds: { words: string[]; ph: Uint8Array }[] = [];
+  {
+    const seenSpan = new Set<string>();
+    for (const r of [...compTable.refs, ...condTable.refs]) {
+      const key = r.words.join(' ');
+      if (r.words.length !== 2 || seenSpan.has(key) || r.words.some((w) => fillers.has(w))) continue;
+      seenSpan.add(key);
+      spanSounds.push({ words: r.words, ph: encodePhonemes(r.words.flatMap(pronounce)) });
+    }
+  }
+  const soundCache = new Map<string, Resolved[]>();
+  /** A word we do not know, by its sounds: the two nearest vocabulary words at SOUND_MIN or above. */
+  const resolveBySound = (t: string): Resolved[] => {
+    const hit = soundCache.get(t);
+    if (hit) return hit;
+    const ph = encodePhonemes(pronounce(t));
+    const found: Resolved[] = [];
+    if (ph.length >= 2) {
+      for (const ws of wordSounds) {
+        if (Math.abs(ws.ph.length - ph.length) > 2) continue;
+        const sim = getPhonemeSimilarityFast(ph, ws.ph);
+        if (sim >= SOUND_MIN) found.push({ word: ws.word, sim: Math.min(0.85, sim) });
+      }
+    }
+    const out = found.sort((a, b) => b.sim - a.sim).slice(0, 2);
+    if (soundCache.size > 5000) soundCache.clear();
+    soundCache.set(t, out);
+    return out;
+  };
+  /** Two heard words against two-word vocabulary phrases, across the word boundary. */
+  const resolveSpanBySound = (a: string, b: string): { words: string[]; sim: number } | null => {
+    const key = `${a} ${b}`;
+    const hit = soundCache.get(key);
+    if (hit) return hit.length === 2 ? { words: hit.map((h) => h.word), sim: hit[0]?.sim ?? 0 } : null;
+    const ph = encodePhonemes([...pronounce(a), ...pronounce(b)]);
+    let best: { words: string[]; sim: number } | null = null;
+    for (const sp of spanSounds) {
+      if (Math.abs(sp.ph.length - ph.length) > 2) continue;
+      const sim = getPhonemeSimilarityFast(ph, sp.ph);
+      if (sim >= SOUND_MIN && (!best || sim > best.sim)) best = { words: sp.words, sim };
+    }
+    const sim = best ? Math.min(0.85, best.sim) : 0;
+    soundCache.set(key, best ? best.words.map((word) => ({ word, sim })) : []);
+    return best ? { words: best.words, sim } : null;
   };
 
   const scoreTable = (table: ReturnType<typeof buildPhrases>, resolved: Resolved[][]): Coverage[] => {
@@ -385,7 +486,8 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     const raw = tokens.join(' ');
     const stripped = stripFillers(tokens).join(' ');
     const exact = commandByKey.get(raw) ?? (stripped ? commandByKey.get(stripped) : undefined);
-    if (exact) return { id: exact, score: 1 };
+    // a phrase said as written is sure; one found only once its filler words are gone ("all move" → "move") is asked
+    if (exact) return { id: exact, score: saidCommandKeys.has(raw) || saidCommandKeys.has(stripped) ? 1 : 0.9 };
     const content = stripFillers(tokens);
     const each = content.map((w) => commandByKey.get(w));
     if (content.length > 1 && content.length <= 4 && each.every((c) => c !== undefined)) {
@@ -402,9 +504,37 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     for (const k of commandKeys) {
       if (k.length < 4) continue;
       const sim = getLevenshteinSimilarity(stripped, k);
-      if (sim >= 0.75 && (!best || sim > best.score)) best = { id: commandByKey.get(k) ?? 'repeat', score: sim };
+      if (sim >= 0.75 && (!best || sim > best.score))
+        best = { id: commandByKey.get(k) ?? 'repeat', score: Math.min(0.9, sim) };
     }
     return best;
+  };
+
+  /**
+   * A command said as a sentence or a question ("can you say that again", "let's finish the
+   * inspection"): a command phrase, and every other word a carrier word or an object that command
+   * takes. The utterance must be explained whole; the score stays below 1.
+   */
+  const matchCommandSentence = (tokens: string[]): { id: CommandId; score: number } | null => {
+    if (tokens.length < 2 || tokens.length > 12) return null;
+    for (const ph of commandPhrases) {
+      const n = ph.words.length;
+      for (let i = 0; i + n <= tokens.length; i += 1) {
+        if (!ph.words.every((w, k) => tokens[i + k] === w)) continue;
+        const objects = COMMAND_OBJECTS[ph.id] ?? new Set<string>();
+        const rest = tokens.filter((_, j) => j < i || j >= i + n);
+        const ok = rest.every(
+          (w) =>
+            CARRIERS.has(w) ||
+            objects.has(w) ||
+            (fillers.has(w) && !commandByKey.has(w)) ||
+            commandByKey.get(w) === ph.id ||
+            ((ph.id === 'next' || ph.id === 'previous' || ph.id === 'ok') && zoneWords.has(w)),
+        );
+        if (ok && rest.length > 0) return { id: ph.id, score: 0.95 };
+      }
+    }
+    return null;
   };
 
   const zoneIds = new Set<string>(grammar.zones.zones.map((z) => z.id));
@@ -428,7 +558,8 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     const profile = ctx.profile ?? 'us';
 
     // 1. commands and "all good"
-    const cmd = matchCommand(tokens);
+    const plain = matchCommand(tokens);
+    const cmd = plain?.score === 1 ? plain : (matchCommandSentence(tokens) ?? plain);
     if (!cmd && tokens.every((t) => fillers.has(t))) return result;
     if (cmd) {
       return {
@@ -437,11 +568,44 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
         command: cmd.id,
         termId: `command:${cmd.id}`,
         score: round3(cmd.score),
-        needsConfirmation: cmd.score < 1,
+        needsConfirmation: cmd.score < 0.95,
       };
     }
 
     const resolved = tokens.map((t) => resolveToken(stemWord(t)));
+    // words the spelling lexicon cannot place are tried by sound, alone and with a neighbour
+    const soundTokens = new Set<number>();
+    /** "token:word" pairs that only the sound pass gave (the spelling lexicon did not). */
+    const soundPairs = new Set<string>();
+    const addSound = (i: number, rs: Resolved[]) => {
+      const spelled = new Set((resolved[i] ?? []).map((r) => r.word));
+      for (const r of rs) if (!spelled.has(r.word)) soundPairs.add(`${i}:${r.word}`);
+      resolved[i] = [...(resolved[i] ?? []), ...rs];
+      soundTokens.add(i);
+    };
+    const isOpen = (i: number) => {
+      const t = tokens[i] ?? '';
+      // not a word we know, and not placed by spelling with any certainty
+      return /^[a-z]{2,}$/.test(t) && !knownWords.has(t) && (resolved[i] ?? []).every((r) => r.sim < 0.9);
+    };
+    const plainly = (table: { byWord: Map<string, number[]> }) =>
+      resolved.some((rs) => rs.some((r) => r.sim >= 0.95 && table.byWord.has(r.word) && !fillers.has(r.word)));
+    const soundPass = !(plainly(compTable) && plainly(condTable));
+    for (let i = 0; soundPass && i < tokens.length; i += 1) {
+      if (!isOpen(i) || (tokens[i]?.length ?? 0) < 3) continue;
+      const rs = resolveBySound(tokens[i] ?? '');
+      if (rs.length > 0) addSound(i, rs);
+    }
+    for (let i = 0; soundPass && i + 1 < tokens.length; i += 1) {
+      const a = tokens[i] ?? '';
+      const b = tokens[i + 1] ?? '';
+      if (!(soundTokens.has(i) || soundTokens.has(i + 1) || isOpen(i) || isOpen(i + 1))) continue;
+      if (!/^[a-z]+$/.test(a) || !/^[a-z]+$/.test(b)) continue;
+      const span = resolveSpanBySound(a, b);
+      if (!span) continue;
+      addSound(i, [{ word: span.words[0] ?? '', sim: span.sim }]);
+      addSound(i + 1, [{ word: span.words[1] ?? '', sim: span.sim }]);
+    }
     const measureHits: { kind: MeasureKind; start: number; end: number }[] = [];
     for (let i = 0; i < tokens.length; i += 1) {
       for (const p of measurePhrases) {
@@ -463,11 +627,12 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     );
     // "all good on the front", "passenger side looks good": the OK family around position and zone words
     const withoutPlaces = tokens.filter((t, i) => !zoneWords.has(t) && !posHits.some((h) => i >= h.start && i < h.end));
+    const okAround =
+      withoutPlaces.length > 0 && withoutPlaces.length < tokens.length ? matchCommand(withoutPlaces) : null;
     if (
       withoutPlaces.length > 0 &&
       withoutPlaces.length < tokens.length &&
-      matchCommand(withoutPlaces)?.id === 'ok' &&
-      matchCommand(withoutPlaces)?.score === 1
+      ((okAround?.id === 'ok' && okAround.score === 1) || matchCommandSentence(withoutPlaces)?.id === 'ok')
     ) {
       const pos = formatPositions(posHits, new Set());
       return {
@@ -480,7 +645,13 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
         positions: pos,
       };
     }
-    const compCov = scoreTable(compTable, resolved);
+    // a component comes from component words: "side" in "passenger side" is a place, not a side marker
+    const placeTokens = new Set<number>();
+    for (const h of posHits)
+      if (h.group === 'side' || h.group === 'end') for (let k = h.start; k < h.end; k += 1) placeTokens.add(k);
+    const compCov = scoreTable(compTable, resolved).filter(
+      (c) => c.tokens.size === 0 || ![...c.tokens].every((t) => placeTokens.has(t)),
+    );
     // a condition said after "no", "not" or "never" is denied, not reported ("no leaks", "not flat")
     let denied = false;
     const condCov = scoreTable(condTable, resolved).filter((c) => {
@@ -508,10 +679,18 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
 
     // 2. measurements
     if (quantities.length > 0) {
+      const ctxMeasure0 = ctx.measure ?? null;
+      // "one ten sec" at a pressure step: "psi" misheard as "sec" after a pressure-sized number
+      if (ctxMeasure0 && numbers.measureUnits[ctxMeasure0] === 'psi') {
+        for (const [qi, q] of quantities.entries())
+          if (q.unit === 's' && q.value >= 20 && q.value <= 200 && tokens[q.end - 1] === 'second')
+            quantities[qi] = { ...q, unit: 'psi' };
+      }
       const withUnit = quantities.find((q) => q.unit !== null);
       const unitKind = (u: Unit | null): MeasureKind | null => {
         if (u === '32nds') return 'tread_depth';
-        if (u === 's') return 'air_buildup';
+        // seconds alone are a build-up time only in the air-brake tests ("back in a minute" is not)
+        if (u === 's') return ctx.zone === 'air_brake_tests' ? 'air_buildup' : null;
         if (u === 'psi') return ctx.zone === 'air_brake_tests' ? null : 'tire_pressure';
         return null;
       };
@@ -525,17 +704,25 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
         kind = ctxMeasure;
       if (kind) {
         const want = numbers.measureUnits[kind];
-        const q = quantities.find((x) => x.unit === want) ?? [...quantities].reverse().find((x) => x.unit === null);
+        // tread said in fractions of an inch ("an eighth of an inch", "quarter inch") is read in 32nds
+        const inchTread =
+          want === '32nds' ? quantities.find((x) => x.unit === 'in' && x.value > 0 && x.value <= 1) : undefined;
+        const q =
+          quantities.find((x) => x.unit === want) ??
+          inchTread ??
+          [...quantities].reverse().find((x) => x.unit === null);
         if (q) {
           let value = q.value;
           if (q.unit === null && q.fractionOnly && want === '32nds') value = q.value * 32;
+          if (q === inchTread) value = q.value * 32;
           const [lo, hi] = MEASURE_RANGES[want];
           const explained = new Set<number>([...numberTokens, ...positionTokens]);
           for (const h of measureHits) for (let k = h.start; k < h.end; k += 1) explained.add(k);
           const comp = componentFields(bestComp, 0.6);
           if (comp) for (const k of comp.tokens) explained.add(k);
           const unexplained = contentIdx.filter(
-            (i) => !explained.has(i) && !unitPhraseWords.has(tokens[i] ?? ''),
+            (i) =>
+              !explained.has(i) && !unitPhraseWords.has(tokens[i] ?? '') && !READING_QUALIFIERS.has(tokens[i] ?? ''),
           ).length;
           const fromWords = explicitKind !== null || q.unit !== null;
           const kindFromWords = explicitKind !== null || (ctxMeasure !== null && kind === ctxMeasure);
@@ -573,7 +760,9 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     const topConds = condCov.filter((c) => c.cov >= 0.6).slice(0, 6);
     const ctxComp = ctx.component ? componentIndex.get(ctx.component) : undefined;
     const compIsExact = (ci: number) => topComps.some((c) => c.owner === ci && c.exact);
-    type Cand = { comp: number; cond: number; score: number; tokens: Set<number> };
+    type Cand = { comp: number; cond: number; score: number; tokens: Set<number>; sound?: boolean; plain?: boolean };
+    const restsOnSound = (toks: Set<number>, words: string[]) =>
+      [...toks].some((t) => words.some((w) => soundPairs.has(`${t}:${w}`)));
     const cands: Cand[] = [];
     const contentCount = Math.max(1, contentIdx.length);
     const occurrences = new Map<string, number>();
@@ -602,7 +791,10 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
       let score = 0.45 * cs + 0.3 * d.cov + 0.25 * expl + bonus;
       if (!exact) score *= 0.85;
       score = Math.max(0, score);
-      cands.push({ comp: ci, cond: d.owner, score, tokens: used });
+      const sound = restsOnSound(compTokens, compWords) || restsOnSound(d.tokens, d.words);
+      // both slots heard as said (not only by spelling likeness); a component from the step or the zone counts as said
+      const plain = d.exact && (compTokens.size === 0 || compIsExact(ci));
+      cands.push({ comp: ci, cond: d.owner, score, tokens: used, sound, plain });
     };
     for (const d of topConds) {
       for (const c of topComps) scorePair(c.owner, c.cov, c.tokens, d, c.words);
@@ -636,7 +828,10 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
         }
       }
     }
-    cands.sort((a, b) => b.score - a.score);
+    // on a tie the more serious finding leads ("a nail and it's hissing" is the air leak) and the other is offered
+    const majorOf = (c: Cand) =>
+      pairs.get(`${components[c.comp]?.id}:${conditions[c.cond]?.id}`)?.[profile] === 'major' ? 1 : 0;
+    cands.sort((a, b) => (Math.abs(b.score - a.score) < 0.005 ? majorOf(b) - majorOf(a) : 0) || b.score - a.score);
     const alternativesOf = (list: Cand[]): MatchAlternative[] =>
       list.slice(0, 4).map((c) => ({
         termId: `${components[c.comp]?.id}:${conditions[c.cond]?.id}`,
@@ -644,7 +839,16 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
         condition: conditions[c.cond]?.name ?? '',
         score: round3(Math.min(1, c.score)),
       }));
+    // a sound-alike reading must explain most of what was said (chatter has sound-alikes too)
+    const usesSound = (c: Cand) => c.sound === true;
+    const explains = (c: Cand) => contentIdx.filter((i) => c.tokens.has(i)).length / contentCount;
+    for (let k = cands.length - 1; k >= 0; k -= 1) {
+      const c = cands[k];
+      if (c && (usesSound(c) || c.plain === false) && explains(c) < 0.75) cands.splice(k, 1);
+    }
     const best = cands[0];
+    // a reading that rests on a sound-alike word is a candidate to confirm, never recorded as heard
+    const bySound = best !== undefined && (usesSound(best) || best.plain === false);
     if (!best || best.score < ACCEPT_THRESHOLD) {
       // "left steer tire looks good": an item-level OK
       const comp = componentFields(bestComp, 0.9);
@@ -663,6 +867,22 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
           score: round3(0.9 * (bestComp?.cov ?? 0)),
           needsConfirmation: true,
         };
+      }
+      // a condition with no component word ("it's loose on the passenger side"): ask what, do not guess
+      const lone = topConds[0];
+      if (cands.length === 0 && lone && lone.cov >= 0.9 && ctxComp === undefined && !topComps.some((c) => c.exact)) {
+        const cond = conditions[lone.owner];
+        if (cond) {
+          const pos = formatPositions(posHits, new Set());
+          return {
+            ...result,
+            condition: cond.name,
+            conditionId: cond.id,
+            position: pos.join(' ') || null,
+            positions: pos,
+            question: `what is ${cond.name}?`,
+          };
+        }
       }
       if (cands.length === 0 && ctx.zone && topConds[0]) {
         // a bare condition: offer the zone's components that can have it, for "did you mean …?"
@@ -697,9 +917,9 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
       value: q ? round3(q.value) : null,
       unit: q?.unit ?? null,
       termId: `${comp.id}:${cond.id}`,
-      score: round3(Math.min(1, best.score)),
+      score: round3(Math.min(bySound ? CONFIRM_THRESHOLD - 0.01 : 1, best.score)),
       alternatives: alternativesOf(cands.slice(1)),
-      needsConfirmation: best.score < CONFIRM_THRESHOLD,
+      needsConfirmation: bySound || best.score < CONFIRM_THRESHOLD,
     };
   };
 
@@ -716,10 +936,82 @@ export function createMatcher(grammarInput: Grammar | unknown): Matcher {
     return chosen;
   };
 
+  /**
+   * The recogniser's n-best list with its confidences: every alternative is matched, readings that
+   * agree pool their weight (confidence, or rank when the recogniser gives none), and the reading
+   * with the most weighted score wins. Agreement raises the score, disagreement lowers it; a reading
+   * that the first alternative does not carry is always asked first.
+   */
+  const matchNbest = (alternatives: readonly NbestAlternative[], ctx: MatchContext = {}): MatchResult => {
+    const list = (Array.isArray(alternatives) ? alternatives : [])
+      .filter((a): a is NbestAlternative => typeof (a as NbestAlternative | null)?.transcript === 'string')
+      .slice(0, 5);
+    const first = list[0];
+    if (!first) return emptyResult('');
+    const weights = list.map((a, i) => {
+      const c = a.confidence;
+      return typeof c === 'number' && Number.isFinite(c) && c > 0 ? Math.min(1, c) : (RANK_WEIGHTS[i] ?? 0.1);
+    });
+    const total = weights.reduce((a, b) => a + b, 0) || 1;
+    const results = list.map((a) => match(a.transcript, ctx));
+    const keyOf = (r: MatchResult) =>
+      r.kind === 'unknown' ? null : r.kind === 'measurement' ? `${r.termId}=${r.value}` : `${r.kind}:${r.termId}`;
+    const groups = new Map<string, { weight: number; mass: number; best: MatchResult; inFirst: boolean }>();
+    results.forEach((r, i) => {
+      const k = keyOf(r);
+      if (k === null) return;
+      const w = weights[i] ?? 0;
+      const g = groups.get(k);
+      if (!g) groups.set(k, { weight: w, mass: w * r.score, best: r, inFirst: i === 0 });
+      else {
+        g.weight += w;
+        g.mass += w * r.score;
+        if (r.score > g.best.score) g.best = r;
+      }
+    });
+    const ranked = [...groups.values()].sort((a, b) => b.mass - a.mass);
+    const top = ranked[0];
+    const merged = (own: MatchAlternative[], skip: string | null): MatchAlternative[] => {
+      const out: MatchAlternative[] = [];
+      const seen = new Set<string>(skip ? [skip] : []);
+      const push = (a: MatchAlternative) => {
+        if (seen.has(a.termId) || out.length >= 4) return;
+        seen.add(a.termId);
+        out.push(a);
+      };
+      for (const g of ranked)
+        if (g.best.kind === 'defect' && g.best.termId)
+          push({
+            termId: g.best.termId,
+            component: g.best.component ?? '',
+            condition: g.best.condition ?? '',
+            score: round3((g.best.score * g.weight) / total),
+          });
+      for (const a of own) push(a);
+      for (const r of results) for (const a of r.alternatives) push(a);
+      return out;
+    };
+    if (!top) {
+      const r0 = results[0] ?? emptyResult(first.transcript);
+      return { ...r0, alternatives: merged(r0.alternatives, null) };
+    }
+    const agreement = top.weight / total;
+    const score = round3(Math.min(1, top.best.score * (0.7 + 0.3 * agreement)));
+    return {
+      ...top.best,
+      score,
+      alternatives: merged(top.best.alternatives, top.best.kind === 'defect' ? top.best.termId : null),
+      needsConfirmation:
+        top.best.needsConfirmation ||
+        !top.inFirst ||
+        (top.best.kind === 'command' || top.best.kind === 'ok' ? agreement < 0.5 : score < CONFIRM_THRESHOLD),
+    };
+  };
+
   const phraseCount =
     new Set(components.flatMap((c) => c.phrases)).size +
     new Set(conditions.flatMap((c) => c.phrases)).size +
     new Set(commands.commands.flatMap((c) => c.phrases)).size;
 
-  return { match, matchAlternatives, phraseCount };
+  return { match, matchAlternatives, matchNbest, phraseCount };
 }

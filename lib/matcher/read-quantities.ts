@@ -28,9 +28,11 @@ export function createQuantityReader(words: NumberWords): QuantityReader {
   }
   unitPhrases.sort((a, b) => b.tokens.length - a.tokens.length);
 
-  const matchUnit = (t: readonly string[], i: number): { unit: Unit; end: number } | null => {
+  const matchUnit = (t: readonly string[], i: number, afterFraction = false): { unit: Unit; end: number } | null => {
     let j = i;
     if ((t[j] === 'of' && (t[j + 1] === 'an' || t[j + 1] === 'a')) || t[j] === 'an') j += t[j] === 'of' ? 2 : 0;
+    // "half an inch", "a quarter of an inch"
+    if (afterFraction && (t[j] === 'an' || t[j] === 'a')) j += 1;
     for (const k of [j, i]) {
       for (const p of unitPhrases) {
         if (p.tokens.every((w, n) => t[k + n] === w)) return { unit: p.unit, end: k + p.tokens.length };
@@ -123,7 +125,8 @@ export function createQuantityReader(words: NumberWords): QuantityReader {
     }
     const f = fractions.get(t[j] ?? '');
     if (f === undefined) return null;
-    if (j === i && (t[j] === 'third' || t[j] === 'quarter' || t[j] === 'eighth')) return null;
+    // a bare "third", "quarter", "eighth" is a place ("third axle"), unless an inch follows ("quarter inch")
+    if (j === i && (t[j] === 'third' || t[j] === 'quarter' || t[j] === 'eighth') && t[j + 1] !== 'inch') return null;
     return { value: n * f, end: j + 1 };
   };
 
@@ -214,7 +217,7 @@ export function createQuantityReader(words: NumberWords): QuantityReader {
       let value = expr.value;
       let end = expr.end;
       let unit: Unit | null = null;
-      const u = matchUnit(tokens, end);
+      const u = matchUnit(tokens, end, expr.fractionOnly);
       if (u) {
         unit = u.unit;
         end = u.end;
