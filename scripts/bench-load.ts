@@ -305,6 +305,9 @@ async function main() {
         fleetId: fleet.id,
         roles: ['driver'],
         sub: user.id,
+        // A session begun now, under the account's first session version (lib/auth/read-session-user.ts).
+        sv: 1,
+        signedInAt: Math.floor(Date.now() / 1000),
       } as never,
     });
     drivers.push({
@@ -374,6 +377,8 @@ async function main() {
             fleetId: fleet.id,
             roles: ['driver'],
             sub: warm.id,
+            sv: 1,
+            signedInAt: Math.floor(Date.now() / 1000),
           } as never,
         });
         const w: Driver = {

@@ -1,10 +1,24 @@
 import 'server-only';
+import { getEnv } from '@/lib/env';
 import { AppError } from '@/lib/errors';
 
 const unsafeMethods = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
 
 const refused = () =>
   new AppError('forbidden', 'This request came from another site and was refused. Use RigCall from its own pages.');
+
+/**
+ * Our own origin: the configured public URL (NEXTAUTH_URL). Headers such as X-Forwarded-Host are
+ * written by whoever sends the request and never widen it. Without a configured URL (a bare
+ * development server), the URL the request arrived at.
+ */
+function ownOrigin(req: Request): string {
+  try {
+    return new URL(getEnv().NEXTAUTH_URL ?? req.url).origin;
+  } catch {
+    return new URL(req.url).origin;
+  }
+}
 
 /**
  * Cross-site request forgery: a state-changing request from a browser must come from our own
@@ -18,16 +32,5 @@ export function checkSameOrigin(req: Request): AppError | null {
   const origin = req.headers.get('origin');
   if (!origin) return null;
   if (origin === 'null') return refused();
-  const allowed = new Set<string>([new URL(req.url).origin]);
-  const host = req.headers.get('x-forwarded-host') ?? req.headers.get('host');
-  if (host)
-    allowed.add(`${req.headers.get('x-forwarded-proto') ?? new URL(req.url).protocol.replace(':', '')}://${host}`);
-  if (process.env.NEXTAUTH_URL) {
-    try {
-      allowed.add(new URL(process.env.NEXTAUTH_URL).origin);
-    } catch {
-      /* checked by getEnv */
-    }
-  }
-  return allowed.has(origin) ? null : refused();
+  return origin === ownOrigin(req) ? null : refused();
 }
