@@ -246,6 +246,7 @@ export async function findReportRecord(db: DB, { fleetId, id }: { fleetId: strin
       'i.contentHash',
       'i.reportFormat',
       'i.signatureSha256',
+      'i.signatureKey',
       'i.durationS',
       'i.durationSource',
       'rv.name as reviewerName',

@@ -105,7 +105,10 @@ export async function sendQueued(
       };
     return { ok: false, retry: true, status: 0, message: 'No connection. Saved on this phone; it will be sent.' };
   }
-  if (res.ok) return { ok: true };
+  if (res.ok) {
+    if (item.url.endsWith('/steps')) await announceStepAnswer(res);
+    return { ok: true };
+  }
   let message = `The server answered ${res.status}.`;
   let fields: Record<string, string[]> | undefined;
   try {
@@ -124,4 +127,24 @@ export async function sendQueued(
       retry && res.status >= 500 ? 'RigCall’s server is not answering. Saved on this phone; it will be sent.' : message,
     ...(fields ? { fields } : {}),
   };
+}
+
+/** What the server recorded for a step (its verdict on a reading is the one of record). */
+export type StepAnswer = {
+  id: string;
+  verdict: 'pass' | 'fail' | null;
+  severity: 'minor' | 'major' | null;
+  limitText: string | null;
+  source: string | null;
+};
+
+/** Tell the walk screen what the server recorded, so it can show the server's verdict. */
+async function announceStepAnswer(res: Response) {
+  if (typeof window === 'undefined') return;
+  try {
+    const body = (await res.json()) as { step?: StepAnswer };
+    if (body.step?.id) window.dispatchEvent(new CustomEvent<StepAnswer>('rigcall-step-answer', { detail: body.step }));
+  } catch {
+    /* not JSON: nothing to show */
+  }
 }

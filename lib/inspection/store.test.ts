@@ -85,4 +85,35 @@ describe('walk store', () => {
     s.getState().moveToZone(-3);
     expect(s.getState().zoneIndex).toBe(0);
   });
+
+  it('takes the server’s verdict on a reading and keeps what the phone had said', () => {
+    const s = make();
+    const reading = s.getState().record({
+      zone: 'front',
+      item: 'front.steer_pressure',
+      kind: 'measurement',
+      heard: null,
+      alternatives: [],
+      inputMode: 'typed',
+      termKey: null,
+      position: null,
+      score: null,
+      resolution: null,
+      undoesStepId: null,
+      reading: { value: 107 },
+      notCheckedReason: null,
+      note: null,
+      verdict: 'pass',
+      severity: null,
+    });
+    s.getState().adoptServerVerdict(reading.id, { verdict: 'pass', severity: null });
+    expect(s.getState().steps[0]!.phoneVerdict).toBeUndefined();
+    s.getState().adoptServerVerdict(reading.id, { verdict: 'fail', severity: 'minor', limit: '110 psi' });
+    expect(s.getState().steps[0]).toMatchObject({
+      verdict: 'fail',
+      severity: 'minor',
+      limit: '110 psi',
+      phoneVerdict: { verdict: 'pass', severity: null },
+    });
+  });
 });

@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import zonesGrammar from '@/grammars/zones.json' with { type: 'json' };
 import type { Zones } from '@/lib/schemas/grammar';
+import type { DB } from '../../db/connect';
 import { configurationOf, DEFAULT_REQUIRED_READINGS, listWalkZones, type InspectionKind } from '@/lib/walk';
 
 /**
@@ -51,4 +52,25 @@ export function answerEveryItem({
         });
   }
   return out;
+}
+
+/** The same answers written straight into the database, for a draft made by a factory. */
+export async function answerEveryItemInDb(
+  db: DB,
+  i: { fleetId: string; inspectionId: string; kind: InspectionKind; hasTrailer: boolean },
+) {
+  const rows = answerEveryItem({ kind: i.kind, hasTrailer: i.hasTrailer, fromSeq: 0 }).map((b) => ({
+    id: b.id as string,
+    fleetId: i.fleetId,
+    inspectionId: i.inspectionId,
+    seq: b.seq as number,
+    zone: b.zone as string,
+    item: (b.item as string | undefined) ?? null,
+    kind: b.kind as 'zone_ok' | 'measurement',
+    inputMode: 'tap' as const,
+    value: (b.reading as { value: number } | undefined)?.value ?? null,
+    verdict: b.kind === 'measurement' ? ('pass' as const) : null,
+    deviceAt: new Date(),
+  }));
+  await db.insertInto('inspectionStep').values(rows).execute();
 }

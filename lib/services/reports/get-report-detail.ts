@@ -23,6 +23,7 @@ export type HashCheck = ReportHashCheck;
 export function checkReportHash(
   record: NonNullable<Awaited<ReturnType<typeof findReportRecord>>>,
   photoHashes?: ReadonlyMap<string, string>,
+  signatureSha256?: string | null,
 ): HashCheck {
   const h = record.header;
   if (!h.contentHash || !h.finishedAt || !h.signedAt || !h.signatureName || !h.certificationText) {
@@ -41,7 +42,7 @@ export function checkReportHash(
       photos: record.attachments
         .filter((a) => a.defectId === null)
         .map((a) => ({ id: a.id, stepId: a.stepId, sha256: photoHashes?.get(a.id) ?? a.sha256 })),
-      signatureSha256: h.signatureSha256,
+      signatureSha256: signatureSha256 === undefined ? h.signatureSha256 : signatureSha256,
     },
     h.reportFormat,
   );

@@ -68,7 +68,17 @@ export async function checkReportIntegrity({
       photoHashes.set(a.id, 'missing');
     }
   }
-  const { computed } = checkReportHash(record, photoHashes);
+  // The drawn signature too, from its stored bytes.
+  let signatureSha256: string | null = null;
+  if (h.signatureKey && h.signatureSha256) {
+    try {
+      signatureSha256 = sha256Hex((await getObjectBytes(h.signatureKey)).bytes);
+    } catch {
+      missing += 1;
+      signatureSha256 = 'missing';
+    }
+  }
+  const { computed } = checkReportHash(record, photoHashes, h.signatureSha256 ? signatureSha256 : null);
   const ok = !!h.contentHash && computed === h.contentHash;
   return {
     ok,
@@ -78,7 +88,7 @@ export async function checkReportIntegrity({
     message: ok
       ? 'The report is unchanged since the driver signed it.'
       : missing
-        ? `WARNING: ${missing === 1 ? 'a photo' : `${missing} photos`} of this report cannot be read from storage, so it cannot be shown to match what the driver signed.`
+        ? `WARNING: ${missing === 1 ? 'a photo or the signature' : `${missing} photos or the signature`} of this report cannot be read from storage, so it cannot be shown to match what the driver signed.`
         : 'WARNING: this report does not match what the driver signed. Its records or photos have been changed since signing; do not rely on it until this is explained.',
   };
 }

@@ -42,6 +42,7 @@ import { makeFleetFixture, type FleetFixture } from '../../setup/fleet-fixture';
 import { callRoute, makeRequest } from '../../setup/session';
 import { getTestDb } from '../../setup/test-db';
 import { readError } from '../../setup/read-json';
+import { answerEveryItem, answerEveryItemInDb } from '../../setup/walk-answers';
 
 type Case = {
   route: string; // the route file's path under app/api, as written on disk
@@ -142,6 +143,7 @@ const cases: Case[] = [
     allowed: ['driver'],
     call: async (f, cookie) => {
       const draft = await freshDraft(f);
+      await answerEveryItemInDb(db, { fleetId: f.fleet.id, inspectionId: draft, kind: 'pre_trip', hasTrailer: false });
       return callRoute(
         finish.POST,
         makeRequest(`/api/inspections/${draft}/finish`, {
@@ -480,6 +482,17 @@ async function reportWithDefect(f: FleetFixture) {
     }),
     { id: reportId },
   );
+  // Every other item answered: a report signs only when none is open.
+  for (const body of answerEveryItem({ kind: 'pre_trip', hasTrailer: false, fromSeq: 10 }))
+    await callRoute(
+      steps.POST,
+      makeRequest(`/api/inspections/${reportId}/steps`, {
+        method: 'POST',
+        cookie,
+        json: { ...body, deviceAt: at() },
+      }),
+      { id: reportId },
+    );
   const signed = await callRoute(
     finish.POST,
     makeRequest(`/api/inspections/${reportId}/finish`, {

@@ -10,6 +10,7 @@ import { makeFleetFixture, type FleetFixture } from '../../setup/fleet-fixture';
 import { readJson } from '../../setup/read-json';
 import { callRoute, makeRequest } from '../../setup/session';
 import { getTestDb } from '../../setup/test-db';
+import { answerEveryItemInDb } from '../../setup/walk-answers';
 
 const db = getTestDb();
 let f: FleetFixture;
@@ -45,6 +46,8 @@ beforeAll(async () => {
     }),
     { id },
   );
+  // Every other item answered: a report signs only when none is open.
+  await answerEveryItemInDb(db, { fleetId: f.fleet.id, inspectionId: id, kind: 'pre_trip', hasTrailer: false });
   await callRoute(
     finish.POST,
     makeRequest(`/api/inspections/${id}/finish`, {

@@ -7,6 +7,7 @@ import type { DB } from '../../../db/connect';
 import { makeUnit } from '../../../db/factories';
 import type { FleetFixture } from '../../setup/fleet-fixture';
 import { callRoute, makeRequest } from '../../setup/session';
+import { answerEveryItem } from '../../setup/walk-answers';
 
 const now = () => new Date().toISOString();
 
@@ -45,7 +46,7 @@ export function signWalk(f: FleetFixture, inspectionId: string) {
   );
 }
 
-/** A signed report with a few steps (one of them a defect), on a tractor of its own. */
+/** A signed report with a few steps (one of them a defect) and every item answered, on a tractor of its own. */
 export async function makeSignedReport(db: DB, f: FleetFixture) {
   const id = randomUUID();
   const unit = await makeUnit(db, { fleetId: f.fleet.id, kind: 'tractor' });
@@ -60,6 +61,11 @@ export async function makeSignedReport(db: DB, f: FleetFixture) {
     const stepId = randomUUID();
     stepIds.push(stepId);
     const res = await postStep(f, id, { id: stepId, seq: i + 1, ...body });
+    if (res.status !== 201) throw new Error(`step failed: ${await res.text()}`);
+  }
+  // Every other item answered: a report signs only when none is open.
+  for (const body of answerEveryItem({ kind: 'pre_trip', hasTrailer: false, fromSeq: 10 })) {
+    const res = await postStep(f, id, body);
     if (res.status !== 201) throw new Error(`step failed: ${await res.text()}`);
   }
   const signed = await signWalk(f, id);

@@ -3,6 +3,7 @@
 import { randomUUID } from 'node:crypto';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import * as fleetSettings from '@/app/api/admin/fleet/route';
 import * as certification from '@/app/api/defects/[id]/certification/route';
 import * as finish from '@/app/api/inspections/[id]/finish/route';
 import * as photos from '@/app/api/inspections/[id]/photos/[photoId]/route';
@@ -12,7 +13,7 @@ import * as inspections from '@/app/api/inspections/route';
 import * as report from '@/app/api/reports/[id]/route';
 import { checkReportIntegrity } from '@/lib/services/reports/get-report-integrity';
 import { getSupervisorBoard } from '@/lib/services/units/get-supervisor-board';
-import { putObject } from '@/lib/storage';
+import { getObjectBytes, putObject } from '@/lib/storage';
 import { makeUnit } from '../../../db/factories';
 import { makeFleetFixture, type FleetFixture } from '../../setup/fleet-fixture';
 import { readError, readJson } from '../../setup/read-json';
@@ -74,7 +75,7 @@ const putPhoto = (inspectionId: string, photoId: string, bytes: Buffer, stepId?:
     makeRequest(`/api/inspections/${inspectionId}/photos/${photoId}${stepId ? `?stepId=${stepId}` : ''}`, {
       method: 'PUT',
       cookie: f.cookies.driver,
-      body: bytes,
+      body: new Uint8Array(bytes),
       headers: { 'content-type': 'application/octet-stream' },
     }),
     { id: inspectionId, photoId },
@@ -273,7 +274,11 @@ describe('once signed, nothing is added', () => {
     const pad = await png();
     const sig = await callRoute(
       signature.PUT,
-      makeRequest(`/api/inspections/${id}/signature`, { method: 'PUT', cookie: f.cookies.driver, body: pad }),
+      makeRequest(`/api/inspections/${id}/signature`, {
+        method: 'PUT',
+        cookie: f.cookies.driver,
+        body: new Uint8Array(pad),
+      }),
       { id },
     );
     expect(sig.status).toBe(201);
@@ -300,7 +305,11 @@ describe('once signed, nothing is added', () => {
     const put = (body: Buffer) =>
       callRoute(
         signature.PUT,
-        makeRequest(`/api/inspections/${id}/signature`, { method: 'PUT', cookie: f.cookies.driver, body }),
+        makeRequest(`/api/inspections/${id}/signature`, {
+          method: 'PUT',
+          cookie: f.cookies.driver,
+          body: new Uint8Array(body),
+        }),
         { id },
       );
     const refused = await put(other);
@@ -310,17 +319,26 @@ describe('once signed, nothing is added', () => {
     expect((await put(await png())).status).toBe(200);
   });
 
-  it('the integrity check re-reads the photo from storage: a changed photo breaks the match', async () => {
+  it('the integrity check re-reads the photo and the signature from storage: a changed one breaks the match', async () => {
     expect((await checkReportIntegrity({ fleetId: f.fleet.id, inspectionId: id })).ok).toBe(true);
     const row = await db
       .selectFrom('attachment')
       .select('objectKey')
       .where('id', '=', photoId)
       .executeTakeFirstOrThrow();
+    const original = (await getObjectBytes(row.objectKey)).bytes;
     await putObject(row.objectKey, await jpeg('#00ff00'), 'image/jpeg');
     const after = await checkReportIntegrity({ fleetId: f.fleet.id, inspectionId: id });
     expect(after.ok).toBe(false);
     expect(after.message).toMatch(/does not match what the driver signed/);
+    await putObject(row.objectKey, original, 'image/jpeg');
+    expect((await checkReportIntegrity({ fleetId: f.fleet.id, inspectionId: id })).ok).toBe(true);
+    const sig = await db.selectFrom('inspection').select('signatureKey').where('id', '=', id).executeTakeFirstOrThrow();
+    const other = await sharp({ create: { width: 400, height: 150, channels: 4, background: '#ff0000' } })
+      .png()
+      .toBuffer();
+    await putObject(sig.signatureKey!, other, 'image/png');
+    expect((await checkReportIntegrity({ fleetId: f.fleet.id, inspectionId: id })).ok).toBe(false);
   });
 
   it('a repair certified under another person’s name is refused; under the mechanic’s own, it is taken', async () => {
@@ -363,5 +381,89 @@ describe('a clean post-trip', () => {
     const board = await getSupervisorBoard({ fleetId: f.fleet.id });
     const row = board.attention.find((r) => r.id === id);
     expect(row?.reasons ?? []).not.toContain('zones_skipped');
+  });
+});
+
+describe('fleet settings choose the required readings and the tire-pressure tolerance', () => {
+  let g: FleetFixture;
+  beforeAll(async () => {
+    g = await makeFleetFixture(db, 'Settings fleet');
+    await db
+      .updateTable('unit')
+      .set({ axles: JSON.stringify([{ position: 'steer', tires: ['LF', 'RF'], coldPsi: 110, chamber: '24' }]) })
+      .where('id', '=', g.tractor.id)
+      .execute();
+  });
+  const patch = (json: Record<string, unknown>) =>
+    callRoute(fleetSettings.PATCH, makeRequest('/api/admin/fleet', { method: 'PATCH', cookie: g.cookies.admin, json }));
+  const post = (inspectionId: string, body: Record<string, unknown>) =>
+    callRoute(
+      steps.POST,
+      makeRequest(`/api/inspections/${inspectionId}/steps`, {
+        method: 'POST',
+        cookie: g.cookies.driver,
+        json: { inputMode: 'typed', deviceAt: iso(), ...body },
+      }),
+      { id: inspectionId },
+    );
+  const begin = async () => {
+    const id = randomUUID();
+    const res = await callRoute(
+      inspections.POST,
+      makeRequest('/api/inspections', {
+        method: 'POST',
+        cookie: g.cookies.driver,
+        json: { id, kind: 'pre_trip', tractorId: g.tractor.id, trailerId: null, odometer: 1, startedAt: iso() },
+      }),
+    );
+    expect(res.status).toBe(201);
+    return id;
+  };
+
+  it('by default a steer tire 1 psi under its 110 psi target passes (2 psi gauge tolerance); at 0 psi tolerance it is a minor defect', async () => {
+    const reading = (id: string) =>
+      post(id, {
+        id: randomUUID(),
+        seq: 1,
+        zone: 'front',
+        item: 'front.steer_pressure',
+        kind: 'measurement',
+        reading: { value: 109 },
+      });
+    const first = await begin();
+    expect((await readJson<StepAnswer>(await reading(first))).step).toMatchObject({ verdict: 'pass', severity: null });
+    const set = await patch({ tirePressureTolerancePsi: 0 });
+    expect(set.status).toBe(200);
+    const second = await begin();
+    expect((await readJson<StepAnswer>(await reading(second))).step).toMatchObject({
+      verdict: 'fail',
+      severity: 'minor',
+    });
+    const tooLoose = await patch({ tirePressureTolerancePsi: 25 });
+    expect(tooLoose.status).toBe(422);
+    expect((await readError(tooLoose)).fields?.tirePressureTolerancePsi).toEqual([
+      'A tolerance above 10 psi would hide a tire that really is low.',
+    ]);
+  });
+
+  it('a fleet that requires tread depth cannot sign a pre-trip without it', async () => {
+    expect((await patch({ requiredReadings: ['tread_depth', 'air_leak'] })).status).toBe(200);
+    const id = await begin();
+    for (const b of answerEveryItem({ kind: 'pre_trip', hasTrailer: false, fromSeq: 10 })) await post(id, b);
+    const refused = await callRoute(
+      finish.POST,
+      makeRequest(`/api/inspections/${id}/finish`, {
+        method: 'POST',
+        cookie: g.cookies.driver,
+        json: { signatureName: g.users.driver.name, certify: true, finishedAt: iso() },
+      }),
+      { id },
+    );
+    expect(refused.status).toBe(409);
+    expect((await readError(refused)).fields?.openItems).toEqual([
+      'front.steer_tread',
+      'dst.drive_tread',
+      'pst.drive_tread',
+    ]);
   });
 });
