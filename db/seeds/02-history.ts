@@ -9,7 +9,14 @@ import type { Acknowledgement, Defect, FieldUtterance, Inspection, InspectionSte
 import zonesGrammar from '../../grammars/zones.json' with { type: 'json' };
 import vocabulary from '../../grammars/vocabulary.json' with { type: 'json' };
 import { evaluateMeasurement, type EvaluationResult } from '../../lib/rules';
-import { certificationStatement, hashReport, listWalkZones, REPORT_FORMAT } from '../../lib/walk';
+import {
+  certificationStatement,
+  hashReport,
+  listWalkZones,
+  nameFinding,
+  nameReading,
+  REPORT_FORMAT,
+} from '../../lib/walk';
 import type { Zones } from '../../lib/schemas/grammar';
 
 export { certificationStatement };
@@ -258,6 +265,9 @@ const spokenUnit: Record<string, string> = {
   rear_impact_guard: 'in',
 };
 
+/** A unit as a recogniser writes it out ("7 thirty seconds", "110 psi"). */
+const saidUnit: Record<string, string> = { '32nds': 'thirty seconds', psi: 'psi', in: 'inches', s: 'seconds' };
+
 export async function seedHistory(db: DB, opts: { fleetSlug: string; days?: number; now?: Date }) {
   const days = opts.days ?? 60;
   const now = opts.now ?? new Date();
@@ -416,7 +426,9 @@ export async function seedHistory(db: DB, opts: { fleetSlug: string; days?: numb
                 item: item.id,
                 kind: 'measurement',
                 inputMode: voice ? 'voice' : 'typed',
-                heard: voice ? `${item.label} ${value} ${spokenUnit[String(input.check)] ?? ''}`.trim() : null,
+                heard: voice
+                  ? `${item.label} ${value} ${saidUnit[spokenUnit[String(input.check)] ?? ''] ?? ''}`.trim()
+                  : null,
                 component: vocabTerm(item.component, 'worn').component,
                 measurementKind: String(input.check),
                 value,
@@ -433,10 +445,13 @@ export async function seedHistory(db: DB, opts: { fleetSlug: string; days?: numb
                   step,
                   zone.id.includes('trailer') && trailer ? trailer.id : tractor.id,
                   verdict.severity,
-                  `${item.label}: ${value} ${spokenUnit[String(input.check)] ?? ''} (limit ${verdict.limit ?? 'n/a'} ${verdict.unit})`.replaceAll(
-                    ' 32nds',
-                    '/32 in',
-                  ),
+                  nameReading({
+                    component: item.label,
+                    check: String(input.check),
+                    value,
+                    unit: spokenUnit[String(input.check)] ?? null,
+                    limitText: verdict.limit === null ? null : `${verdict.limit} ${verdict.unit}`,
+                  }),
                 );
               }
             }
@@ -464,7 +479,7 @@ export async function seedHistory(db: DB, opts: { fleetSlug: string; days?: numb
               step,
               finding.unit === 'trailer' && trailer ? trailer.id : tractor.id,
               term.severity,
-              `${term.component}, ${term.condition}${finding.position ? `, ${finding.position}` : ''}`,
+              nameFinding({ component: term.component, condition: term.condition, position: finding.position }),
             );
           }
           if (r.chance(0.015)) {

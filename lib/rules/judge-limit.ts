@@ -1,27 +1,19 @@
-import type {
-  CheckName,
-  EvaluationResult,
-  FleetSettings,
-  LimitDirection,
-  ProfileId,
-  Rule,
-  Source,
-  SourceStatus,
-} from './types';
+import type { CheckName, EvaluationResult, FleetSettings, LimitDirection, ProfileId, Rule, Source } from './types';
 
 /** Tolerance for floating-point noise in computed limits (e.g. the steering-lash angle formula). */
 const EPSILON = 1e-9;
 
 export const COMMON_PRACTICE = 'common practice, no published source';
 
+/**
+ * A rule's source as a reader sees it: the regulation or handbook it comes from, or "common
+ * practice" for a rule of thumb. How sure the project is of a value (`source.status`) stays in the
+ * rule tables and their tests; it is not printed on a report.
+ */
 export function formatSource(source: Source): string {
-  const suffix: Record<SourceStatus, string> = {
-    verified: '',
-    'partly-verified': ' (partly verified)',
-    'from-memory': ' (from memory, unverified)',
-    'common-practice': '',
-  };
-  return `${source.citation}${suffix[source.status]}`;
+  return source.status === 'common-practice' && !/common practice/i.test(source.citation)
+    ? `${source.citation} (common practice)`
+    : source.citation;
 }
 
 /** Whether `value` meets a limit of the given direction. */

@@ -7,3 +7,4 @@ export * from './severity';
 export { sha256Hex } from './sha256';
 export * from './step';
 export * from './zones';
+export * from './name-finding';

@@ -5,6 +5,7 @@ import { ruleProfileLabel } from '@/lib/schemas/fleet';
 import type { AdminSummary } from '@/lib/schemas/admin';
 import { buttonClass } from '@/components/ui/button';
 import { panelClass } from '@/components/ui/panel';
+import { statusWords } from '@/lib/walk/name-finding';
 
 const actionWords: Record<string, string> = {
   'user.invited': 'invited',
@@ -15,13 +16,15 @@ const actionWords: Record<string, string> = {
   'unit.created': 'added unit',
   'unit.updated': 'edited unit',
   'unit.retired': 'retired unit',
+  'unit.in_service': 'put back in service unit',
+  'unit.out_of_service': 'put out of service unit',
   'fleet.settings_changed': 'changed the fleet settings',
 };
 
 function describe(action: string, detail: unknown): string {
   const d = (detail ?? {}) as { email?: string; name?: string; unitNumber?: string };
   const what = d.unitNumber ?? d.name ?? d.email ?? '';
-  return `${actionWords[action] ?? action} ${action.startsWith('fleet.') ? '' : what}`.trim();
+  return `${actionWords[action] ?? statusWords(action)} ${action.startsWith('fleet.') ? '' : what}`.trim();
 }
 
 function Card({

@@ -5,6 +5,7 @@ import { NavTabs } from '@/components/ui/tabs';
 import { TimeStamp } from '@/components/ui/time-stamp';
 import { UnitStatus } from '@/components/ui/unit-status';
 import type { DefectQueueGroup, DefectQueueRow } from '@/lib/schemas/defects';
+import { countWords, tidyText } from '@/lib/walk/name-finding';
 import { EmptyState } from '@/components/ui/empty-state';
 import { Panel } from '@/components/ui/panel';
 
@@ -20,7 +21,7 @@ function Row({ d }: { d: DefectQueueRow }) {
           <SeverityMark severity={d.severity === 'major' ? 'major' : 'minor'} compact />
         </span>
         <span>
-          <span className="font-bold">{d.description}</span>
+          <span className="font-bold">{tidyText(d.description)}</span>
           <span className="block text-sm text-muted capitalize">
             {zoneLabel(d.zone)} · {d.component}
           </span>
@@ -37,11 +38,7 @@ function Row({ d }: { d: DefectQueueRow }) {
               <TimeStamp iso={d.certifiedAt} className="block" />
             </>
           )}
-          {d.photoCount > 0 && (
-            <span className="block">
-              {d.photoCount} photo{d.photoCount > 1 ? 's' : ''}
-            </span>
-          )}
+          {d.photoCount > 0 && <span className="block">{countWords(d.photoCount, 'photo')}</span>}
         </span>
       </Link>
     </li>
@@ -70,8 +67,7 @@ export function DefectQueue({
       <div className="flex flex-wrap items-center gap-2">
         <NavTabs label="Which defects" items={statusTabs} current={statusTabs.find((t) => t.status === status)?.href} />
         <p className="ml-auto text-base text-muted">
-          {groups.length} unit{groups.length === 1 ? '' : 's'} ·{' '}
-          <span className="font-bold text-major">{majors} major</span> ·{' '}
+          {countWords(groups.length, 'unit')} · <span className="font-bold text-major">{majors} major</span> ·{' '}
           <span className="font-bold text-minor">{minors} minor</span>
           {filteredUnit && (
             <>

@@ -1,4 +1,5 @@
 import 'server-only';
+import { tidyText } from '@/lib/walk/name-finding';
 import { htmlLayout, safetyFooter, type MailDefect, type RenderedMail } from './render-mail';
 
 /** The last open major defect of a unit was certified: the unit is back in service. */
@@ -21,7 +22,7 @@ export function renderBackInServiceMail({
   const lead = `Unit ${unitNumber} is back in service: no major defect is open. Last certification by ${certifiedName} at ${certifiedAt}. The next driver reviews and signs the last report before driving (49 CFR 396.13).`;
   const items = defects.map(
     (d) =>
-      `${d.outcome === 'no_repair_needed' ? 'no repair needed' : 'repaired'}: ${d.description}${d.certifiedName ? ` (certified by ${d.certifiedName})` : ''}`,
+      `${d.outcome === 'no_repair_needed' ? 'no repair needed' : 'repaired'}: ${tidyText(d.description)}${d.certifiedName ? ` (certified by ${d.certifiedName})` : ''}`,
   );
   const text = [
     subject,

@@ -1,4 +1,5 @@
 import 'server-only';
+import { countWords, tidyText } from '@/lib/walk/name-finding';
 import { htmlLayout, safetyFooter, severityWords, type MailDefect, type RenderedMail } from './render-mail';
 
 /** A unit was put out of service by a major defect: to maintenance and the supervisor. */
@@ -16,10 +17,11 @@ export function renderOutOfServiceMail({
   driverName?: string;
 }): RenderedMail {
   const subject = `OUT OF SERVICE: unit ${unitNumber} (${fleetName})`;
-  const lead = `Unit ${unitNumber} is out of service: ${defects.filter((d) => d.severity === 'major').length || 'a'} major defect(s) were reported${driverName ? ` by ${driverName}` : ''}. It must not be driven until the repair is certified.`;
+  const majors = defects.filter((d) => d.severity === 'major').length || 1;
+  const lead = `Unit ${unitNumber} is out of service: ${majors === 1 ? 'a major defect was' : `${countWords(majors, 'major defect')} were`} reported${driverName ? ` by ${driverName}` : ''}. It must not be driven until the repair is certified.`;
   const items = defects.map(
     (d) =>
-      `${severityWords(d.severity)}: ${d.description}${d.unitNumber && d.unitNumber !== unitNumber ? ` (unit ${d.unitNumber})` : ''}`,
+      `${severityWords(d.severity)}: ${tidyText(d.description)}${d.unitNumber && d.unitNumber !== unitNumber ? ` (unit ${d.unitNumber})` : ''}`,
   );
   const text = [
     subject,

@@ -1,4 +1,5 @@
 import 'server-only';
+import { countWords, tidyText } from '@/lib/walk/name-finding';
 import { htmlLayout, safetyFooter, severityWords, type MailDefect, type RenderedMail } from './render-mail';
 
 /** Open defects that still need the shop (minor ones too: repair before the next inspection is due). */
@@ -16,8 +17,8 @@ export function renderRepairNeededMail({
   requestedBy?: string;
 }): RenderedMail {
   const subject = `Repair needed: unit ${unitNumber} (${fleetName})`;
-  const lead = `Unit ${unitNumber} has ${defects.length} open defect(s) waiting for a repair and its certification${requestedBy ? ` (sent by ${requestedBy})` : ''}.`;
-  const items = defects.map((d) => `${severityWords(d.severity)}: ${d.description}`);
+  const lead = `Unit ${unitNumber} has ${countWords(defects.length, 'open defect')} waiting for a repair and its certification${requestedBy ? ` (sent by ${requestedBy})` : ''}.`;
+  const items = defects.map((d) => `${severityWords(d.severity)}: ${tidyText(d.description)}`);
   const text = [
     subject,
     '',

@@ -13,6 +13,8 @@ import {
   hashReport,
   isSameSignerName,
   isTrailerItem,
+  nameFinding,
+  nameReading,
   listDefectSteps,
   listOpenItems,
   listWalkZones,
@@ -132,13 +134,17 @@ export async function finishInspection({
           inspection.trailerId && isTrailerItem(s.item, s.zone, componentId)
             ? inspection.trailerId
             : inspection.tractorId;
-        const reading = (v: unknown, unit: string | null) =>
-          unit === '32nds' ? `${String(v)}/32 in` : `${String(v)} ${unit ?? ''}`.trim();
         const check = (s.measurementKind ?? 'reading').replace(/_/g, ' ');
         const what =
           s.kind === 'measurement'
-            ? `${s.component ?? ''} ${check}: ${reading(s.value, s.unit)}${s.limitText ? ` (limit ${reading(s.limitText.split(' ')[0], s.limitText.split(' ').slice(1).join(' '))})` : ''}`.trim()
-            : [s.component, s.condition, s.position].filter(Boolean).join(', ');
+            ? nameReading({
+                component: s.component,
+                check,
+                value: s.value,
+                unit: s.unit,
+                limitText: s.limitText,
+              })
+            : nameFinding({ component: s.component, condition: s.condition, position: s.position });
         return {
           fleetId,
           inspectionId,

@@ -3,6 +3,7 @@ import { createRequire } from 'node:module';
 import path from 'node:path';
 import type PDFKit from 'pdfkit';
 import type { ReportDetail } from '@/lib/schemas/reports';
+import { formatLimitText, formatQuantity, idWords, nameFinding, sourceWords, tidyText } from '@/lib/walk/name-finding';
 import { getReportDetail } from './get-report-detail';
 
 // pdfkit reads its font metrics from files beside its own code, so it is loaded at run time from
@@ -104,18 +105,18 @@ export function renderReportPdfFromDetail(r: ReportDetail): Promise<Buffer> {
     doc
       .font('Helvetica-Bold')
       .text(
-        `${i + 1}. ${d.severity === 'major' ? 'MAJOR (out of service)' : 'Minor'} · unit ${d.unitNumber} · ${d.description}`,
+        `${i + 1}. ${d.severity === 'major' ? (d.status === 'open' ? 'MAJOR (out of service)' : 'Major') : 'Minor'} · unit ${d.unitNumber} · ${tidyText(d.description)}`,
       );
     doc
       .font('Helvetica')
       .text(
-        `Zone ${d.zone.replace(/_/g, ' ')}; ${d.component}, ${d.condition}${d.position ? `, ${d.position}` : ''}.`,
+        `${nameFinding({ component: d.component, condition: d.condition, position: d.position })}; found in the ${idWords(d.zone)} zone.`,
         { indent: 14 },
       );
     const step = r.zones.flatMap((z) => z.steps).find((s) => s.id === d.stepId);
     if (step?.measurementKind)
       doc.text(
-        `Measured ${step.value ?? '—'} ${step.unit ?? ''}; limit ${step.limitText ?? '—'}; source ${step.source ?? '—'}.`,
+        `Measured ${formatQuantity(step.value, step.unit)}; limit ${formatLimitText(step.limitText)}; source ${sourceWords(step.source)}.`,
         { indent: 14 },
       );
     if (d.status === 'open') {

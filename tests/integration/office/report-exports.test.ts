@@ -74,7 +74,8 @@ describe('GET /api/reports/[id]/pdf', () => {
     expect(text).toMatch(/Started: Nov 20, 2026, 06:05 \(America\/Chicago\)/);
     expect(text).toContain('North yard, door 4');
     // every defect found or reported, with its severity
-    expect(text).toContain('MAJOR (out of service) · unit 101 · steer tire, bulge, left');
+    // Certified: major, no longer out of service.
+    expect(text).toContain('Major · unit 101 · steer tire, bulge, left');
     expect(text).toContain('Minor · unit 5001 · clearance lamp, inoperative');
     // the driver's signature
     expect(text).toContain('Driver: Avery Stone');

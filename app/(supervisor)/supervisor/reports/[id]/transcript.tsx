@@ -9,13 +9,22 @@ import { SeverityMark } from '@/components/ui/severity-mark';
 import { Table } from '@/components/ui/table';
 import { TimeStamp } from '@/components/ui/time-stamp';
 import type { ReportDetail } from '@/lib/schemas/reports';
+import {
+  formatLimitText,
+  formatQuantity,
+  idWords,
+  joinName,
+  nameFinding,
+  sourceWords,
+  statusWords,
+} from '@/lib/walk/name-finding';
 
 type Step = ReportDetail['zones'][number]['steps'][number];
 
 const kindWords: Record<string, string> = {
   visit: 'zone opened',
   zone_ok: 'zone all good',
-  ok: 'item OK',
+  ok: 'OK',
   defect: 'finding',
   measurement: 'measurement',
   undo: 'undo',
@@ -31,21 +40,22 @@ function Resolution({ s }: { s: Step }) {
   return low ? <SeverityMark severity="minor" label="accepted unconfirmed" /> : <span>first try</span>;
 }
 
+/** What a step named: the item's words from its id ("front.steer_tread" → "steer tread"). */
+const itemWords = (item: string | null) => (item ? idWords(item.split('.').at(-1) ?? item) : null);
+
 function Match({ s }: { s: Step }) {
   if (s.kind === 'measurement')
     return (
       <span>
-        <span className="font-bold">
-          {s.value ?? '—'} {s.unit}
-        </span>{' '}
-        {s.measurementKind?.replace(/_/g, ' ')} ·{' '}
+        <span className="font-bold">{formatQuantity(s.value, s.unit)}</span>{' '}
+        {joinName([s.component, s.measurementKind]) || itemWords(s.item) || 'reading'} ·{' '}
         {s.verdict === 'fail' ? (
           <SeverityMark severity={s.severity === 'major' ? 'major' : 'minor'} compact />
         ) : (
           <SeverityMark severity="pass" />
         )}
         <span className="block text-sm text-muted">
-          limit {s.limitText ?? '—'} · {s.source ?? 'no source'}
+          limit {formatLimitText(s.limitText)} · {sourceWords(s.source)}
         </span>
       </span>
     );
@@ -53,14 +63,18 @@ function Match({ s }: { s: Step }) {
     return (
       <span>
         <span className="font-bold">
-          {s.component}, {s.condition}
-          {s.position ? `, ${s.position}` : ''}
+          {nameFinding({ component: s.component, condition: s.condition, position: s.position })}
         </span>{' '}
         <SeverityMark severity={s.severity === 'major' ? 'major' : 'minor'} compact />
-        {s.termKey && <span className="block font-mono text-sm text-muted">{s.termKey}</span>}
       </span>
     );
-  return <span className="text-muted">{kindWords[s.kind] ?? s.kind}</span>;
+  const item = itemWords(s.item);
+  return (
+    <span className="text-muted">
+      {kindWords[s.kind] ?? statusWords(s.kind)}
+      {item ? `: ${item}` : ''}
+    </span>
+  );
 }
 
 const col = createColumnHelper<Step>();
@@ -107,7 +121,7 @@ const makeColumns = (timeZone: string) => [
             {/* eslint-disable-next-line @next/next/no-img-element -- a signed URL from our own store, sized by the server */}
             <img
               src={`${p.url}?size=thumb`}
-              alt={`Photo of ${s.component ?? 'the finding'}`}
+              alt={`Photo of ${s.component ? joinName([s.component]) : 'the finding'}`}
               className="h-12 w-16 rounded border border-edge object-cover"
             />
           </a>
