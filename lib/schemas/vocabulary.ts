@@ -107,9 +107,23 @@ export const labelledUtteranceSchema = z.object({
   position: z.string().optional(),
 });
 
+/** The most lines a fleet's labelled set may hold: every evaluation scores all of them. */
+export const maxTestSetLines = 5000;
+
 export const saveTestSetBodySchema = z.object({
   name: z.string().trim().min(1).max(80),
-  jsonl: z.string().min(1).max(2_000_000),
+  jsonl: z
+    .string()
+    .min(1)
+    .max(2_000_000)
+    .superRefine((v, ctx) => {
+      const lines = v.split('\n').filter((l) => l.trim()).length;
+      if (lines > maxTestSetLines)
+        ctx.addIssue({
+          code: 'custom',
+          message: `A labelled set holds at most ${maxTestSetLines.toLocaleString('en-US')} lines; this one has ${lines.toLocaleString('en-US')}.`,
+        });
+    }),
 });
 export type SaveTestSetBody = z.infer<typeof saveTestSetBodySchema>;
 

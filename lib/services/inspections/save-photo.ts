@@ -9,6 +9,8 @@ import { idTakenError } from '../platform/id-taken';
 import { recordAudit } from '../platform/record-audit';
 
 export const MAX_PHOTO_BYTES = 15 * 1024 * 1024;
+/** The largest picture decoded: a 48-megapixel phone sensor's full frame, with room to spare. */
+export const maxPhotoPixels = 50_000_000;
 
 /** The image type from the file's first bytes, whatever its name or declared type says. */
 export function sniffImageType(bytes: Uint8Array): 'image/jpeg' | 'image/png' | 'image/webp' | null {
@@ -31,8 +33,22 @@ export async function encodePhoto(bytes: Uint8Array): Promise<{ type: string; fu
       'unsupported_media_type',
       'That file is not a photo RigCall can read. Send a JPEG, PNG or WebP image.',
     );
+  // The size is read from the header first: an image over the pixel limit is refused before
+  // anything is decoded (a small file can declare a huge picture).
+  let pixels = 0;
   try {
-    const image = sharp(bytes, { failOn: 'error', limitInputPixels: 80_000_000 }).rotate();
+    const meta = await sharp(bytes, { limitInputPixels: false }).metadata();
+    pixels = (meta.width ?? 0) * (meta.height ?? 0);
+  } catch {
+    throw new AppError('unsupported_media_type', 'That photo is damaged or cut off; take it again.');
+  }
+  if (pixels > maxPhotoPixels)
+    throw new AppError(
+      'invalid_body',
+      `That photo is ${Math.round(pixels / 1_000_000)} megapixels; RigCall takes photos up to ${maxPhotoPixels / 1_000_000} megapixels.`,
+    );
+  try {
+    const image = sharp(bytes, { failOn: 'error', limitInputPixels: maxPhotoPixels }).rotate();
     const full = await image
       .clone()
       .resize({ width: 1600, height: 1600, fit: 'inside', withoutEnlargement: true })

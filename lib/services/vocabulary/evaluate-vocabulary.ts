@@ -56,6 +56,37 @@ export function scoreLabelledSet(matcher: Matcher, items: readonly LabelledUtter
   return { figures, lines };
 }
 
+/** How long scoring may hold the thread before it lets other requests run. */
+const sliceMs = 10;
+const yieldToOthers = () => new Promise<void>((resolve) => setImmediate(resolve));
+
+/**
+ * scoreLabelledSet, in slices of about 10 ms with a yield between them, so that a large set does
+ * not hold the request thread (other users' requests are answered between slices).
+ */
+export async function scoreLabelledSetInSlices(matcher: Matcher, items: readonly LabelledUtterance[]) {
+  const parts: ReturnType<typeof scoreLabelledSet>['lines'] = [];
+  let next = 0;
+  while (next < items.length) {
+    const began = performance.now();
+    do {
+      parts.push(...scoreLabelledSet(matcher, items.slice(next, next + 1)).lines);
+      next++;
+    } while (next < items.length && performance.now() - began < sliceMs);
+    if (next < items.length) await yieldToOthers();
+  }
+  const top1 = parts.filter((l) => l.top1).length;
+  const top3 = parts.filter((l) => l.line.top3).length;
+  const figures: Figures = {
+    total: items.length,
+    top1,
+    top3,
+    top1Rate: rate(top1, items.length),
+    top3Rate: rate(top3, items.length),
+  };
+  return { figures, lines: parts };
+}
+
 /** A version on the fleet's labelled set, beside the newest published version. */
 export async function evaluateVocabulary({
   fleetId,
@@ -71,12 +102,12 @@ export async function evaluateVocabulary({
     loadTestSet(db, { fleetId }),
     findNewestPublishedId(db, { fleetId }),
   ]);
-  const mine = scoreLabelledSet(getVersionMatcher(version), set.items);
+  const mine = await scoreLabelledSetInSlices(getVersionMatcher(version), set.items);
   const published =
     publishedId && publishedId !== version.id
       ? await getVocabularyVersionOrThrow(db, { fleetId, id: publishedId })
       : null;
-  const theirs = published ? scoreLabelledSet(getVersionMatcher(published), set.items) : null;
+  const theirs = published ? await scoreLabelledSetInSlices(getVersionMatcher(published), set.items) : null;
   const newlyMissed: EvaluationLine[] = [];
   const newlyFixed: EvaluationLine[] = [];
   if (theirs) {
