@@ -12,6 +12,7 @@ import { evaluateMeasurement, type EvaluationResult } from '../../lib/rules';
 import {
   certificationStatement,
   hashReport,
+  isTrailerItem,
   listWalkZones,
   nameFinding,
   nameReading,
@@ -402,12 +403,8 @@ export async function seedHistory(db: DB, opts: { fleetSlug: string; days?: numb
           for (const item of zone.items.filter(
             (i) => i.configurations.includes(config) && i.measure && kind === 'pre_trip',
           )) {
-            const modes =
-              item.measure === 'air_leak'
-                ? zone.items.filter((i) => i.measure === 'air_leak').indexOf(item) === 0
-                  ? ['applied']
-                  : ['released']
-                : [null];
+            // Each leakage item names its own brake state: "leakage, brakes applied" or "…, brakes released".
+            const modes = item.measure === 'air_leak' ? [/applied/.test(item.id) ? 'applied' : 'released'] : [null];
             for (const mode of modes) {
               const input = mode
                 ? {
@@ -443,7 +440,7 @@ export async function seedHistory(db: DB, opts: { fleetSlug: string; days?: numb
               if (verdict.verdict === 'fail' && verdict.severity) {
                 addDefect(
                   step,
-                  zone.id.includes('trailer') && trailer ? trailer.id : tractor.id,
+                  trailer && isTrailerItem(item.id, zone.id, item.component) ? trailer.id : tractor.id,
                   verdict.severity,
                   nameReading({
                     component: item.label,
