@@ -2,40 +2,25 @@
 const nextConfig = {
   reactStrictMode: true,
   poweredByHeader: false,
-  // Server-only packages that should stay outside the bundle.
-  serverExternalPackages: ['pg', 'nodemailer', 'bcryptjs', 'sharp', 'pdfkit'],
+  // Server-only packages that should stay outside the bundle (esbuild builds the service worker,
+  // app/serwist/[path]/route.ts).
+  serverExternalPackages: ['pg', 'nodemailer', 'bcryptjs', 'sharp', 'pdfkit', 'esbuild', 'esbuild-wasm'],
   async headers() {
-    const dev = process.env.NODE_ENV !== 'production';
-    // Next's App Router writes inline scripts (the RSC payload) without a nonce on static pages,
-    // so scripts are 'self' plus inline; nothing is loaded from another origin. Photo previews are
-    // blob: URLs, the fonts are served from our own /_next/static, speech runs in the browser.
-    const csp = [
-      "default-src 'self'",
-      `script-src 'self' 'unsafe-inline'${dev ? " 'unsafe-eval'" : ''}`,
-      "style-src 'self' 'unsafe-inline'",
-      "img-src 'self' blob: data:",
-      "font-src 'self' data:",
-      `connect-src 'self'${dev ? ' ws:' : ''}`,
-      "media-src 'self' blob:",
-      "worker-src 'self' blob:",
-      "manifest-src 'self'",
-      "object-src 'none'",
-      "base-uri 'self'",
-      "form-action 'self'",
-      "frame-ancestors 'none'",
-    ].join('; ');
+    // Pages and route handlers get their content security policy, with a per-request nonce for
+    // scripts, from proxy.ts; Next's static files (which run nothing inline) get this one.
+    const staticCsp =
+      "default-src 'self'; script-src 'self'; style-src 'self'; img-src 'self' blob: data:; font-src 'self' data:; connect-src 'self'; object-src 'none'; base-uri 'self'; form-action 'self'; frame-ancestors 'none'";
+    const common = [
+      { key: 'X-Content-Type-Options', value: 'nosniff' },
+      { key: 'Cross-Origin-Opener-Policy', value: 'same-origin' },
+      { key: 'Referrer-Policy', value: 'same-origin' },
+      { key: 'X-Frame-Options', value: 'DENY' },
+      { key: 'Permissions-Policy', value: 'camera=(self), microphone=(self), geolocation=(self)' },
+    ];
     return [
-      {
-        source: '/:path*',
-        headers: [
-          { key: 'Content-Security-Policy', value: csp },
-          { key: 'X-Content-Type-Options', value: 'nosniff' },
-          { key: 'Cross-Origin-Opener-Policy', value: 'same-origin' },
-          { key: 'Referrer-Policy', value: 'same-origin' },
-          { key: 'X-Frame-Options', value: 'DENY' },
-          { key: 'Permissions-Policy', value: 'camera=(self), microphone=(self), geolocation=(self)' },
-        ],
-      },
+      { source: '/:path*', headers: common },
+      { source: '/_next/static/:path*', headers: [{ key: 'Content-Security-Policy', value: staticCsp }] },
+      { source: '/_next/image', headers: [{ key: 'Content-Security-Policy', value: staticCsp }] },
     ];
   },
 };

@@ -15,11 +15,29 @@ test('every answer carries the security headers', async ({ request }) => {
     expect(csp, url).toContain("connect-src 'self'");
     expect(csp, url).toMatch(/img-src 'self' blob:/);
     expect(csp, url).not.toContain('unsafe-eval');
+    // Scripts: our own files, or inline ones carrying this answer's nonce; never 'unsafe-inline'.
+    const scripts = csp.split(';').find((d) => d.trim().startsWith('script-src')) ?? '';
+    expect(scripts, url).not.toContain("'unsafe-inline'");
     expect(h['x-content-type-options'], url).toBe('nosniff');
     expect(h['x-frame-options'], url).toBe('DENY');
     expect(h['referrer-policy'], url).toBe('same-origin');
     expect(h['x-powered-by'], url).toBeUndefined();
   }
+});
+
+test('every page has a fresh script nonce, and every inline script of the page carries it', async ({ request }) => {
+  const nonces = new Set<string>();
+  for (let i = 0; i < 2; i++) {
+    const res = await request.get('/sign-in');
+    const nonce = /'nonce-([^']+)'/.exec(res.headers()['content-security-policy'] ?? '')?.[1];
+    expect(nonce).toBeTruthy();
+    nonces.add(nonce!);
+    const html = await res.text();
+    const scripts = [...html.matchAll(/<script\b([^>]*)>/g)].map((m) => m[1] ?? '');
+    expect(scripts.length).toBeGreaterThan(0);
+    for (const attrs of scripts) expect(attrs).toContain(`nonce="${nonce}"`);
+  }
+  expect(nonces.size).toBe(2);
 });
 
 test('a write from another site is refused by the running app', async ({ request }) => {
