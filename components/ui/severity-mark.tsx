@@ -23,6 +23,7 @@ export function SeverityMark({
 }) {
   const size = compact ? 'text-sm' : '';
   const glyph = compact ? 'h-3.5 w-3.5' : 'h-4 w-4';
+  const bar = compact ? 'h-3.5 w-1.5' : 'h-4 w-1.5';
   const n = count === undefined ? '' : `${count} `;
   if (severity === 'major')
     return (
@@ -30,7 +31,7 @@ export function SeverityMark({
         data-severity="major"
         className={cx('inline-flex items-center gap-1.5 font-extrabold text-major', size, className)}
       >
-        <span aria-hidden="true" className={cx('inline-block w-1.5 shrink-0 rounded-sm bg-major', glyph)} />
+        <span aria-hidden="true" className={cx('inline-block shrink-0 rounded-sm bg-major', bar)} />
         <span>
           {n}
           {label ?? 'MAJOR'} · OUT OF SERVICE

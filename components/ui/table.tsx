@@ -128,6 +128,13 @@ export function Table<T>({
       const def = cell.column.columnDef;
       const meta = def.meta ?? {};
       const content = renderCell(def, cell.getContext());
+      // Nothing to show: no "label:" line with an empty value in the card layout.
+      const blank =
+        content === null ||
+        content === undefined ||
+        content === '' ||
+        content === false ||
+        (Array.isArray(content) && content.every((x) => x === null || x === undefined || x === false || x === ''));
       const isRowHeader = i === 0 && meta.rowHeader;
       const Tag = isRowHeader ? 'th' : 'td';
       const text = headerText(def);
@@ -140,7 +147,7 @@ export function Table<T>({
             'align-top font-normal sm:table-cell',
             pad,
             meta.align === 'right' ? 'sm:text-right' : 'text-left',
-            meta.card === 'hidden' ? 'max-sm:hidden' : 'max-sm:flex max-sm:gap-x-2 max-sm:px-0 max-sm:py-0.5',
+            meta.card === 'hidden' || blank ? 'max-sm:hidden' : 'max-sm:flex max-sm:gap-x-2 max-sm:px-0 max-sm:py-0.5',
             meta.card === 'title' && 'max-sm:pb-1 max-sm:text-lg max-sm:font-bold',
             meta.className,
           )}

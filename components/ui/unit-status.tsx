@@ -10,7 +10,7 @@ export function UnitStatus({
   retired?: boolean;
   className?: string;
 }) {
-  const base = 'inline-flex items-center gap-1.5 rounded px-2 py-0.5 text-sm whitespace-nowrap';
+  const base = 'inline-flex max-w-full items-center gap-1.5 rounded px-2 py-0.5 text-sm';
   if (retired)
     return (
       <span
@@ -26,7 +26,7 @@ export function UnitStatus({
         data-testid="unit-status"
         className={cx(base, 'bg-major font-extrabold tracking-wide text-on-major', className)}
       >
-        <span aria-hidden="true" className="inline-block h-3.5 w-1.5 bg-on-major" />
+        <span aria-hidden="true" className="inline-block h-3.5 w-1.5 shrink-0 bg-on-major" />
         OUT OF SERVICE
       </span>
     );
@@ -35,7 +35,7 @@ export function UnitStatus({
       <svg
         aria-hidden="true"
         viewBox="0 0 16 16"
-        className="h-3.5 w-3.5"
+        className="h-3.5 w-3.5 shrink-0"
         fill="none"
         stroke="currentColor"
         strokeWidth="2.5"

@@ -99,6 +99,12 @@ describe('Table', () => {
     expect(out.match(/<span aria-hidden="true"[^>]*sm:hidden[^>]*>Count<\/span>/g)).toHaveLength(1);
     expect(out).not.toMatch(/sm:hidden[^>]*>Name<\/span>/);
   });
+  it('leaves a cell with nothing in it out of the card, not as a bare label', () => {
+    const out = html(createElement(Table<Row>, { label: 'Things', data: [{ id: 'e', name: '', n: 1 }], columns }));
+    expect(out).toMatch(
+      /<td role="cell" class="[^"]*max-sm:hidden[^"]*"><span class="min-w-0 max-sm:flex-1"><\/span><\/td>/,
+    );
+  });
   it('shows the empty state when there is no row', () => {
     const out = html(createElement(Table<Row>, { label: 'Things', data: [], columns, empty: 'Nothing yet.' }));
     expect(out).toMatch(/<td role="cell" colSpan="2"[^>]*>Nothing yet\.<\/td>/);
@@ -110,7 +116,7 @@ describe('TimeStamp', () => {
   it('renders a <time> with the ISO instant and the time in the fleet zone (IANA tz: Chicago is UTC−6 in December)', () => {
     const out = html(createElement(TimeStamp, { iso, timeZone: 'America/Chicago' }));
     expect(out).toContain(`dateTime="${iso}"`);
-    expect(text(out)).toBe('Dec 2, 2026, 05:46');
+    expect(text(out)).toBe('Dec 2, 2026, 05:46 CST');
   });
   it('says UTC on the server when it must show the viewer’s zone, which only the browser knows', () => {
     expect(text(html(createElement(TimeStamp, { iso })))).toBe('Dec 2, 2026, 11:46 UTC');

@@ -59,7 +59,7 @@ const makeColumns = (tz: string) => [
     header: 'Defects',
     cell: (c) => {
       const r = c.row.original;
-      if (!r.majorCount && !r.minorCount) return <SeverityMark severity="pass" label="None" />;
+      if (!r.majorCount && !r.minorCount) return <SeverityMark severity="pass" label="None" compact />;
       return (
         <span className="flex flex-col">
           {r.majorCount > 0 && <SeverityMark severity="major" count={r.majorCount} compact />}
@@ -121,7 +121,7 @@ export function ReportsClient({ drivers, units, timezone }: { drivers: Option[];
       <form
         aria-label="Filters"
         data-live={live ? 'yes' : 'no'}
-        className={`grid grid-cols-[repeat(auto-fill,minmax(9.5rem,1fr))] gap-3 ${panelClass({ tone: 'quiet', padding: 'sm' })}`}
+        className={`grid grid-cols-[repeat(auto-fill,minmax(8.5rem,1fr))] gap-3 ${panelClass({ tone: 'quiet', padding: 'sm' })}`}
         onSubmit={(e) => e.preventDefault()}
       >
         <label className="flex flex-col text-sm font-bold">

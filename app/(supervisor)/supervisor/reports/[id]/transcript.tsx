@@ -79,16 +79,17 @@ function Match({ s }: { s: Step }) {
 
 const col = createColumnHelper<Step>();
 
+// Sizes add up to the table's 820 px minimum; wider, the browser widens every column in proportion.
 const makeColumns = (timeZone: string) => [
   col.accessor('deviceAt', {
     header: 'Time',
-    size: 80,
-    meta: { className: 'tabular-nums' },
+    size: 64,
+    meta: { className: 'tabular-nums', card: 'title' },
     cell: (c) => <TimeStamp iso={c.getValue()} timeZone={timeZone} format="time" />,
   }),
   col.accessor('heard', {
     header: 'Heard',
-    size: 200,
+    size: 160,
     cell: ({ row: { original: s } }) =>
       s.heard ? (
         <q className="text-base">{s.heard}</q>
@@ -99,21 +100,21 @@ const makeColumns = (timeZone: string) => [
   col.accessor((s) => s.alternatives.join(' · '), {
     id: 'alternatives',
     header: 'Other readings',
-    size: 150,
+    size: 110,
     meta: { className: 'text-muted', card: 'hidden' },
   }),
-  col.display({ id: 'match', header: 'Matched / measured', cell: ({ row }) => <Match s={row.original} /> }),
+  col.display({ id: 'match', header: 'Matched / measured', size: 250, cell: ({ row }) => <Match s={row.original} /> }),
   col.accessor('score', {
     header: 'Score',
-    size: 64,
+    size: 48,
     meta: { align: 'right', className: 'tabular-nums' },
     cell: (c) => (c.getValue() === null ? '' : c.getValue()?.toFixed(2)),
   }),
-  col.display({ id: 'settled', header: 'Settled', size: 144, cell: ({ row }) => <Resolution s={row.original} /> }),
+  col.display({ id: 'settled', header: 'Settled', size: 110, cell: ({ row }) => <Resolution s={row.original} /> }),
   col.display({
     id: 'photos',
     header: 'Photos',
-    size: 96,
+    size: 78,
     cell: ({ row: { original: s } }) =>
       s.photos.map((p) =>
         p.url ? (
