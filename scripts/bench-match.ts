@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import Fuse from 'fuse.js';
-import { createMatcher } from '@/lib/matcher';
-import { getLabelledContext, parseLabelledJsonl } from '@/lib/matcher/fixture-scoring';
+import { CONFIRM_THRESHOLD, createMatcher } from '@/lib/matcher';
+import { getLabelledContext, isTopOneCorrect, parseLabelledJsonl } from '@/lib/matcher/fixture-scoring';
 import type { LabelledUtterance } from '@/lib/matcher/fixture-scoring';
 import { grammarSchema } from '@/lib/schemas/grammar';
 import type { Grammar } from '@/lib/schemas/grammar';
@@ -196,6 +196,45 @@ for (const size of [1000, 10000]) {
   );
   last = { phrases: size, ours, base };
 }
+// every labelled set on the full default grammar, clean text: top-1 over all kinds, readings recorded
+// wrong without asking, chatter taken as a finding or reading at the confirmation threshold
+const SETS = [
+  'utterances.jsonl',
+  'holdout.jsonl',
+  'holdout-2.jsonl',
+  'tuning-spoken.jsonl',
+  'held-out-spoken.jsonl',
+  'chatter.jsonl',
+];
+const fullMatcher = createMatcher(full);
+const sets = SETS.map((file) => {
+  const items = parseLabelledJsonl(readFileSync(new URL(`tests/fixtures/matcher/${file}`, root), 'utf8'));
+  let right = 0;
+  let wrong = 0;
+  let chatterAccepted = 0;
+  for (const u of items) {
+    const r = fullMatcher.match(u.text, getLabelledContext(u));
+    if (!u.kind) {
+      if ((r.kind === 'defect' || r.kind === 'measurement') && r.score >= CONFIRM_THRESHOLD) chatterAccepted += 1;
+      continue;
+    }
+    if (isTopOneCorrect(u, r)) right += 1;
+    else if (r.kind !== 'unknown' && !r.needsConfirmation) wrong += 1;
+  }
+  const labelled = items.filter((u) => u.kind).length;
+  return {
+    file,
+    n: items.length,
+    top1: labelled ? right / labelled : null,
+    wrong_unasked: wrong,
+    chatter_accepted: chatterAccepted,
+  };
+});
+console.log('\nlabelled sets, full default grammar (clean text)');
+for (const s of sets)
+  console.log(
+    `  ${s.file.padEnd(24)} ${String(s.n).padStart(4)} lines  top-1 ${s.top1 === null ? '    -' : pct(s.top1)}  wrong without asking ${s.wrong_unasked}  chatter accepted ${s.chatter_accepted}`,
+  );
 if (json && last) {
   const r = (x: number, d = 3) => Math.round(x * 10 ** d) / 10 ** d;
   console.log(
@@ -208,6 +247,7 @@ if (json && last) {
       top3: r(last.ours.top3),
       baseline_p99_ms: r(last.base.p99_ms, 1),
       baseline_top1: r(last.base.top1),
+      sets: sets.map((s) => ({ ...s, top1: s.top1 === null ? null : r(s.top1) })),
     }),
   );
 }

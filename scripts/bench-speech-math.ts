@@ -146,7 +146,10 @@ export function writeArpa(sentences: readonly string[][], order = 3, discount = 
     entries.push(rows);
     out.push(`ngram ${n}=${rows.length}`);
   }
-  for (let n = 1; n <= order; n += 1) out.push('', `\\${n}-grams:`, ...(entries[n] ?? []));
+  for (let n = 1; n <= order; n += 1) {
+    out.push('', `\\${n}-grams:`);
+    for (const row of entries[n] ?? []) out.push(row);
+  }
   out.push('', '\\end\\', '');
   return out.join('\n');
 }

@@ -11,7 +11,7 @@ import type { LabelledUtterance } from '@/lib/matcher/fixture-scoring';
 import { getNbestConfidences, getNoiseGain, getSnrDb, getWordErrorRate, toWords, writeArpa } from './bench-speech-math';
 
 /**
- * `npm run bench:speech [-- --json] [--set FILE] [--voices a,b] [--snr clean,15,5] [--limit N]`
+ * `npm run bench:speech [-- --json] [--set FILE] [--voices a,b] [--snr clean,15,5] [--models generic,domain] [--limit N]`
  *
  * The whole voice path through a real recogniser: each labelled utterance is spoken by Debian's
  * espeak-ng and flite, engine-like noise made by sox (brown noise, a 45 Hz rumble, pulsed at 13 Hz)
@@ -529,7 +529,8 @@ const clean = new Map<string, string>(); // `${voice}\u0000${text}` → wav
 for (const v of voices) for (const u of utterances) clean.set(`${v}\u0000${u.text}`, synthesize(v, u.text));
 
 const rows: Row[] = [];
-for (const model of ['generic', 'domain'] as const) {
+const models = (flag('models') ?? 'generic,domain').split(',').filter((m): m is 'generic' | 'domain' => m === 'generic' || m === 'domain');
+for (const model of models) {
   for (const snrName of snrs) {
     const snrDb = snrName === 'clean' ? null : Number(snrName);
     const items: { u: LabelledUtterance; voice: string; mixed: Mixed }[] = [];

@@ -208,3 +208,16 @@ export async function resolveFieldUtterances(db: DB, { fleetId, ids }: { fleetId
     .executeTakeFirst();
   return Number(r.numUpdatedRows);
 }
+
+/** Field utterances a driver corrected to a term ("did you mean …?" → no → the right one): a labelled set from the field. */
+export async function listCorrectedFieldUtterances(db: DB, { fleetId, limit }: { fleetId: string; limit: number }) {
+  return db
+    .selectFrom('fieldUtterance')
+    .select(['text', 'zone', 'termKey'])
+    .where('fleetId', '=', fleetId)
+    .where('outcome', '=', 'corrected')
+    .where('termKey', 'is not', null)
+    .orderBy('createdAt', 'desc')
+    .limit(limit)
+    .execute();
+}

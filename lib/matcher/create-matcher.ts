@@ -4,12 +4,13 @@ import type { CommandId, MeasureKind, Unit } from '@/lib/schemas/grammar';
 import { createNormalizer } from './normalize-text';
 import { getPhoneticKey } from './phonetic-key';
 import { createPronouncer, encodePhonemes, getPhonemeSimilarityFast } from './pronounce';
+import bundledPronunciations from './pronunciations.json';
 import { createQuantityReader } from './read-quantities';
 import type { Quantity } from './read-quantities';
 import type { MatchAlternative, MatchContext, MatchResult, Matcher, NbestAlternative } from './types';
 
 export type MatcherOptions = {
-  /** Word → ARPAbet phonemes for the vocabulary (lib/matcher/pronunciations.json); spelling rules cover the rest. */
+  /** Word → ARPAbet phonemes; default: the default vocabulary's (lib/matcher/pronunciations.json). Spelling rules cover the rest. */
   pronunciations?: Readonly<Record<string, string>>;
 };
 
@@ -286,7 +287,7 @@ export function createMatcher(grammarInput: unknown, options: MatcherOptions = {
   };
 
   // ---- sounds: what a recogniser's slip sounds like ("their fire" ≈ "steer tire", "doubled" ≈ "bulge") ----
-  const pronounce = createPronouncer(options.pronunciations ?? {});
+  const pronounce = createPronouncer(options.pronunciations ?? bundledPronunciations.words);
   const wordSounds = lexiconList
     .map((w) => ({ word: w, ph: encodePhonemes(pronounce(w)) }))
     .filter((x) => x.ph.length >= 2);

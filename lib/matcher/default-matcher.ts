@@ -4,16 +4,12 @@ import positions from '@/grammars/positions.json';
 import vocabulary from '@/grammars/vocabulary.json';
 import zones from '@/grammars/zones.json';
 import { createMatcher } from './create-matcher';
-import pronunciations from './pronunciations.json';
 import type { Matcher } from './types';
 
 let cached: Matcher | null = null;
 
 /** The matcher over the default grammars in grammars/, built once on first use. */
 export function getDefaultMatcher(): Matcher {
-  cached ??= createMatcher(
-    { vocabulary, commands, positions, numbers, zones },
-    { pronunciations: pronunciations.words },
-  );
+  cached ??= createMatcher({ vocabulary, commands, positions, numbers, zones });
   return cached;
 }

@@ -167,6 +167,8 @@ export type EvaluationReport = {
   newlyMissed: EvaluationLine[];
   newlyFixed: EvaluationLine[];
   lowersAccuracy: boolean;
+  /** The draft on further sets: the repository's spoken held-out set and the fleet's field-labelled lines. */
+  otherSets?: { name: string; figures: Figures; misses: EvaluationLine[] }[];
 };
 
 export type BenchMatch = {

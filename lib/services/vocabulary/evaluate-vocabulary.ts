@@ -1,16 +1,17 @@
 import 'server-only';
 import { getDb, type DB } from '@/lib/db';
-import { findNewestPublishedId } from '@/lib/db/vocabulary';
+import { findNewestPublishedId, listCorrectedFieldUtterances } from '@/lib/db/vocabulary';
 import type { Matcher, MatchResult } from '@/lib/matcher';
 import {
   getLabelledContext,
   isTopOneCorrect,
   isTopThreeCorrect,
+  parseLabelledJsonl,
   type LabelledUtterance,
 } from '@/lib/matcher/fixture-scoring';
 import type { EvaluationLine, EvaluationReport, Figures } from '@/lib/schemas/vocabulary';
 import { getVocabularyVersionOrThrow } from './get-vocabulary-version-or-throw';
-import { loadTestSet } from './load-test-set';
+import { loadTestSet, readRepositorySet } from './load-test-set';
 import { getVersionMatcher } from './version-matcher';
 
 const expectedOf = (u: LabelledUtterance) =>
@@ -97,12 +98,30 @@ export async function evaluateVocabulary({
   versionId: string;
   db?: DB;
 }): Promise<EvaluationReport> {
-  const [version, set, publishedId] = await Promise.all([
+  const [version, set, publishedId, corrected] = await Promise.all([
     getVocabularyVersionOrThrow(db, { fleetId, id: versionId }),
     loadTestSet(db, { fleetId }),
     findNewestPublishedId(db, { fleetId }),
+    listCorrectedFieldUtterances(db, { fleetId, limit: 2000 }),
   ]);
-  const mine = await scoreLabelledSetInSlices(getVersionMatcher(version), set.items);
+  const matcher = getVersionMatcher(version);
+  const mine = await scoreLabelledSetInSlices(matcher, set.items);
+  // the same draft on a set written apart from any tuning and on what drivers corrected in the field
+  const heldOut = parseLabelledJsonl(readRepositorySet('held-out-spoken.jsonl'));
+  const field: LabelledUtterance[] = corrected.map((c) => ({
+    text: c.text,
+    zone: c.zone ?? undefined,
+    kind: 'defect',
+    termId: c.termKey ?? undefined,
+  }));
+  const otherSets = [];
+  for (const { name, items } of [
+    { name: 'spoken held-out set (held-out-spoken.jsonl)', items: heldOut },
+    { name: `field-labelled set (${field.length} corrected field utterances)`, items: field },
+  ]) {
+    const scored = await scoreLabelledSetInSlices(matcher, items);
+    otherSets.push({ name, figures: scored.figures, misses: scored.lines.filter((l) => !l.top1).map((l) => l.line) });
+  }
   const published =
     publishedId && publishedId !== version.id
       ? await getVocabularyVersionOrThrow(db, { fleetId, id: publishedId })
@@ -126,5 +145,6 @@ export async function evaluateVocabulary({
     newlyMissed,
     newlyFixed,
     lowersAccuracy: !!theirs && (mine.figures.top1 < theirs.figures.top1 || mine.figures.top3 < theirs.figures.top3),
+    otherSets,
   };
 }

@@ -11,6 +11,18 @@ export const defaultTestSetName = 'repository labelled set (utterances.jsonl)';
 
 let defaultJsonl: string | null = null;
 
+const repositorySets = new Map<string, string>();
+
+/** A labelled set kept in the repository (tests/fixtures/matcher/NAME), read once. */
+export function readRepositorySet(name: string): string {
+  let text = repositorySets.get(name);
+  if (text === undefined) {
+    text = readFileSync(path.join(process.cwd(), 'tests/fixtures/matcher', path.basename(name)), 'utf8');
+    repositorySets.set(name, text);
+  }
+  return text;
+}
+
 /** The repository's labelled utterances: the set a fleet starts with. */
 export function readDefaultTestSet(): string {
   defaultJsonl ??= readFileSync(path.join(process.cwd(), 'tests/fixtures/matcher/utterances.jsonl'), 'utf8');

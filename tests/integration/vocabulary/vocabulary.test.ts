@@ -365,6 +365,48 @@ describe('evaluation', () => {
     expect(report.set).toMatchObject({ name: 'yard set', source: 'fleet', count: 3 });
     expect(report.figures.top1).toBe(3);
   });
+
+  it('also scores the draft on the spoken held-out set and on the field utterances drivers corrected', async () => {
+    const fleet = await makeFleetFixture(db, 'Evaluation other sets fleet');
+    const cookie = fleet.cookies.trainer;
+    const corrected = [
+      { text: 'bulge on the left steer tire', zone: 'front', termKey: 'steer_tire:bulge' },
+      { text: 'mud flap flapping around', zone: 'rear', termKey: 'mud_flap:loose' },
+    ];
+    await db
+      .insertInto('fieldUtterance')
+      .values(
+        corrected.map((c) => ({ fleetId: fleet.fleet.id, ...c, normalized: c.text, outcome: 'corrected' as const })),
+      )
+      .execute();
+    // an unmatched line without a term is not a labelled line
+    await db
+      .insertInto('fieldUtterance')
+      .values({ fleetId: fleet.fleet.id, zone: 'rear', text: 'huh', normalized: 'huh', outcome: 'unmatched' })
+      .execute();
+    const draft = await readJson<VersionDetail>(
+      await callRoute(versions.POST, makeRequest('/api/vocabulary/versions', { method: 'POST', cookie, json: {} })),
+    );
+    const report = await readJson<EvaluationReport>(
+      await callRoute(
+        evaluation.POST,
+        makeRequest(`/api/vocabulary/versions/${draft.id}/evaluation`, { method: 'POST', cookie }),
+        { id: draft.id },
+      ),
+    );
+    const heldOut = parseLabelledJsonl(
+      readFileSync(path.resolve(__dirname, '../../fixtures/matcher/held-out-spoken.jsonl'), 'utf8'),
+    );
+    const [spoken, field] = report.otherSets ?? [];
+    expect(spoken?.figures).toEqual(scoreLabelledSet(createMatcher(getDefaultGrammar()), heldOut).figures);
+    expect(field?.figures.total).toBe(2);
+    expect(field?.figures).toEqual(
+      scoreLabelledSet(
+        createMatcher(getDefaultGrammar()),
+        corrected.map((c) => ({ text: c.text, zone: c.zone, kind: 'defect' as const, termId: c.termKey })),
+      ).figures,
+    );
+  });
 });
 
 describe('export and import in the grammars/ format', () => {

@@ -247,6 +247,18 @@ function DraftEvaluation({
             )}
             <Difference report={report} />
           </div>
+          {report.otherSets && report.otherSets.length > 0 && (
+            <div className="grid gap-3 md:grid-cols-3">
+              {report.otherSets.map((o, i) => (
+                <FigureCard
+                  key={o.name}
+                  title={`Draft on the ${o.name}`}
+                  figures={o.figures}
+                  testId={`evaluation-other-${i}`}
+                />
+              ))}
+            </div>
+          )}
           <LineTable lines={report.newlyMissed} caption="Newly missed by the draft" />
           <LineTable lines={report.newlyFixed} caption="Newly right in the draft" />
           <LineTable lines={report.misses} caption="All misses of the draft" />
