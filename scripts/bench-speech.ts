@@ -529,7 +529,9 @@ const clean = new Map<string, string>(); // `${voice}\u0000${text}` → wav
 for (const v of voices) for (const u of utterances) clean.set(`${v}\u0000${u.text}`, synthesize(v, u.text));
 
 const rows: Row[] = [];
-const models = (flag('models') ?? 'generic,domain').split(',').filter((m): m is 'generic' | 'domain' => m === 'generic' || m === 'domain');
+const models = (flag('models') ?? 'generic,domain')
+  .split(',')
+  .filter((m): m is 'generic' | 'domain' => m === 'generic' || m === 'domain');
 for (const model of models) {
   for (const snrName of snrs) {
     const snrDb = snrName === 'clean' ? null : Number(snrName);
