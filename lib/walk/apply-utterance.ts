@@ -69,7 +69,7 @@ export type WalkOutcome = {
   record: StepDraft[];
   /** Spoken (and shown large) after the steps are recorded. */
   say: string | null;
-  /** Shown large only, when it differs from what is spoken. */
+  /** Shown large, when it differs from what is spoken ('' shows nothing new: a question has its own panel). */
   show?: string;
   moveTo?: number;
   /** null clears the question waiting for a yes; a value asks one. */
@@ -83,7 +83,8 @@ const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 export const formatReading = (value: number, unit: string) =>
   unit === '32nds' ? `${value}/32 in` : `${value} ${unit}`;
 
-const blank = (zone: string): Omit<StepDraft, 'kind' | 'inputMode'> => ({
+/** A step draft with nothing but its zone: the fields each kind of step fills in start empty. */
+export const blankStep = (zone: string): Omit<StepDraft, 'kind' | 'inputMode'> => ({
   zone,
   item: null,
   heard: null,
@@ -128,7 +129,7 @@ export function recordReading(
   return {
     record: [
       {
-        ...blank(zoneId),
+        ...blankStep(zoneId),
         item: item.id,
         kind: 'measurement',
         heard: via.heard,
@@ -174,7 +175,7 @@ export function recordFinding(
   return {
     record: [
       {
-        ...blank(zoneId),
+        ...blankStep(zoneId),
         item: f.itemId,
         kind: 'defect',
         termKey: f.termKey,
@@ -204,7 +205,7 @@ export function recordItemOk(
   return {
     record: [
       {
-        ...blank(zoneId),
+        ...blankStep(zoneId),
         item: item.id,
         kind: 'ok',
         heard: via.heard,
@@ -230,7 +231,7 @@ export function recordNotChecked(
   return {
     record: [
       {
-        ...blank(zoneId),
+        ...blankStep(zoneId),
         item: item.id,
         kind: 'not_checked',
         inputMode: 'tap',
@@ -257,7 +258,7 @@ export function recordZoneOk(
   const readingsLeft = zone.items.filter((i) => i.measure && !answers.has(i.id) && (ctx.isRequired?.(i) ?? false));
   const last = ctx.zoneIndex >= ctx.zones.length - 1;
   const step: StepDraft = {
-    ...blank(zone.id),
+    ...blankStep(zone.id),
     kind: 'zone_ok',
     heard: via.heard,
     inputMode: via.inputMode,
@@ -288,7 +289,7 @@ export function recordTakeBack(
   return {
     record: [
       {
-        ...blank(target.zone),
+        ...blankStep(target.zone),
         kind: 'undo',
         undoesStepId: target.id,
         heard: inputMode === 'voice' ? 'undo' : null,
@@ -446,7 +447,7 @@ export function applyUtterance(
     if (result.kind === 'command' && result.command === 'yes') return confirm(waiting);
     if (result.kind === 'ok' && !result.componentId && isBareAcknowledgement(text)) return confirm(waiting);
     if (result.kind === 'command' && result.command === 'no')
-      return { record: [], say: 'Pick one, or say it again.', declinePending: true };
+      return { record: [], say: 'Pick one, or say it again.', show: '', declinePending: true };
   }
   const cleared = waiting ? { pending: null } : {};
 
@@ -506,6 +507,7 @@ export function applyUtterance(
       return {
         record: [],
         say: `Did you mean ${result.component}, ${result.condition}? Yes or no.`,
+        show: '',
         pending: {
           heard: text,
           alternatives: heard.alternatives,
@@ -546,7 +548,7 @@ export function applyUtterance(
       heard.inputMode === 'voice'
         ? [
             {
-              ...blank(zone.id),
+              ...blankStep(zone.id),
               kind: 'note',
               heard: text,
               alternatives: heard.alternatives,

@@ -8,6 +8,7 @@ import {
   db,
   expectZone,
   makeTestRig,
+  readAirBrakeTests,
   say,
   signIn,
   signReport,
@@ -53,7 +54,8 @@ test('a whole pre-trip by voice: findings, a "no", readings, a photo, undo, sign
   await say(page, 'all good');
   await expectZone(page, 'Engine bay');
 
-  await say(page, 'looks good');
+  // A zone closes on a zone-level phrase; a bare "looks good" only acknowledges.
+  await say(page, 'engine bay looks good');
   await expectZone(page, 'Driver side tractor');
   await say(page, 'drive tread eight thirty seconds');
   await expect(page.getByTestId('readback')).toContainText('Pass');
@@ -82,6 +84,8 @@ test('a whole pre-trip by voice: findings, a "no", readings, a photo, undo, sign
   await expect(page.getByTestId('readback')).toContainText('Pass');
   await say(page, 'lost five psi in a minute with the brakes applied');
   await expect(page.getByTestId('readback')).toContainText(/defect/); // CDL manual §5.3: combination, applied, at most 4 psi
+  // The other readings the pre-trip requires: "all good" never stands in for a gauge.
+  await readAirBrakeTests(page, ['Governor cut-out', 'Leakage, brakes applied']);
   await say(page, 'all good');
   await expect(page.getByTestId('readback')).toContainText('all good');
   await say(page, 'finish');
@@ -167,6 +171,7 @@ test('offline for the middle zones and back: nothing lost, nothing recorded twic
     'Air-brake tests',
   ]) {
     await expectZone(page, zone);
+    if (zone === 'Air-brake tests') await readAirBrakeTests(page);
     await say(page, 'all good');
   }
   await say(page, 'finish');
@@ -176,8 +181,9 @@ test('offline for the middle zones and back: nothing lost, nothing recorded twic
   });
 
   const after = await countSteps(inspectionId);
-  // 10 visits, 10 zone OKs, the coolant finding and the pressure reading: each exactly once.
-  expect(after).toEqual({ total: 22, distinctSeq: 22, byKind: { visit: 10, zone_ok: 10, defect: 1, measurement: 1 } });
+  // 10 visits, 10 zone OKs, the coolant finding, the pressure reading and the six air-brake
+  // readings: each exactly once.
+  expect(after).toEqual({ total: 28, distinctSeq: 28, byKind: { visit: 10, zone_ok: 10, defect: 1, measurement: 7 } });
   expect(after.total).toBeGreaterThan(whileAway.total); // the offline part really waited on the phone
 });
 

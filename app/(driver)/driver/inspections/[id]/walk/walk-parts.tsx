@@ -7,14 +7,15 @@ import { panelClass } from '@/components/ui/panel';
 import { SeverityMark } from '@/components/ui/severity-mark';
 import type { QueueStatus } from '@/lib/inspection/use-flush-queue';
 import type { PendingMatch, WalkStep } from '@/lib/inspection/store';
-import type { ItemAnswer } from '@/lib/inspection/walk-progress';
+import type { ItemAnswer } from '@/lib/walk';
 import { compareSeal, readSpokenSeal } from '@/lib/inspection/seal-check';
 
 export const inputClass = 'min-h-target w-full rounded-lg border-slab border-edge bg-panel px-4 text-2xl text-ink';
 
 export function AnswerMark({ answer }: { answer: ItemAnswer | undefined }) {
   if (answer === 'ok' || answer === 'measured')
-    return <span className="font-bold text-pass">✓ {answer === 'ok' ? 'OK' : 'passed'}</span>;
+    return <span className="font-bold text-pass">✓ {answer === 'ok' ? 'OK' : 'measured'}</span>;
+  if (answer === 'not_checked') return <span className="font-bold">– not checked</span>;
   if (answer === 'defect' || answer === 'failed') return <span className="font-bold text-major">▲ defect</span>;
   return <span className="text-muted">○ open</span>;
 }
@@ -207,6 +208,22 @@ export function SealCheckPanel({ expected, lastHeard }: { expected: string; last
 
 export function ReadingResult({ step }: { step: WalkStep | undefined }) {
   if (!step) return null;
+  return (
+    <>
+      <ReadingVerdict step={step} />
+      {step.phoneVerdict && (
+        <p className="text-base font-bold" data-testid="server-verdict">
+          ◆ RigCall’s server judged this reading{' '}
+          {step.verdict === 'pass' ? 'a pass' : step.severity ? `a ${step.severity} defect` : 'a fail'}; this phone had
+          said {step.phoneVerdict.verdict === 'pass' ? 'pass' : (step.phoneVerdict.severity ?? 'fail')}. The report
+          carries the server’s verdict.
+        </p>
+      )}
+    </>
+  );
+}
+
+function ReadingVerdict({ step }: { step: WalkStep }) {
   const unit = step.limit?.split(' ').slice(1).join(' ') ?? '';
   const limit = step.limit ? formatReading(Number(step.limit.split(' ')[0]), unit) : null;
   if (step.verdict === 'pass')
