@@ -27,11 +27,34 @@ export function formatPast(date: Date, now: Date): string | null {
   return null;
 }
 
+/** The zone's short name at that moment ("CST", "CDT", "GMT-6"). */
+function zoneName(date: Date, timeZone: string | undefined): string {
+  const part = new Intl.DateTimeFormat('en-US', { timeZone, timeZoneName: 'short' })
+    .formatToParts(date)
+    .find((p) => p.type === 'timeZoneName');
+  return part?.value ?? timeZone ?? '';
+}
+
+/** Whether two zones show a different clock time at that moment. */
+function offsetsDiffer(date: Date, a: string, b: string): boolean {
+  const at = (timeZone: string) =>
+    new Intl.DateTimeFormat('en-US', {
+      timeZone,
+      hour: '2-digit',
+      minute: '2-digit',
+      day: 'numeric',
+      hourCycle: 'h23',
+    }).format(date);
+  return at(a) !== at(b);
+}
+
 /**
- * One moment on screen, as a <time dateTime="ISO">. In `timeZone` (the fleet's) when given,
- * otherwise in the viewer's; the server cannot know the viewer's zone, so until the page runs in
- * the browser that case shows UTC and says so. `relative` shows "… ago" for past times only (a
- * time in the future is shown as it is), once in the browser; the exact time is in the tooltip.
+ * One moment on screen, as a <time dateTime="ISO">. In `timeZone` (the fleet's) when given, with
+ * the zone named ("05:46 CST") and, once in the browser, the viewer's own clock beside it when it
+ * reads differently ("· 06:46 EST your time"). Without `timeZone` it is the viewer's zone; the
+ * server cannot know that zone, so until the page runs in the browser that case shows UTC and
+ * says so. `relative` shows "… ago" for past times only (a time in the future is shown as it is),
+ * once in the browser; the exact time is in the tooltip.
  */
 export function TimeStamp({
   iso,
@@ -58,10 +81,24 @@ export function TimeStamp({
     timeZone: zone,
   }).format(date);
   const past = relative && inBrowser ? formatPast(date, new Date()) : null;
+  const viewerZone = inBrowser ? Intl.DateTimeFormat().resolvedOptions().timeZone : undefined;
+  const viewerDiffers = !!timeZone && !!viewerZone && format !== 'date' && offsetsDiffer(date, timeZone, viewerZone);
+  const named = timeZone && format !== 'date' && !past ? ` ${zoneName(date, timeZone)}` : '';
   return (
-    <time dateTime={date.toISOString()} title={full} className={className}>
-      {past ?? shown}
+    <time dateTime={date.toISOString()} title={full} className={className} data-zone={timeZone ?? 'viewer'}>
+      {past ?? `${shown}${named}`}
       {zone === 'UTC' && !timeZone ? ' UTC' : null}
+      {viewerDiffers && !past ? (
+        <span className="text-muted">
+          {' · '}
+          {new Intl.DateTimeFormat('en-US', {
+            ...formats[format === 'datetime' ? 'time' : format],
+            second: undefined,
+            timeZone: viewerZone,
+          }).format(date)}{' '}
+          {zoneName(date, viewerZone)} your time
+        </span>
+      ) : null}
     </time>
   );
 }

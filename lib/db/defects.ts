@@ -74,8 +74,10 @@ export async function findDefectDetail(db: DB, { fleetId, id }: { fleetId: strin
     .innerJoin('inspection as i', 'i.id', 'df.inspectionId')
     .innerJoin('appUser as d', 'd.id', 'i.driverId')
     .innerJoin('inspectionStep as s', 's.id', 'df.stepId')
+    .innerJoin('fleet as fl', 'fl.id', 'df.fleetId')
     .select([
       ...queueColumns,
+      'fl.timezone',
       'df.stepId',
       'df.repairWork',
       'df.repairParts',

@@ -33,6 +33,7 @@ const settingsColumns = [
   'minPosttripMinutes',
   'tirePressureTargets',
   'ruleProfile',
+  'timezone',
   'maintenanceEmail',
   'supervisorEmail',
   'requiredReadings',
@@ -47,6 +48,7 @@ type SettingsRow = {
   minPosttripMinutes: number;
   tirePressureTargets: unknown;
   ruleProfile: string;
+  timezone: string;
   maintenanceEmail: string | null;
   supervisorEmail: string | null;
   requiredReadings: unknown;

@@ -69,6 +69,8 @@ export type DefectQueueGroup = {
 /** One defect with its finding, repair and photos, as GET /api/defects/[id] answers. */
 export type DefectDetail = {
   id: string;
+  /** The fleet's IANA time zone, for every time shown with the defect. */
+  timezone: string;
   unitId: string;
   unitNumber: string;
   unitKind: 'tractor' | 'trailer';

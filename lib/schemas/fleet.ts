@@ -47,6 +47,41 @@ export const tirePressureToleranceSchema = z
   .min(0, 'The tolerance cannot be negative.')
   .max(10, 'A tolerance above 10 psi would hide a tire that really is low.');
 
+/** Time zones offered in the settings (IANA names); any other IANA zone the runtime knows is accepted too. */
+export const fleetTimeZones = [
+  'America/St_Johns',
+  'America/Halifax',
+  'America/Moncton',
+  'America/New_York',
+  'America/Toronto',
+  'America/Chicago',
+  'America/Winnipeg',
+  'America/Regina',
+  'America/Denver',
+  'America/Edmonton',
+  'America/Phoenix',
+  'America/Los_Angeles',
+  'America/Vancouver',
+  'America/Anchorage',
+  'Pacific/Honolulu',
+] as const;
+
+/** Whether the runtime knows `name` as an IANA time zone ("America/Chicago"; "UTC"). */
+export function isTimeZone(name: string): boolean {
+  if (!/^[A-Za-z_]+(?:\/[A-Za-z0-9_+-]+)*$/.test(name)) return false;
+  try {
+    new Intl.DateTimeFormat('en-US', { timeZone: name });
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+export const timeZoneSchema = z
+  .string('Pick the time zone from the list.')
+  .trim()
+  .refine(isTimeZone, 'Pick the time zone from the list (a name such as America/Chicago).');
+
 export const updateFleetSettingsBodySchema = z
   .object({
     minPretripMinutes: minutes('pre-trip').optional(),
@@ -55,6 +90,7 @@ export const updateFleetSettingsBodySchema = z
     requiredReadings: requiredReadingsSchema.optional(),
     tirePressureTolerancePsi: tirePressureToleranceSchema.optional(),
     ruleProfile: z.enum(ruleProfiles, { error: 'Pick one of the rule profiles in the list.' }).optional(),
+    timezone: timeZoneSchema.optional(),
     maintenanceEmail: optionalEmailSchema,
     supervisorEmail: optionalEmailSchema,
   })
@@ -72,6 +108,7 @@ export const fleetSettingsSchema = z.object({
   requiredReadings: requiredReadingsSchema,
   tirePressureTolerancePsi: z.number(),
   ruleProfile: z.enum(ruleProfiles),
+  timezone: z.string(),
   maintenanceEmail: z.string().nullable(),
   supervisorEmail: z.string().nullable(),
   updatedAt: z.string(),

@@ -9,7 +9,7 @@ import { countWords, tidyText } from '@/lib/walk/name-finding';
 import { EmptyState } from '@/components/ui/empty-state';
 import { Panel } from '@/components/ui/panel';
 
-function Row({ d }: { d: DefectQueueRow }) {
+function Row({ d, timeZone }: { d: DefectQueueRow; timeZone: string }) {
   return (
     <li>
       <Link
@@ -29,13 +29,13 @@ function Row({ d }: { d: DefectQueueRow }) {
         <span className="text-sm text-muted md:text-right">
           {d.status === 'open' ? (
             <>
-              reported <TimeStamp iso={d.reportedAt} />
+              reported <TimeStamp iso={d.reportedAt} timeZone={timeZone} />
               <span className="block">by {d.driverName}</span>
             </>
           ) : (
             <>
               {d.status === 'repaired' ? 'repaired' : 'no repair needed'}: {d.certifiedName}
-              <TimeStamp iso={d.certifiedAt} className="block" />
+              <TimeStamp iso={d.certifiedAt} timeZone={timeZone} className="block" />
             </>
           )}
           {d.photoCount > 0 && <span className="block">{countWords(d.photoCount, 'photo')}</span>}
@@ -55,7 +55,9 @@ export function DefectQueue({
   groups,
   status,
   filteredUnit,
+  timeZone,
 }: {
+  timeZone: string;
   groups: DefectQueueGroup[];
   status: 'open' | 'closed' | 'all';
   filteredUnit: string | null;
@@ -99,10 +101,10 @@ export function DefectQueue({
           </header>
           <ul className="divide-y divide-edge/15">
             {g.major.map((d) => (
-              <Row key={d.id} d={d} />
+              <Row key={d.id} d={d} timeZone={timeZone} />
             ))}
             {g.minor.map((d) => (
-              <Row key={d.id} d={d} />
+              <Row key={d.id} d={d} timeZone={timeZone} />
             ))}
           </ul>
         </Panel>

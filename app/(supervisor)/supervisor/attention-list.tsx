@@ -1,7 +1,8 @@
 import Link from 'next/link';
-import { formatDateTime, formatDuration, kindLabel } from '@/components/office/format';
+import { formatDuration, kindLabel } from '@/components/office/format';
 import type { SupervisorBoard } from '@/lib/schemas/dashboard';
 import { EmptyState } from '@/components/ui/empty-state';
+import { TimeStamp } from '@/components/ui/time-stamp';
 import { Panel } from '@/components/ui/panel';
 
 const reasonText: Record<string, string> = {
@@ -64,7 +65,7 @@ export function AttentionList({
                   <span>{kindLabel(r.kind)}</span>
                   <span className="text-muted">{r.driverName}</span>
                   <span className="ml-auto text-sm text-muted tabular-nums">
-                    {formatDateTime(r.startedAt, fleet.timezone)} · {formatDuration(r.durationS)}
+                    <TimeStamp iso={r.startedAt} timeZone={fleet.timezone} /> · {formatDuration(r.durationS)}
                   </span>
                 </div>
                 <div className="mt-1 flex flex-wrap gap-1.5">

@@ -32,6 +32,7 @@ export async function getDefectOrThrow({ fleetId, id }: { fleetId: string; id: s
     odometer: d.odometer,
     location: d.location,
     driverName: d.driverName,
+    timezone: d.timezone,
     finding: {
       heard: d.heard,
       score: d.score === null ? null : Number(d.score),

@@ -1,5 +1,6 @@
 import 'server-only';
 import { getDb } from '@/lib/db';
+import { isoWithOffset } from '@/lib/format/iso-with-offset';
 import { iterateReportRows } from '@/lib/db/reports';
 import type { ExportReportsQuery, ReportRow } from '@/lib/schemas/reports';
 import { getFleetMinimumsOrThrow } from './list-reports';
@@ -8,8 +9,8 @@ export const reportCsvColumns = [
   ['report_id', (r) => r.id],
   ['type', (r) => (r.kind === 'pre_trip' ? 'pre-trip' : 'post-trip')],
   ['status', (r) => (r.status === 'draft' ? 'draft' : r.reviewedAt ? 'reviewed' : 'submitted')],
-  ['started_at', (r) => r.startedAt],
-  ['finished_at', (r) => r.finishedAt ?? ''],
+  ['started_at', (r, tz) => isoWithOffset(r.startedAt, tz)],
+  ['finished_at', (r, tz) => (r.finishedAt ? isoWithOffset(r.finishedAt, tz) : '')],
   ['duration_min', (r) => (r.durationS === null ? '' : (r.durationS / 60).toFixed(1))],
   ['minimum_min', (r) => String(r.minimumS / 60)],
   ['short', (r) => (r.short ? 'yes' : 'no')],
@@ -21,8 +22,8 @@ export const reportCsvColumns = [
   ['major_defects', (r) => String(r.majorCount)],
   ['minor_defects', (r) => String(r.minorCount)],
   ['open_defects', (r) => String(r.openCount)],
-  ['reviewed_at', (r) => r.reviewedAt ?? ''],
-] as const satisfies ReadonlyArray<readonly [string, (r: ReportRow) => string]>;
+  ['reviewed_at', (r, tz) => (r.reviewedAt ? isoWithOffset(r.reviewedAt, tz) : '')],
+] as const satisfies ReadonlyArray<readonly [string, (r: ReportRow, timeZone: string) => string]>;
 
 /**
  * One CSV cell (RFC 4180): quoted when it holds a quote, comma or line break, quotes doubled.
@@ -50,9 +51,12 @@ export function exportReportsCsv({
   const { sort, dir, ...filters } = query;
   const encoder = new TextEncoder();
   let rows: AsyncGenerator<ReportRow[]> | undefined;
+  // Times as ISO 8601 in the fleet's zone with its offset: the clock the office reads, unambiguous.
+  let timeZone = 'UTC';
   return new ReadableStream<Uint8Array>({
     async start(controller) {
       const minimums = await getFleetMinimumsOrThrow(fleetId);
+      timeZone = minimums.timezone;
       rows = iterateReportRows(getDb(), { fleetId, filters, minimums, sort, dir });
       controller.enqueue(encoder.encode(`\uFEFF${toCsvLine(reportCsvColumns.map(([name]) => name))}`));
     },
@@ -60,7 +64,7 @@ export function exportReportsCsv({
       const next = await rows!.next();
       if (next.done) return controller.close();
       controller.enqueue(
-        encoder.encode(next.value.map((r) => toCsvLine(reportCsvColumns.map(([, get]) => get(r)))).join('')),
+        encoder.encode(next.value.map((r) => toCsvLine(reportCsvColumns.map(([, get]) => get(r, timeZone)))).join('')),
       );
     },
   });

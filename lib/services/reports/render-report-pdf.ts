@@ -99,6 +99,8 @@ export function renderReportPdfFromDetail(r: ReportDetail): Promise<Buffer> {
   field('Zones walked', r.zones.map((z) => z.name).join(', ') || '—');
   if (r.skippedZones.length) field('Zones not walked', r.skippedZones.map((z) => z.name).join(', '));
 
+  const named = (d: ReportDetail['defects'][number]) =>
+    nameFinding({ component: d.component, condition: d.condition, position: d.position });
   heading('Defects found or reported');
   if (!r.defects.length) doc.text('No defect found or reported.');
   for (const [i, d] of r.defects.entries()) {
@@ -109,10 +111,9 @@ export function renderReportPdfFromDetail(r: ReportDetail): Promise<Buffer> {
       );
     doc
       .font('Helvetica')
-      .text(
-        `${nameFinding({ component: d.component, condition: d.condition, position: d.position })}; found in the ${idWords(d.zone)} zone.`,
-        { indent: 14 },
-      );
+      .text(`Found in the ${idWords(d.zone)} zone${named(d) === tidyText(d.description) ? '' : `: ${named(d)}`}.`, {
+        indent: 14,
+      });
     const step = r.zones.flatMap((z) => z.steps).find((s) => s.id === d.stepId);
     if (step?.measurementKind)
       doc.text(

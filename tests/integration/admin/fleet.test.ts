@@ -98,6 +98,23 @@ describe('fleet settings', () => {
     expect(await auditRows(ctx.fleet.id)).toEqual([]);
   });
 
+  it('sets the fleet time zone from IANA names and refuses a zone it does not know (422)', async () => {
+    const ok = await patch({ timezone: 'America/Halifax' });
+    expect(ok.status).toBe(200);
+    expect((await parseJson(ok, fleetBodySchema)).fleet.timezone).toBe('America/Halifax');
+    const bad = await patch({ timezone: 'Mars/Olympus_Mons' });
+    expect(bad.status).toBe(422);
+    expect((await readError(bad)).fields?.timezone).toEqual([
+      'Pick the time zone from the list (a name such as America/Chicago).',
+    ]);
+    const row = await db
+      .selectFrom('fleet')
+      .select('timezone')
+      .where('id', '=', ctx.fleet.id)
+      .executeTakeFirstOrThrow();
+    expect(row.timezone).toBe('America/Halifax');
+  });
+
   it("touches only the admin's own fleet", async () => {
     const other = await makeAdminFleet();
     await patch({ minPretripMinutes: 30 });

@@ -83,7 +83,9 @@ describe('rendered words from seeded history', () => {
   it("the mechanic's queue, open and certified", async () => {
     for (const status of ['open', 'closed'] as const) {
       const { groups } = await listDefectQueue({ fleetId: f.fleet.id, query: { status } });
-      const markup = renderToStaticMarkup(createElement(DefectQueue, { groups, status, filteredUnit: null }));
+      const markup = renderToStaticMarkup(
+        createElement(DefectQueue, { groups, status, filteredUnit: null, timeZone: 'America/Chicago' }),
+      );
       expectReadable(`queue ${status}`, htmlText(markup));
     }
   });

@@ -223,6 +223,10 @@ describe('CSV export', () => {
     expect(rows[1]![col('type')]).toBe('pre-trip');
     expect(rows[1]![col('duration_min')]).toBe('20.0');
     expect(rows[1]![col('driver')]).toBe('Avery Stone');
+    // ISO 8601 in the fleet's zone with its offset (the fixture fleet is in America/Chicago).
+    expect(rows[1]![col('started_at')]).toMatch(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}-0[56]:00$/);
+    // the same instant as written, an hour before the test ran
+    expect(Math.abs(new Date(rows[1]![col('started_at')]!).getTime() - (Date.now() - 3600_000))).toBeLessThan(600_000);
     expect(rows.every((r) => r.length === rows[0]!.length)).toBe(true);
   });
 });

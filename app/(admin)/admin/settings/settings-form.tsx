@@ -6,6 +6,7 @@ import { useHydrated } from '@/components/ui/use-hydrated';
 import { fieldsOfZod, firstError, numberOrNull, readFailure, type FieldErrors } from '@/components/admin/form-errors';
 import { useUpdateFleetSettingsMutation } from '@/lib/queries/admin';
 import {
+  fleetTimeZones,
   ruleProfileLabel,
   ruleProfiles,
   updateFleetSettingsBodySchema,
@@ -16,6 +17,16 @@ import { buttonClass } from '@/components/ui/button';
 import { panelClass } from '@/components/ui/panel';
 
 const timeFormat = new Intl.DateTimeFormat('en-US', { hour: 'numeric', minute: '2-digit' });
+
+/** "America/Chicago (CST, UTC−6)": the name and what it reads now. */
+function zoneOption(zone: string): string {
+  const now = new Date();
+  const name = (style: 'short' | 'longOffset') =>
+    new Intl.DateTimeFormat('en-US', { timeZone: zone, timeZoneName: style })
+      .formatToParts(now)
+      .find((p) => p.type === 'timeZoneName')?.value ?? '';
+  return `${zone.replace(/_/g, ' ')} (${name('short')}, ${name('longOffset').replace('GMT', 'UTC')})`;
+}
 
 function Suffixed({ suffix, children }: { suffix: string; children: ReactNode }) {
   return (
@@ -35,6 +46,7 @@ export function SettingsForm({ fleet }: { fleet: FleetSettings }) {
   const [drive, setDrive] = useState(String(fleet.tirePressureTargets.drive));
   const [trailer, setTrailer] = useState(String(fleet.tirePressureTargets.trailer));
   const [profile, setProfile] = useState<RuleProfile>(fleet.ruleProfile);
+  const [timezone, setTimezone] = useState(fleet.timezone);
   const [maintenanceEmail, setMaintenanceEmail] = useState(fleet.maintenanceEmail ?? '');
   const [supervisorEmail, setSupervisorEmail] = useState(fleet.supervisorEmail ?? '');
   const [errors, setErrors] = useState<FieldErrors>({});
@@ -51,6 +63,7 @@ export function SettingsForm({ fleet }: { fleet: FleetSettings }) {
       minPosttripMinutes: numberOrNull(post),
       tirePressureTargets: { steer: numberOrNull(steer), drive: numberOrNull(drive), trailer: numberOrNull(trailer) },
       ruleProfile: profile,
+      timezone,
       maintenanceEmail,
       supervisorEmail,
     };
@@ -198,6 +211,27 @@ export function SettingsForm({ fleet }: { fleet: FleetSettings }) {
             </p>
           ) : null}
         </fieldset>
+      </section>
+
+      <section aria-labelledby="zone-heading" className={`${panelClass({ padding: 'none' })} flex flex-col gap-4 p-4`}>
+        <h2 id="zone-heading" className="text-xl font-extrabold">
+          Time zone
+        </h2>
+        <p className="text-base text-muted">
+          Every time on the office screens, the PDF and the mails is shown in this zone, with the viewer&apos;s own
+          clock beside it when it reads differently. Exports carry the offset.
+        </p>
+        <Field id="fleet-timezone" label="Fleet time zone" error={err('timezone')}>
+          {(c) => (
+            <select {...c} className={inputClass} value={timezone} onChange={(e) => setTimezone(e.target.value)}>
+              {[...new Set<string>([timezone, ...fleetTimeZones])].map((z) => (
+                <option key={z} value={z}>
+                  {zoneOption(z)}
+                </option>
+              ))}
+            </select>
+          )}
+        </Field>
       </section>
 
       <section aria-labelledby="mail-heading" className={`${panelClass({ padding: 'none' })} flex flex-col gap-4 p-4`}>

@@ -3,7 +3,9 @@
 import { useQuery, useQueryClient } from '@tanstack/react-query';
 import Link from 'next/link';
 import { useState } from 'react';
-import { formatDateTime, kindLabel, zoneLabel } from '@/components/office/format';
+import { kindLabel, zoneLabel } from '@/components/office/format';
+import { TimeStamp } from '@/components/ui/time-stamp';
+import { formatLimitText, formatQuantity, idWords, nameFinding, sourceWords } from '@/lib/walk/name-finding';
 import { useHydrated } from '@/components/ui/use-hydrated';
 import { SafetyCautions } from '@/components/office/safety-cautions';
 import { Button, buttonClass } from '@/components/ui/button';
@@ -69,7 +71,7 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
           <div>
             <dt className="text-sm font-bold text-muted uppercase">Found</dt>
             <dd>
-              {kindLabel(d.inspectionKind)}, {formatDateTime(d.inspectedAt)}
+              {kindLabel(d.inspectionKind)}, <TimeStamp iso={d.inspectedAt} timeZone={d.timezone} />
             </dd>
           </div>
           <div>
@@ -79,8 +81,8 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
           <div>
             <dt className="text-sm font-bold text-muted uppercase">Where</dt>
             <dd>
-              <span className="capitalize">{zoneLabel(d.zone)}</span> · {d.component}, {d.condition}
-              {d.position ? `, ${d.position}` : ''}
+              <span className="capitalize">{zoneLabel(d.zone)}</span> ·{' '}
+              {nameFinding({ component: d.component, condition: d.condition, position: d.position })}
             </dd>
           </div>
           <div>
@@ -91,8 +93,8 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
             <div className="col-span-2">
               <dt className="text-sm font-bold text-muted uppercase">Measured</dt>
               <dd>
-                {d.finding.value} {d.finding.unit} ({d.finding.measurementKind.replace(/_/g, ' ')}); limit{' '}
-                {d.finding.limitText ?? '—'}; {d.finding.source ?? 'no source'}
+                {formatQuantity(d.finding.value, d.finding.unit)} ({idWords(d.finding.measurementKind)}); limit{' '}
+                {formatLimitText(d.finding.limitText)}; {sourceWords(d.finding.source)}
               </dd>
             </div>
           )}
@@ -163,7 +165,7 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
             />
           </h2>
           <p className="text-lg">
-            {d.certification.name}, {formatDateTime(d.certification.at)}
+            {d.certification.name}, <TimeStamp iso={d.certification.at} timeZone={d.timezone} />
           </p>
           {d.repair.work && <p>Work: {d.repair.work}</p>}
           {d.repair.parts && <p>Parts: {d.repair.parts}</p>}

@@ -3,11 +3,12 @@
 import { useQuery } from '@tanstack/react-query';
 import Link from 'next/link';
 import { useState } from 'react';
-import { formatDateTime, formatDuration, formatTime, kindLabel } from '@/components/office/format';
+import { formatDuration, kindLabel } from '@/components/office/format';
 import { useHydrated } from '@/components/ui/use-hydrated';
 import { Button, buttonClass } from '@/components/ui/button';
 import { Panel, panelClass } from '@/components/ui/panel';
 import { SeverityMark } from '@/components/ui/severity-mark';
+import { TimeStamp } from '@/components/ui/time-stamp';
 import { UnitStatus } from '@/components/ui/unit-status';
 import { reportDetailOptions, useNotifyShopMutation, useReviewReportMutation } from '@/lib/queries/reports';
 import type { ReportDetail } from '@/lib/schemas/reports';
@@ -65,7 +66,9 @@ export function ReportClient({ id }: { id: string }) {
             {kindLabel(r.kind)} · unit {r.tractor.number}
             {r.trailer ? ` + ${r.trailer.number}` : ''}
           </h1>
-          <span className="text-lg text-muted">{formatDateTime(r.startedAt, tz)}</span>
+          <span className="text-lg text-muted">
+            <TimeStamp iso={r.startedAt} timeZone={tz} />
+          </span>
           {r.status === 'draft' && <span className="rounded border-2 border-edge px-2 font-bold">still walking</span>}
         </div>
         <dl className="grid grid-cols-2 gap-x-6 gap-y-3 md:grid-cols-4">
@@ -86,7 +89,8 @@ export function ReportClient({ id }: { id: string }) {
           </Fact>
           <Fact label="Odometer">{r.odometer === null ? '—' : `${r.odometer.toLocaleString('en-US')} mi`}</Fact>
           <Fact label="Started · finished">
-            {formatTime(r.startedAt, tz)} · {formatTime(r.finishedAt, tz)}
+            <TimeStamp iso={r.startedAt} timeZone={tz} format="time" /> ·{' '}
+            <TimeStamp iso={r.finishedAt} timeZone={tz} format="time" />
           </Fact>
           <Fact label="Duration">
             {r.duration ? (
@@ -147,7 +151,7 @@ export function ReportClient({ id }: { id: string }) {
                   {d.status !== 'open' && (
                     <p className="text-sm">
                       <SeverityMark severity="pass" label={d.status === 'repaired' ? 'Repaired' : 'No repair needed'} />{' '}
-                      by {d.certifiedName}, {formatDateTime(d.certifiedAt, tz)}
+                      by {d.certifiedName}, <TimeStamp iso={d.certifiedAt} timeZone={tz} />
                       {d.repairWork ? ` — ${d.repairWork}` : ''}
                     </p>
                   )}
@@ -160,7 +164,7 @@ export function ReportClient({ id }: { id: string }) {
             <ul className="text-base">
               {r.acknowledgements.map((a) => (
                 <li key={a.id}>
-                  {a.signatureName} signed for unit {a.unitNumber}, {formatDateTime(a.acknowledgedAt, tz)}
+                  {a.signatureName} signed for unit {a.unitNumber}, <TimeStamp iso={a.acknowledgedAt} timeZone={tz} />
                 </li>
               ))}
             </ul>
@@ -181,7 +185,7 @@ export function ReportClient({ id }: { id: string }) {
             {r.review.reviewedAt && (
               <p className="mb-2" data-testid="review-state">
                 <SeverityMark severity="pass" label="Reviewed" /> by {r.review.reviewerName},{' '}
-                {formatDateTime(r.review.reviewedAt, tz)}
+                <TimeStamp iso={r.review.reviewedAt} timeZone={tz} />
               </p>
             )}
             <form
