@@ -1,6 +1,6 @@
 import 'server-only';
 import { sql } from 'kysely';
-import { getDb, getStepDb, type DB } from '@/lib/db';
+import { getStepDb, type DB } from '@/lib/db';
 import { findFleetSettings } from '@/lib/db/fleets';
 import { findInspectionForUpdate, findStep, stepColumns } from '@/lib/db/inspections';
 import { findFleetUnit } from '@/lib/db/units';
@@ -16,8 +16,8 @@ import {
   type CheckContext,
   type StepBody,
 } from '@/lib/walk';
-import { recordAudit } from '../platform/record-audit';
 import { loadGrammar } from '../vocabulary/resolve-vocabulary';
+import { refuseLockedChange } from './refuse-locked-change';
 
 // Durability. An open walk's steps are written on getStepDb, whose commits do not wait for the
 // disk: a database crash can lose the last fraction of a second of them after the phone was told
@@ -203,16 +203,11 @@ export async function recordStep({
   if (quick) return { step: quick, created: true };
   const outcome = await writeStep({ fleetId, actorId, inspectionId, body });
   if ('refused' in outcome) {
-    // Logged outside the refused write, so the attempt stays on record.
-    await recordAudit(getDb(), {
-      fleetId,
-      actorId,
-      action: 'inspection.change_refused',
-      entity: 'inspection',
-      entityId: inspectionId,
-      detail: { stepId: body.id, kind: body.kind },
-    });
-    throw new AppError('conflict', 'This report is signed and locked; it cannot change.');
+    throw await refuseLockedChange(
+      { fleetId, actorId, inspectionId },
+      { stepId: body.id, kind: body.kind },
+      'This report is signed and locked; it cannot change.',
+    );
   }
   return outcome;
 }

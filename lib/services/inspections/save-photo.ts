@@ -7,6 +7,7 @@ import { AppError } from '@/lib/errors';
 import { startObjectBatch } from '@/lib/storage';
 import { idTakenError } from '../platform/id-taken';
 import { recordAudit } from '../platform/record-audit';
+import { refuseLockedChange } from './refuse-locked-change';
 
 export const MAX_PHOTO_BYTES = 15 * 1024 * 1024;
 /** The largest picture decoded: a 48-megapixel phone sensor's full frame, with room to spare. */
@@ -105,18 +106,12 @@ export async function savePhoto({
   if (!inspection) throw new AppError('not_found', 'No such inspection in your fleet.');
   if (inspection.driverId !== actorId)
     throw new AppError('forbidden', 'Only the driver of this inspection adds its photos.');
-  const refuse = async () => {
-    // Logged on its own, so the attempt stays on record.
-    await recordAudit(db, {
-      fleetId,
-      actorId,
-      action: 'inspection.change_refused',
-      entity: 'inspection',
-      entityId: inspectionId,
-      detail: { photoId, stepId, what: 'photo' },
-    });
-    return new AppError('conflict', 'This report is signed and locked; no photo can be added to it.');
-  };
+  const refuse = () =>
+    refuseLockedChange(
+      { fleetId, actorId, inspectionId },
+      { photoId, stepId, what: 'photo' },
+      'This report is signed and locked; no photo can be added to it.',
+    );
   if (inspection.status === 'submitted') throw await refuse();
   const { type, full, thumb } = await encodePhoto(bytes);
   const key = `fleet/${fleetId}/inspections/${inspectionId}/photos/${photoId}.jpg`;

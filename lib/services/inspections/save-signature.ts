@@ -5,7 +5,7 @@ import { findInspectionForUpdate } from '@/lib/db/inspections';
 import { AppError } from '@/lib/errors';
 import { putObject } from '@/lib/storage';
 import { sha256Hex } from '@/lib/walk';
-import { recordAudit } from '../platform/record-audit';
+import { refuseLockedChange } from './refuse-locked-change';
 import { sniffImageType } from './save-photo';
 
 export const MAX_SIGNATURE_BYTES = 512 * 1024;
@@ -59,13 +59,9 @@ export async function saveSignature({
       return { signatureKey: key, created: true };
     });
   if (outcome) return outcome;
-  await recordAudit(getDb(), {
-    fleetId,
-    actorId,
-    action: 'inspection.change_refused',
-    entity: 'inspection',
-    entityId: inspectionId,
-    detail: { what: 'signature' },
-  });
-  throw new AppError('conflict', 'This report is signed and locked; its signature cannot change.');
+  throw await refuseLockedChange(
+    { fleetId, actorId, inspectionId },
+    { what: 'signature' },
+    'This report is signed and locked; its signature cannot change.',
+  );
 }
