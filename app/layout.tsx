@@ -25,6 +25,9 @@ const body = localFont({
 export const metadata: Metadata = {
   title: { default: 'RigCall', template: '%s · RigCall' },
   description: 'Hands-free walk-around inspections for tractor-trailers: findings, defects, repairs and records.',
+  applicationName: 'RigCall',
+  appleWebApp: { capable: true, title: 'RigCall', statusBarStyle: 'black-translucent' },
+  icons: { apple: '/icons/apple-touch-icon.png' },
 };
 
 export const viewport: Viewport = {
