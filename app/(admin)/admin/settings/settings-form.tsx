@@ -15,6 +15,21 @@ import {
 } from '@/lib/schemas/fleet';
 import { buttonClass } from '@/components/ui/button';
 import { panelClass } from '@/components/ui/panel';
+import { measureKindSchema, type MeasureKind } from '@/lib/schemas/grammar';
+
+const measureKindLabel: Record<MeasureKind, string> = {
+  tread_depth: 'Tread depth',
+  tire_pressure: 'Tire pressure',
+  pushrod_stroke: 'Pushrod stroke',
+  low_air_warning: 'Low-air warning',
+  air_buildup: 'Air pressure build-up time',
+  governor_cutout: 'Governor cut-out',
+  governor_cutin: 'Governor cut-in',
+  air_leak: 'Air leakage (released and applied)',
+  steering_lash: 'Steering wheel lash',
+  fifth_wheel_movement: 'Coupler movement',
+  ground_clearance: 'Rear impact guard clearance',
+};
 
 const timeFormat = new Intl.DateTimeFormat('en-US', { hour: 'numeric', minute: '2-digit' });
 
@@ -45,6 +60,8 @@ export function SettingsForm({ fleet }: { fleet: FleetSettings }) {
   const [steer, setSteer] = useState(String(fleet.tirePressureTargets.steer));
   const [drive, setDrive] = useState(String(fleet.tirePressureTargets.drive));
   const [trailer, setTrailer] = useState(String(fleet.tirePressureTargets.trailer));
+  const [tolerance, setTolerance] = useState(String(fleet.tirePressureTolerancePsi));
+  const [required, setRequired] = useState<MeasureKind[]>(fleet.requiredReadings);
   const [profile, setProfile] = useState<RuleProfile>(fleet.ruleProfile);
   const [timezone, setTimezone] = useState(fleet.timezone);
   const [maintenanceEmail, setMaintenanceEmail] = useState(fleet.maintenanceEmail ?? '');
@@ -62,6 +79,8 @@ export function SettingsForm({ fleet }: { fleet: FleetSettings }) {
       minPretripMinutes: numberOrNull(pre),
       minPosttripMinutes: numberOrNull(post),
       tirePressureTargets: { steer: numberOrNull(steer), drive: numberOrNull(drive), trailer: numberOrNull(trailer) },
+      tirePressureTolerancePsi: numberOrNull(tolerance),
+      requiredReadings: required,
       ruleProfile: profile,
       timezone,
       maintenanceEmail,
@@ -175,6 +194,51 @@ export function SettingsForm({ fleet }: { fleet: FleetSettings }) {
             )}
           </Field>
         </div>
+        <Field
+          id="psi-tolerance"
+          label="Gauge tolerance"
+          error={err('tirePressureTolerancePsi')}
+          hint="A reading this far under the target still counts as on target. 2 psi is about what a tire gauge can be trusted to (common practice, no published source); 0 to 10."
+        >
+          {(c) => (
+            <Suffixed suffix="psi">
+              <input
+                {...c}
+                className={inputClass}
+                inputMode="numeric"
+                value={tolerance}
+                onChange={(e) => setTolerance(e.target.value)}
+              />
+            </Suffixed>
+          )}
+        </Field>
+      </section>
+
+      <section
+        aria-labelledby="readings-heading"
+        className={`${panelClass({ padding: 'none' })} flex flex-col gap-3 p-4`}
+      >
+        <h2 id="readings-heading" className="text-xl font-extrabold">
+          Required readings
+        </h2>
+        <p className="text-base text-muted">
+          A pre-trip cannot be signed until each of these has a number, or is marked not checked with a reason. The
+          others may be read or left out. By default: the air-brake tests.
+        </p>
+        <fieldset className="grid gap-2 sm:grid-cols-2">
+          <legend className="sr-only">Required readings</legend>
+          {measureKindSchema.options.map((m) => (
+            <label key={m} className="flex min-h-12 cursor-pointer items-center gap-3 text-lg">
+              <input
+                type="checkbox"
+                className="size-6"
+                checked={required.includes(m)}
+                onChange={(e) => setRequired((r) => (e.target.checked ? [...r, m] : r.filter((x) => x !== m)))}
+              />
+              {measureKindLabel[m]}
+            </label>
+          ))}
+        </fieldset>
       </section>
 
       <section
