@@ -39,6 +39,9 @@ const setFiles = (flag('set') ?? 'held-out-spoken.jsonl').split(',');
 const voices = (flag('voices') ?? 'espeak-en-us,flite-slt').split(',');
 const snrs = (flag('snr') ?? 'clean,15,5').split(',');
 const limit = Number(flag('limit') ?? 0);
+/** `--dump FILE`: one JSON line per utterance and condition (heard, n-best, reading, outcome) for a closer look. */
+const dumpFile = flag('dump');
+const dump: string[] = [];
 const log = (s: string) => process.stderr.write(`${s}\n`);
 
 // ---------------------------------------------------------------- Debian packages
@@ -556,17 +559,37 @@ for (const model of models) {
       werPairs.push({ reference: toReference(it.u.text), hypothesis: rec.hyp });
       if (it.u.kind === 'unknown' || !it.u.kind) chatterN += 1;
       const ctx = getLabelledContext(it.u);
+      // the decoder's best path comes first (its 5-best search can rank it lower), scored as the best entry
+      const top = Math.max(...rec.nbest.map((x) => x.score));
+      const ordered = [{ text: rec.hyp, score: top }, ...rec.nbest.filter((x) => x.text !== rec.hyp)];
       const conf = getNbestConfidences(
-        rec.nbest.map((x) => x.score),
+        ordered.map((x) => x.score),
         NBEST_SCALE,
       );
-      const alts: NbestAlternative[] = rec.nbest.map((x, i) => ({ transcript: x.text, confidence: conf[i] ?? 0 }));
+      const alts: NbestAlternative[] = ordered.map((x, i) => ({ transcript: x.text, confidence: conf[i] ?? 0 }));
       const rN = matcher.matchNbest(alts, ctx);
       const rT = matcher.match(rec.hyp, ctx);
       const tn = tallies['RigCall n-best'];
       const tt = tallies['RigCall top'];
       const tf = tallies['plain fuse.js'];
       if (tn) tn[classify(it.u, rN)] += 1;
+      if (dumpFile)
+        dump.push(
+          JSON.stringify({
+            model,
+            snr: snrName,
+            voice: it.voice,
+            text: it.u.text,
+            want: it.u.termId ?? it.u.command ?? it.u.measure ?? it.u.kind,
+            hyp: rec.hyp,
+            nbest: alts,
+            got: rN.termId,
+            value: rN.value,
+            score: rN.score,
+            ask: rN.needsConfirmation,
+            outcome: classify(it.u, rN),
+          }),
+        );
       if (tt) tt[classify(it.u, rT)] += 1;
       if (tf) tf[classifyFuse(it.u, rec.hyp)] += 1;
     }
@@ -604,4 +627,5 @@ for (const r of rows) {
     );
   }
 }
+if (dumpFile) writeFileSync(dumpFile, `${dump.join('\n')}\n`);
 if (json) console.log(JSON.stringify({ set: setFiles, voices, utterances: utterances.length, rows }));

@@ -58,6 +58,10 @@ const COMMAND_OBJECTS: Partial<Record<CommandId, Set<string>>> = Object.fromEntr
     ok: 'here it this side with on everything all is looks the zone so far of good',
   }).map(([k, v]) => [k, new Set(v.split(' '))]),
 );
+/** Share of the n-best weight that must agree on a reading for it to be recorded without asking. */
+const NBEST_AGREEMENT = 0.6;
+/** Share of the heard words a finding must explain to be recorded from speech without asking. */
+const NBEST_COVERAGE = 0.8;
 /** Weights of n-best alternatives by rank when the recogniser gives no confidence. */
 const RANK_WEIGHTS = [1, 0.6, 0.45, 0.35, 0.3];
 /** Words after a reading that qualify it without changing it ("five thirty seconds roughly", "one ten psi cold"). */
@@ -539,6 +543,21 @@ export function createMatcher(grammarInput: unknown, options: MatcherOptions = {
   };
 
   const zoneIds = new Set<string>(grammar.zones.zones.map((z) => z.id));
+  const unitWordSet = new Set([...unitPhraseWords]);
+  const isNumberish = (w: string | undefined) =>
+    w !== undefined && (numberWords.has(w) || /^\d+$/.test(w)) && w !== 'and';
+  /** A recogniser's slips inside a number: "twenty too inches" → two, "one end three quarters" → and. */
+  const fixNumberSlips = (ws: string[]): string[] =>
+    ws.map((w, i) => {
+      if (
+        (w === 'to' || w === 'too') &&
+        isNumberish(ws[i - 1]) &&
+        (i === ws.length - 1 || unitWordSet.has(ws[i + 1] ?? ''))
+      )
+        return 'two';
+      if (w === 'end' && isNumberish(ws[i - 1]) && isNumberish(ws[i + 1])) return 'and';
+      return w;
+    });
 
   const match = (text: string, rawCtx: MatchContext = {}): MatchResult => {
     const input = typeof text === 'string' ? text : '';
@@ -551,7 +570,7 @@ export function createMatcher(grammarInput: unknown, options: MatcherOptions = {
     const result = emptyResult(input);
     let tokens: string[];
     try {
-      tokens = normalize(input);
+      tokens = fixNumberSlips(normalize(input));
     } catch {
       return result;
     }
@@ -918,6 +937,7 @@ export function createMatcher(grammarInput: unknown, options: MatcherOptions = {
       value: q ? round3(q.value) : null,
       unit: q?.unit ?? null,
       termId: `${comp.id}:${cond.id}`,
+      coverage: round3(explains(best)),
       score: round3(Math.min(bySound ? CONFIRM_THRESHOLD - 0.01 : 1, best.score)),
       alternatives: alternativesOf(cands.slice(1)),
       needsConfirmation: bySound || best.score < CONFIRM_THRESHOLD,
@@ -951,7 +971,9 @@ export function createMatcher(grammarInput: unknown, options: MatcherOptions = {
     if (!first) return emptyResult('');
     const weights = list.map((a, i) => {
       const c = a.confidence;
-      return typeof c === 'number' && Number.isFinite(c) && c > 0 ? Math.min(1, c) : (RANK_WEIGHTS[i] ?? 0.1);
+      return typeof c === 'number' && Number.isFinite(c) && c >= 0
+        ? Math.min(1, Math.max(0.01, c))
+        : (RANK_WEIGHTS[i] ?? 0.1);
     });
     const total = weights.reduce((a, b) => a + b, 0) || 1;
     const results = list.map((a) => match(a.transcript, ctx));
@@ -1002,10 +1024,13 @@ export function createMatcher(grammarInput: unknown, options: MatcherOptions = {
       ...top.best,
       score,
       alternatives: merged(top.best.alternatives, top.best.kind === 'defect' ? top.best.termId : null),
+      // with several alternatives, a reading is recorded without asking only when most of their weight agrees on it
       needsConfirmation:
         top.best.needsConfirmation ||
         !top.inFirst ||
-        (top.best.kind === 'command' || top.best.kind === 'ok' ? agreement < 0.5 : score < CONFIRM_THRESHOLD),
+        (list.length > 1 && agreement < NBEST_AGREEMENT) ||
+        (top.best.coverage !== undefined && top.best.coverage !== null && top.best.coverage < NBEST_COVERAGE) ||
+        (top.best.kind !== 'command' && top.best.kind !== 'ok' && score < CONFIRM_THRESHOLD),
     };
   };
 

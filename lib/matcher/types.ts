@@ -46,6 +46,8 @@ export type MatchResult = {
   source: string | null;
   /** True when the UI must ask "did you mean …?" before recording. */
   needsConfirmation: boolean;
+  /** A finding: the share of the content words it explains (0..1). */
+  coverage?: number | null;
   /** Set on an `unknown` result that heard a condition but no component: the question to ask ("what is loose?"). */
   question?: string | null;
 };
