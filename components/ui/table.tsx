@@ -148,7 +148,7 @@ export function Table<T>({
             pad,
             meta.align === 'right' ? 'sm:text-right' : 'text-left',
             meta.card === 'hidden' || blank ? 'max-sm:hidden' : 'max-sm:flex max-sm:gap-x-2 max-sm:px-0 max-sm:py-0.5',
-            meta.card === 'title' && 'max-sm:pb-1 max-sm:text-lg max-sm:font-bold',
+            meta.card === 'title' && 'max-sm:order-first max-sm:pb-1 max-sm:text-lg max-sm:font-bold',
             meta.className,
           )}
         >
@@ -157,7 +157,7 @@ export function Table<T>({
               {text}
             </span>
           ) : null}
-          <span className="min-w-0 max-sm:flex-1">{content}</span>
+          <span className="min-w-0 max-sm:flex-1 max-sm:[overflow-wrap:anywhere]">{content}</span>
         </Tag>
       );
     });
@@ -235,7 +235,7 @@ export function Table<T>({
                 role="row"
                 {...extra}
                 className={cx(
-                  'block sm:table-row sm:border-t sm:border-edge/15',
+                  'block max-sm:flex max-sm:flex-col sm:table-row sm:border-t sm:border-edge/15',
                   framed
                     ? 'max-sm:mb-3 max-sm:rounded-lg max-sm:border-slab max-sm:border-edge max-sm:bg-panel max-sm:p-3'
                     : 'max-sm:border-b-2 max-sm:border-edge/20 max-sm:px-3 max-sm:py-2.5 max-sm:last:border-b-0',

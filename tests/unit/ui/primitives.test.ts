@@ -101,9 +101,7 @@ describe('Table', () => {
   });
   it('leaves a cell with nothing in it out of the card, not as a bare label', () => {
     const out = html(createElement(Table<Row>, { label: 'Things', data: [{ id: 'e', name: '', n: 1 }], columns }));
-    expect(out).toMatch(
-      /<td role="cell" class="[^"]*max-sm:hidden[^"]*"><span class="min-w-0 max-sm:flex-1"><\/span><\/td>/,
-    );
+    expect(out).toMatch(/<td role="cell" class="[^"]*max-sm:hidden[^"]*"><span class="[^"]*"><\/span><\/td>/);
   });
   it('shows the empty state when there is no row', () => {
     const out = html(createElement(Table<Row>, { label: 'Things', data: [], columns, empty: 'Nothing yet.' }));
