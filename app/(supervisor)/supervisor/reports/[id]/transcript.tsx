@@ -83,13 +83,13 @@ const col = createColumnHelper<Step>();
 const makeColumns = (timeZone: string) => [
   col.accessor('deviceAt', {
     header: 'Time',
-    size: 64,
+    size: 104,
     meta: { className: 'tabular-nums', card: 'title' },
     cell: (c) => <TimeStamp iso={c.getValue()} timeZone={timeZone} format="time" />,
   }),
   col.accessor('heard', {
     header: 'Heard',
-    size: 160,
+    size: 140,
     cell: ({ row: { original: s } }) =>
       s.heard ? (
         <q className="text-base">{s.heard}</q>
@@ -100,7 +100,7 @@ const makeColumns = (timeZone: string) => [
   col.accessor((s) => s.alternatives.join(' · '), {
     id: 'alternatives',
     header: 'Other readings',
-    size: 110,
+    size: 90,
     meta: { className: 'text-muted', card: 'hidden' },
   }),
   col.display({ id: 'match', header: 'Matched / measured', size: 250, cell: ({ row }) => <Match s={row.original} /> }),
