@@ -110,7 +110,7 @@ export async function listDefectPhotos(
 ) {
   return db
     .selectFrom('attachment')
-    .select(['id', 'objectKey', 'contentType', 'createdAt'])
+    .select(['id', 'objectKey', 'contentType', 'createdAt', 'defectId'])
     .where('fleetId', '=', fleetId)
     .where((eb) => eb.or([eb('defectId', '=', defectId), eb('stepId', '=', stepId)]))
     .orderBy('createdAt')

@@ -14,6 +14,8 @@ export const defectDetailOptions = (id: string) =>
 
 export type CertifyRepairResult = {
   id: string;
+  /** Every defect the signature covered: this one and the rest of its work order. */
+  certifiedIds: string[];
   status: 'repaired' | 'no_repair_needed';
   certifiedName: string;
   certifiedAt: string;

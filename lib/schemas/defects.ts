@@ -19,6 +19,8 @@ export const certifyRepairBodySchema = z
     notes: z.string().trim().max(4000).default(''),
     certifiedName: z.string().trim().min(2, 'type your full name to sign').max(120),
     confirm: z.literal(true, { message: 'tick the certification statement to sign it' }),
+    /** Other open defects of the same unit certified with this one: a work order signed once. */
+    togetherWith: z.array(idSchema).max(50, 'at most 50 defects in one work order').optional(),
   })
   .refine((b) => b.outcome === 'no_repair_needed' || b.work.length >= 3, {
     path: ['work'],
@@ -71,6 +73,8 @@ export type DefectDetail = {
   id: string;
   /** The fleet's IANA time zone, for every time shown with the defect. */
   timezone: string;
+  /** The unit's other open defects, to certify with this one as a work order. */
+  unitOpenDefects: { id: string; severity: 'minor' | 'major'; description: string }[];
   unitId: string;
   unitNumber: string;
   unitKind: 'tractor' | 'trailer';
@@ -104,5 +108,6 @@ export type DefectDetail = {
   };
   repair: { work: string | null; parts: string | null; notes: string | null };
   certification: { name: string | null; at: string; text: string | null } | null;
-  photos: { id: string; contentType: string; url: string }[];
+  /** `takenBy`: the driver's photo of the finding, or the mechanic's of the repair. */
+  photos: { id: string; contentType: string; url: string; takenBy: 'driver' | 'mechanic'; takenAt: string }[];
 };

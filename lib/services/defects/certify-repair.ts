@@ -45,15 +45,35 @@ export async function certifyRepair({
   if (!isSameSignerName(body.certifiedName, actorName))
     throw new AppError('invalid_body', signerNameMessage(actorName), { certifiedName: [`Type ${actorName}.`] });
   const at = new Date();
+  // A work order: this defect and any other open ones of the same unit, signed once.
+  const ids = [...new Set([id, ...(body.togetherWith ?? [])])];
   const result = await getDb()
     .transaction()
     .execute(async (trx) => {
-      const defect = await lockDefect(trx, { fleetId, id });
-      if (!defect) throw new AppError('not_found', 'No such defect in your fleet.');
-      if (defect.status !== 'open')
+      const locked = [];
+      for (const one of ids) {
+        const defect = await lockDefect(trx, { fleetId, id: one });
+        if (!defect)
+          throw new AppError(
+            'not_found',
+            one === id ? 'No such defect in your fleet.' : `No such defect in your fleet: ${one}.`,
+          );
+        if (defect.status !== 'open')
+          throw new AppError(
+            'conflict',
+            ids.length > 1
+              ? `“${defect.description}” is already certified; take it out of the work order. A certification is part of the record and is not changed.`
+              : 'This defect is already certified; a certification is part of the record and is not changed.',
+          );
+        locked.push(defect);
+      }
+      const defect = locked[0]!;
+      const stranger = locked.find((d) => d.unitId !== defect.unitId);
+      if (stranger)
         throw new AppError(
-          'conflict',
-          'This defect is already certified; a certification is part of the record and is not changed.',
+          'invalid_body',
+          `A work order covers one unit: “${stranger.description}” is on another unit. Certify it from its own unit.`,
+          { togetherWith: ['every defect must be on the same unit'] },
         );
       const { unit, defects } = await listUnitDefectsForStatus(trx, { fleetId, unitId: defect.unitId });
       const before = getUnitServiceStatus(unit.id, defects.map(toRecord));
@@ -70,11 +90,12 @@ export async function certifyRepair({
           certificationText: repairCertificationStatement[body.outcome],
           certifiedAt: at,
         })
-        .where('id', '=', id)
+        .where('id', 'in', ids)
+        .where('fleetId', '=', fleetId)
         .execute();
       const after = getUnitServiceStatus(
         unit.id,
-        defects.map((d) => toRecord(d.id === id ? { ...d, status: body.outcome, certifiedAt: at } : d)),
+        defects.map((d) => toRecord(ids.includes(d.id) ? { ...d, status: body.outcome, certifiedAt: at } : d)),
       );
       const nextStatus = after.outOfService ? 'out_of_service' : 'in_service';
       const changed = nextStatus !== unit.status;
@@ -87,14 +108,18 @@ export async function certifyRepair({
       await trx
         .insertInto('auditLog')
         .values([
-          {
+          ...ids.map((one) => ({
             fleetId,
             actorId,
             action: 'defect.certified',
             entity: 'defect',
-            entityId: id,
-            detail: JSON.stringify({ outcome: body.outcome, certifiedName: body.certifiedName }),
-          },
+            entityId: one,
+            detail: JSON.stringify({
+              outcome: body.outcome,
+              certifiedName: body.certifiedName,
+              ...(ids.length > 1 ? { workOrder: ids } : {}),
+            }),
+          })),
           ...(changed
             ? [
                 {
@@ -111,7 +136,9 @@ export async function certifyRepair({
         .execute();
       const closedMajors = defects.filter(
         (d) =>
-          d.severity === 'major' && (d.id === id || d.status !== 'open') && before.openMajor.some((m) => m.id === d.id),
+          d.severity === 'major' &&
+          (ids.includes(d.id) || d.status !== 'open') &&
+          before.openMajor.some((m) => m.id === d.id),
       );
       return {
         unit: { id: unit.id, unitNumber: unit.unitNumber, status: nextStatus, changed },
@@ -134,8 +161,8 @@ export async function certifyRepair({
         defects: result.closedMajors.map((d) => ({
           severity: 'major' as const,
           description: d.description,
-          certifiedName: d.id === id ? body.certifiedName : d.certifiedName,
-          outcome: d.id === id ? body.outcome : d.status,
+          certifiedName: ids.includes(d.id) ? body.certifiedName : d.certifiedName,
+          outcome: ids.includes(d.id) ? body.outcome : d.status,
         })),
         certifiedName: body.certifiedName,
         certifiedAt: at.toISOString(),
@@ -145,6 +172,7 @@ export async function certifyRepair({
   }
   return {
     id,
+    certifiedIds: ids,
     status: body.outcome,
     certifiedName: body.certifiedName,
     certifiedAt: at.toISOString(),

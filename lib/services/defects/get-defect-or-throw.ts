@@ -10,6 +10,17 @@ export async function getDefectOrThrow({ fleetId, id }: { fleetId: string; id: s
   const d = await findDefectDetail(db, { fleetId, id });
   if (!d) throw new AppError('not_found', 'No such defect in your fleet.');
   const photos = await listDefectPhotos(db, { fleetId, defectId: d.id, stepId: d.stepId });
+  // The unit's other open defects: the mechanic may certify them with this one as a work order.
+  const others = await db
+    .selectFrom('defect')
+    .select(['id', 'severity', 'description'])
+    .where('fleetId', '=', fleetId)
+    .where('unitId', '=', d.unitId)
+    .where('status', '=', 'open')
+    .where('id', '!=', d.id)
+    .orderBy('severity', 'asc')
+    .orderBy('createdAt', 'asc')
+    .execute();
   return {
     id: d.id,
     unitId: d.unitId,
@@ -33,6 +44,7 @@ export async function getDefectOrThrow({ fleetId, id }: { fleetId: string; id: s
     location: d.location,
     driverName: d.driverName,
     timezone: d.timezone,
+    unitOpenDefects: others.map((o) => ({ id: o.id, severity: o.severity, description: o.description })),
     finding: {
       heard: d.heard,
       score: d.score === null ? null : Number(d.score),
@@ -48,6 +60,13 @@ export async function getDefectOrThrow({ fleetId, id }: { fleetId: string; id: s
     certification: d.certifiedAt
       ? { name: d.certifiedName, at: d.certifiedAt.toISOString(), text: d.certificationText }
       : null,
-    photos: photos.map((p) => ({ id: p.id, contentType: p.contentType, url: `/api/attachments/${p.id}` })),
+    photos: photos.map((p) => ({
+      id: p.id,
+      contentType: p.contentType,
+      url: `/api/attachments/${p.id}`,
+      // A photo the mechanic added carries the defect; the driver's is on the finding's step.
+      takenBy: p.defectId === d.id ? ('mechanic' as const) : ('driver' as const),
+      takenAt: p.createdAt.toISOString(),
+    })),
   };
 }

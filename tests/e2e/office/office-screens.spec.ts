@@ -108,3 +108,36 @@ test("one report's times are in the fleet's zone on every screen, with the viewe
     await page.context().close();
   }
 });
+
+test("mechanic's defect: a work order of the unit's open defects, 44 px confirmation targets, no link outside the role", async ({
+  browser,
+}) => {
+  test.setTimeout(60_000);
+  const db = openDb();
+  let defectId: string;
+  try {
+    const row = await db
+      .selectFrom('defect as a')
+      .innerJoin('defect as b', (j) => j.onRef('b.unitId', '=', 'a.unitId').onRef('b.id', '!=', 'a.id'))
+      .innerJoin('fleet as f', 'f.id', 'a.fleetId')
+      .select('a.id')
+      .where('f.slug', '=', 'northbank')
+      .where('a.status', '=', 'open')
+      .where('b.status', '=', 'open')
+      .executeTakeFirstOrThrow();
+    defectId = row.id;
+  } finally {
+    await db.destroy();
+  }
+  const page = await signedIn(browser, people.mechanic, { width: 390, height: 844 });
+  await page.goto(`/mechanic/defects/${defectId}`);
+  const order = page.getByTestId('work-order');
+  await expect(order).toBeVisible();
+  const form = page.getByRole('form', { name: 'Repair and certification' });
+  for (const box of await form.locator('label:has(input[type="checkbox"]), label:has(input[type="radio"])').all()) {
+    const h = (await box.boundingBox())?.height ?? 0;
+    expect(h, `${await box.innerText()}: target height`).toBeGreaterThanOrEqual(44);
+  }
+  await expect(page.locator('a[href^="/supervisor/"]')).toHaveCount(0);
+  await page.context().close();
+});

@@ -5,7 +5,15 @@ import Link from 'next/link';
 import { useState } from 'react';
 import { kindLabel, zoneLabel } from '@/components/office/format';
 import { TimeStamp } from '@/components/ui/time-stamp';
-import { formatLimitText, formatQuantity, idWords, nameFinding, sourceWords } from '@/lib/walk/name-finding';
+import {
+  countWords,
+  formatLimitText,
+  formatQuantity,
+  idWords,
+  nameFinding,
+  sourceWords,
+  tidyText,
+} from '@/lib/walk/name-finding';
 import { useHydrated } from '@/components/ui/use-hydrated';
 import { SafetyCautions } from '@/components/office/safety-cautions';
 import { Button, buttonClass } from '@/components/ui/button';
@@ -19,7 +27,18 @@ import { repairCertificationStatement } from '@/lib/schemas/defects';
 
 const input = 'w-full rounded-md border-2 border-edge/60 bg-ground p-2 text-base aria-[invalid=true]:border-major';
 
-export function DefectClient({ id, userName, canCertify }: { id: string; userName: string; canCertify: boolean }) {
+export function DefectClient({
+  id,
+  userName,
+  canCertify,
+  canOpenReport,
+}: {
+  id: string;
+  userName: string;
+  canCertify: boolean;
+  /** The whole report is a supervisor's page: linked only for those who can open it. */
+  canOpenReport: boolean;
+}) {
   const { data: d } = useQuery(defectDetailOptions(id));
   const certify = useCertifyRepairMutation(id);
   const [outcome, setOutcome] = useState<'repaired' | 'no_repair_needed'>('repaired');
@@ -28,6 +47,7 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
   const [notes, setNotes] = useState('');
   const [name, setName] = useState(userName);
   const [confirm, setConfirm] = useState(false);
+  const [together, setTogether] = useState<string[]>([]);
   const live = useHydrated();
   const queryClient = useQueryClient();
   const [photoState, setPhotoState] = useState<string | null>(null);
@@ -99,26 +119,42 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
             </div>
           )}
         </dl>
-        <p className="text-sm">
-          <Link href={`/supervisor/reports/${d.inspectionId}`} className="underline">
-            The whole report
-          </Link>{' '}
-          (supervisors)
-        </p>
-        {d.photos.length > 0 && (
-          <div className="flex flex-wrap gap-2">
-            {d.photos.map((p) => (
-              <a key={p.id} href={p.url} target="_blank" rel="noreferrer">
-                {/* eslint-disable-next-line @next/next/no-img-element */}
-                <img
-                  src={`${p.url}?size=thumb`}
-                  alt={`Photo of ${d.component}`}
-                  className="h-28 w-36 rounded border-2 border-edge object-cover"
-                />
-              </a>
-            ))}
-          </div>
+        {canOpenReport && (
+          <p className="text-sm">
+            <Link href={`/supervisor/reports/${d.inspectionId}`} className="underline">
+              The whole report
+            </Link>
+          </p>
         )}
+        {(['driver', 'mechanic'] as const).map((who) => {
+          const shown = d.photos.filter((p) => p.takenBy === who);
+          if (!shown.length) return null;
+          const title = who === 'driver' ? "Driver's photos of the finding" : 'Repair photos';
+          return (
+            <figure key={who} className="space-y-1" data-testid={`photos-${who}`}>
+              <figcaption className="text-sm font-bold text-muted uppercase">
+                {title} · {shown.length}
+              </figcaption>
+              <div className="flex flex-wrap gap-2">
+                {shown.map((p) => (
+                  <a key={p.id} href={p.url} target="_blank" rel="noreferrer" className="relative">
+                    {/* eslint-disable-next-line @next/next/no-img-element */}
+                    <img
+                      src={`${p.url}?size=thumb`}
+                      alt={`${who === 'driver' ? "Driver's photo" : 'Repair photo'} of ${d.component}`}
+                      className={`h-28 w-36 rounded object-cover ${who === 'driver' ? 'border-2 border-edge' : 'border-4 border-pass'}`}
+                    />
+                    <span
+                      className={`absolute bottom-1 left-1 rounded px-1.5 text-xs font-bold ${who === 'driver' ? 'bg-edge text-ground' : 'bg-pass text-white'}`}
+                    >
+                      {who === 'driver' ? 'DRIVER' : 'REPAIR'}
+                    </span>
+                  </a>
+                ))}
+              </div>
+            </figure>
+          );
+        })}
         {canCertify && (
           <div className="flex flex-wrap items-center gap-3">
             <label
@@ -148,11 +184,12 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
 
       {certify.data && (
         <p role="status" className="rounded border-2 border-pass p-2 text-lg font-bold" data-testid="certify-result">
-          Certified. Unit {certify.data.unit.unitNumber} is{' '}
+          {certify.data.certifiedIds.length > 1
+            ? `Certified ${countWords(certify.data.certifiedIds.length, 'defect')} in one work order`
+            : 'Certified'}
+          . Unit {certify.data.unit.unitNumber} is{' '}
           {certify.data.unit.status === 'in_service' ? 'in service' : 'still OUT OF SERVICE'}
-          {certify.data.openMajor > 0
-            ? ` (${certify.data.openMajor} major defect${certify.data.openMajor > 1 ? 's' : ''} still open)`
-            : ''}
+          {certify.data.openMajor > 0 ? ` (${countWords(certify.data.openMajor, 'major defect')} still open)` : ''}
           {certify.data.unit.changed && certify.data.mailed ? '; maintenance and the supervisor were mailed.' : '.'}
         </p>
       )}
@@ -180,7 +217,15 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
             className="space-y-4"
             onSubmit={(e) => {
               e.preventDefault();
-              certify.mutate({ outcome, work, parts, notes, certifiedName: name, confirm: confirm as true });
+              certify.mutate({
+                outcome,
+                work,
+                parts,
+                notes,
+                certifiedName: name,
+                confirm: confirm as true,
+                togetherWith: together,
+              });
             }}
           >
             <h2 className="text-xl font-extrabold">Repair</h2>
@@ -218,6 +263,41 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
                 />
               )}
             </Field>
+            {d.unitOpenDefects.length > 0 && (
+              <fieldset className="space-y-2" data-testid="work-order">
+                <legend className="text-xl font-extrabold">Work order</legend>
+                <p className="text-base text-muted">
+                  Unit {d.unitNumber} has {countWords(d.unitOpenDefects.length, 'other open defect')}. Tick those this
+                  repair and signature cover; leave them to certify one by one.
+                </p>
+                {d.unitOpenDefects.map((o) => (
+                  <label
+                    key={o.id}
+                    className="flex min-h-target cursor-pointer items-center gap-3 rounded-lg border-2 border-edge/30 px-3 py-2 text-base"
+                  >
+                    <input
+                      type="checkbox"
+                      checked={together.includes(o.id)}
+                      onChange={(e) =>
+                        setTogether((t) => (e.target.checked ? [...t, o.id] : t.filter((x) => x !== o.id)))
+                      }
+                      className="size-7 shrink-0"
+                    />
+                    <SeverityMark severity={o.severity} compact />
+                    <span>{tidyText(o.description)}</span>
+                  </label>
+                ))}
+                <Button
+                  type="button"
+                  size="compact"
+                  onClick={() =>
+                    setTogether(together.length === d.unitOpenDefects.length ? [] : d.unitOpenDefects.map((o) => o.id))
+                  }
+                >
+                  {together.length === d.unitOpenDefects.length ? 'Untick all' : 'Tick all'}
+                </Button>
+              </fieldset>
+            )}
             <fieldset className="space-y-2">
               <legend className="text-xl font-extrabold">Certification</legend>
               {(['repaired', 'no_repair_needed'] as const).map((o) => (
@@ -247,12 +327,12 @@ export function DefectClient({ id, userName, canCertify }: { id: string; userNam
                   />
                 )}
               </Field>
-              <label className="flex items-start gap-3 text-base">
+              <label className="flex min-h-target cursor-pointer items-start gap-3 rounded-lg border-2 border-edge/30 px-3 py-2 text-base">
                 <input
                   type="checkbox"
                   checked={confirm}
                   onChange={(e) => setConfirm(e.target.checked)}
-                  className="mt-1 h-6 w-6"
+                  className="mt-0.5 size-7 shrink-0"
                 />
                 <span>{repairCertificationStatement[outcome]} The time of signing is recorded.</span>
               </label>

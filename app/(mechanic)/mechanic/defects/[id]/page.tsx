@@ -22,7 +22,12 @@ export default async function DefectPage({ params }: { params: Promise<{ id: str
   }
   return (
     <HydrationBoundary state={dehydrate(qc)}>
-      <DefectClient id={id.data} userName={user.name ?? ''} canCertify={user.roles.includes('mechanic')} />
+      <DefectClient
+        id={id.data}
+        userName={user.name ?? ''}
+        canCertify={user.roles.includes('mechanic')}
+        canOpenReport={user.roles.includes('supervisor')}
+      />
     </HydrationBoundary>
   );
 }
