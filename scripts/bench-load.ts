@@ -2,6 +2,11 @@
 // a 60-step inspection (start, steps with client ids, one photo, sign), driven by autocannon.
 //
 //   npm run bench:load [-- --json] [-- --drivers N --steps N --rate R --groups G] [-- --profile DIR]
+//                      [-- --instances N]
+//
+// `--instances 2` runs two `next start` processes on the one database behind a round-robin proxy
+// that alternates every driver's requests between them, and checks across them that a session,
+// the sign-in throttle and a step sent to both at once hold.
 //
 // Each autocannon connection is one driver with its own session cookie and tractor, posting its
 // steps one after another. `--rate` caps the requests per second across all drivers (a yard of
@@ -18,6 +23,8 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { inspect } from 'node:util';
 import autocannon from 'autocannon';
+import http from 'node:http';
+import { createProxyServer } from 'http-proxy-3';
 import { sql } from 'kysely';
 import { encode } from 'next-auth/jwt';
 import pg from 'pg';
@@ -26,6 +33,8 @@ import { createDb, databaseUrlFromEnv } from '../db/connect';
 import { hashPassword, makeFleet, makeUnit } from '../db/factories';
 import { migrateToLatest } from '../db/migrate';
 import zonesGrammar from '../grammars/zones.json' with { type: 'json' };
+import type { Zones } from '../lib/schemas/grammar';
+import { configurationOf, DEFAULT_REQUIRED_READINGS, listOpenItems, listWalkZones } from '../lib/walk';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 const args = process.argv.slice(2);
@@ -38,6 +47,8 @@ const DRIVERS = flag('drivers', 100);
 const STEPS = flag('steps', 60);
 const RATE = flag('rate', 100);
 const REPLAY_SHARE = 0.1;
+/** `--instances N`: N `next start` processes on the one database behind a round-robin proxy. */
+const INSTANCES = Math.max(1, Math.min(flag('instances', 1), 4));
 if (RATE > 0 && RATE < DRIVERS) {
   console.error(
     `[bench:load] --rate ${RATE} is below one step per second per driver, the slowest autocannon paces a connection; use at least ${DRIVERS}, or 0 for no cap`,
@@ -99,10 +110,12 @@ function freePort(): Promise<number> {
   });
 }
 
-let app: ChildProcess | null = null;
+const apps: ChildProcess[] = [];
 const helpers: ChildProcess[] = [];
+let balancer: http.Server | null = null;
 function stopApp() {
-  for (const child of [app, ...helpers]) {
+  balancer?.close();
+  for (const child of [...apps, ...helpers]) {
     if (child?.pid && child.exitCode === null) {
       try {
         process.kill(-child.pid, 'SIGTERM');
@@ -170,39 +183,84 @@ function runBuildIfMissing(env: NodeJS.ProcessEnv) {
   });
 }
 
-async function startApp(databaseUrl: string): Promise<string> {
+/** Requests each instance answered through the proxy. */
+const perInstance: number[] = [];
+
+/**
+ * The app: one `next start`, or INSTANCES of them on the same database, object store and mail
+ * catcher behind a round-robin proxy (http-proxy-3). The proxy alternates each driver's requests
+ * (by session cookie) between the instances, so every walk is written by all of them; requests
+ * without a cookie alternate too. Returns the public base URL and each instance's own.
+ */
+async function startApp(databaseUrl: string): Promise<{ base: string; instances: string[] }> {
   const fakes = await startFakes();
-  const port = await freePort();
-  const base = `http://127.0.0.1:${port}`;
-  const env = {
-    ...process.env,
-    ...fakes,
-    DATABASE_URL: databaseUrl,
-    NEXTAUTH_URL: base,
-    APP_PORT: String(port),
-    NODE_ENV: 'production' as const,
-  };
-  await runBuildIfMissing(env);
+  const ports = await Promise.all(Array.from({ length: INSTANCES }, () => freePort()));
+  const publicPort = INSTANCES > 1 ? await freePort() : ports[0]!;
+  const base = `http://127.0.0.1:${publicPort}`;
+  const instances = ports.map((p) => `http://127.0.0.1:${p}`);
   fs.mkdirSync(path.join(root, '.data', 'logs'), { recursive: true });
-  const out = fs.openSync(path.join(root, '.data', 'logs', 'bench-load-app.log'), 'w');
-  const profile = PROFILE_DIR ? ['--cpu-prof', `--cpu-prof-dir=${PROFILE_DIR}`] : [];
-  app = spawn(
-    process.execPath,
-    [...profile, 'node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(port)],
-    { cwd: root, env, detached: true, stdio: ['ignore', out, out] },
-  );
-  const until = Date.now() + 60_000;
-  while (Date.now() < until) {
-    if (app.exitCode !== null) throw new Error('the app exited at start (see .data/logs/bench-load-app.log)');
-    try {
-      const res = await fetch(`${base}/api/health`);
-      if (res.ok) return base;
-    } catch {
-      /* not yet */
-    }
-    await new Promise((r) => setTimeout(r, 250));
+  for (const [n, port] of ports.entries()) {
+    const env = {
+      ...process.env,
+      ...fakes,
+      DATABASE_URL: databaseUrl,
+      NEXTAUTH_URL: base,
+      APP_PORT: String(port),
+      NODE_ENV: 'production' as const,
+    };
+    if (n === 0) await runBuildIfMissing(env);
+    const logName = INSTANCES > 1 ? `bench-load-app-${n + 1}.log` : 'bench-load-app.log';
+    const out = fs.openSync(path.join(root, '.data', 'logs', logName), 'w');
+    const profile = PROFILE_DIR ? ['--cpu-prof', `--cpu-prof-dir=${PROFILE_DIR}`] : [];
+    apps.push(
+      spawn(
+        process.execPath,
+        [...profile, 'node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(port)],
+        {
+          cwd: root,
+          env,
+          detached: true,
+          stdio: ['ignore', out, out],
+        },
+      ),
+    );
   }
-  throw new Error('the app did not answer /api/health within 60 s');
+  const until = Date.now() + 90_000;
+  for (const [n, url] of instances.entries()) {
+    for (;;) {
+      if (apps[n]!.exitCode !== null) throw new Error(`app ${n + 1} exited at start (see .data/logs)`);
+      if (Date.now() > until) throw new Error(`app ${n + 1} did not answer /api/health within 90 s`);
+      const ok = await fetch(`${url}/api/health`).then(
+        (r) => r.ok,
+        () => false,
+      );
+      if (ok) break;
+      await new Promise((r) => setTimeout(r, 250));
+    }
+  }
+  if (INSTANCES > 1) {
+    const agent = new http.Agent({ keepAlive: true, maxSockets: 512 });
+    const proxy = createProxyServer({ agent });
+    const turns = new Map<string, number>();
+    let anonymous = 0;
+    perInstance.push(...instances.map(() => 0));
+    proxy.on('error', (_err, _req, res) => {
+      if (res instanceof http.ServerResponse && !res.headersSent) res.writeHead(502).end('proxy: instance away');
+    });
+    balancer = http.createServer({ keepAlive: true }, (req, res) => {
+      const cookie = req.headers.cookie;
+      let turn: number;
+      if (cookie) {
+        turn = turns.get(cookie) ?? turns.size;
+        turns.set(cookie, turn + 1);
+      } else turn = anonymous++;
+      const n = turn % instances.length;
+      perInstance[n]!++;
+      proxy.web(req, res, { target: instances[n] });
+    });
+    await new Promise<void>((resolve) => balancer!.listen(publicPort, '127.0.0.1', resolve));
+  }
+  return { base, instances };
 }
 
 // ------------------------------------------------------------------ the walk
@@ -215,12 +273,25 @@ type Driver = {
   inspectionId: string;
   sent: { id: string; body: string }[];
 };
+// Readings that pass the default rule profile, one per required air-brake test (CDL manual
+// section 5.3: build-up 85 to 100 psi within 45 s, cut-out about 125 psi, cut-in about 100 psi,
+// leakage under 2 psi a minute, low-air warning before 60 psi).
+const passingReading: Record<string, number> = {
+  air_buildup: 30,
+  governor_cutout: 125,
+  governor_cutin: 105,
+  air_leak: 1,
+  low_air_warning: 62,
+};
+// The walk's items in order: the visual ones (answered "OK") and the required readings (answered
+// with a passing number); optional readings are left out, as most drivers do.
 const items = (
-  zonesGrammar as { zones: { id: string; items: { id: string; configurations?: string[] }[] }[] }
+  zonesGrammar as { zones: { id: string; items: { id: string; configurations?: string[]; measure?: string }[] }[] }
 ).zones.flatMap((z) =>
   z.items
     .filter((i) => !i.configurations || i.configurations.includes('bobtail'))
-    .map((i) => ({ zone: z.id, item: i.id })),
+    .filter((i) => !i.measure || passingReading[i.measure] !== undefined)
+    .map((i) => ({ zone: z.id, item: i.id, reading: i.measure ? passingReading[i.measure] : undefined })),
 );
 
 /** Step n of a walk: a zone visit when the zone changes, OKs for the items, one defect. */
@@ -241,6 +312,19 @@ function stepBody(n: number): Record<string, unknown> {
     };
   if (n === 0 || at.zone !== items[(n - 1) % items.length]!.zone)
     return { seq: n, zone: at.zone, kind: 'visit', inputMode: 'tap', deviceAt };
+  if (at.reading !== undefined)
+    return {
+      seq: n,
+      zone: at.zone,
+      item: at.item,
+      kind: 'measurement',
+      inputMode: 'voice',
+      heard: String(at.reading),
+      reading: { value: at.reading },
+      score: 0.97,
+      resolution: 'auto',
+      deviceAt,
+    };
   return {
     seq: n,
     zone: at.zone,
@@ -272,8 +356,10 @@ async function main() {
   log(`database rigcall_load on ${new URL(url).host}`);
   await ensureLoadDatabase(url);
   const db = createDb(url, 4);
-  const base = await startApp(url);
-  log(`app at ${base}`);
+  const { base, instances } = await startApp(url);
+  log(
+    INSTANCES > 1 ? `${INSTANCES} instances (${instances.join(', ')}) behind the proxy at ${base}` : `app at ${base}`,
+  );
 
   // Drivers: a user, a session cookie and a tractor each, in one fleet of their own.
   const fleet = await makeFleet(db, { name: `Load fleet ${new Date().toISOString()}` });
@@ -497,6 +583,55 @@ async function main() {
     }
   });
 
+  // At the sign screen a driver answers what is still open (lib/walk's listOpenItems, the same
+  // rule the server signs by): "OK" on each visual item, a passing number for each required reading.
+  const walkZones = listWalkZones(zonesGrammar as Zones, { kind: 'pre_trip', configuration: configurationOf(false) });
+  let answered = 0;
+  await pool(drivers, 10, async (d) => {
+    const recorded = d.sent.map((s) => {
+      const b = JSON.parse(s.body) as { seq: number; zone: string; item?: string; kind: string; termKey?: string };
+      return {
+        id: s.id,
+        seq: b.seq,
+        zone: b.zone,
+        item: b.item ?? null,
+        kind: b.kind,
+        termKey: b.termKey ?? null,
+        undoesStepId: null,
+      };
+    });
+    const open = listOpenItems(walkZones, recorded, { kind: 'pre_trip', requiredReadings: DEFAULT_REQUIRED_READINGS });
+    let seq = Math.max(...recorded.map((r) => r.seq)) + 1;
+    for (const o of open) {
+      const measure = walkZones.find((z) => z.id === o.zone)?.items.find((i) => i.id === o.item)?.measure;
+      const id = randomUUID();
+      const deviceAt = new Date().toISOString();
+      const body = JSON.stringify(
+        measure && passingReading[measure] !== undefined
+          ? {
+              id,
+              seq: seq++,
+              zone: o.zone,
+              item: o.item,
+              kind: 'measurement',
+              inputMode: 'typed',
+              reading: { value: passingReading[measure] },
+              deviceAt,
+            }
+          : { id, seq: seq++, zone: o.zone, item: o.item, kind: 'ok', inputMode: 'tap', deviceAt },
+      );
+      const res = await fetch(`${base}/api/inspections/${d.inspectionId}/steps`, {
+        method: 'POST',
+        headers: headers(d),
+        body,
+      });
+      if (res.status !== 201 && res.status !== 200) note('answer', res.status, await res.text());
+      else answered++;
+      d.sent.push({ id, body });
+    }
+  });
+  log(`${answered} open items answered before signing`);
+
   // One photo per driver, then sign.
   const photo = await sharp({ create: { width: 1200, height: 900, channels: 3, background: '#5a6470' } })
     .jpeg({ quality: 80 })
@@ -526,6 +661,118 @@ async function main() {
     });
     if (res.status !== 200) note('finish', res.status, await res.text());
   });
+
+  // Across instances (each check talks to the instances directly, not through the proxy): a
+  // session signed in on one works on the other, the sign-in throttle counts failures made on
+  // either, and a step sent to both at the same moment is stored once.
+  const across = INSTANCES > 1 ? await checkAcrossInstances() : null;
+  async function checkAcrossInstances() {
+    const [a, b] = [instances[0]!, instances[1]!];
+    const person = async (tag: string) => {
+      const email = `${tag}-${fleet.slug}@load.example`;
+      await db
+        .insertInto('appUser')
+        .values({ fleetId: fleet.id, email, name: `Across ${tag}`, passwordHash, roles: ['driver'], active: true })
+        .execute();
+      return email;
+    };
+    const cookiesOf = (res: Response) => res.headers.getSetCookie().map((c) => c.split(';')[0]!);
+    const signInVia = async (csrfFrom: string, postTo: string, email: string, password: string) => {
+      const csrfRes = await fetch(`${csrfFrom}/api/auth/csrf`);
+      const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
+      const res = await fetch(`${postTo}/api/auth/callback/credentials`, {
+        method: 'POST',
+        redirect: 'manual',
+        headers: {
+          'content-type': 'application/x-www-form-urlencoded',
+          cookie: cookiesOf(csrfRes).join('; '),
+          origin: base,
+        },
+        body: new URLSearchParams({ email, password, csrfToken, json: 'true' }),
+      });
+      const body = (await res.json().catch(() => ({}))) as { url?: string };
+      const error = new URL(body.url ?? res.headers.get('location') ?? 'http://x/').searchParams.get('error');
+      const session = cookiesOf(res).filter((c) => c.startsWith('next-auth.session-token'));
+      return { error, cookie: session.length ? session.join('; ') : null };
+    };
+
+    // A session from one instance on the other.
+    const traveller = await person('across-session');
+    const signedIn = await signInVia(a, b, traveller, 'load-password');
+    const me = async (at: string) =>
+      signedIn.cookie
+        ? ((await (await fetch(`${at}/api/me`, { headers: { cookie: signedIn.cookie } })).json()) as {
+            user?: { email?: string };
+          })
+        : {};
+    const sessionAcross =
+      signedIn.error === null && (await me(a)).user?.email === traveller && (await me(b)).user?.email === traveller;
+    log(
+      `session: signed in through ${b} with ${a}'s CSRF token; /api/me on both: ${sessionAcross ? 'same user' : 'FAILED'}`,
+    );
+
+    // The throttle: four wrong passwords, alternating, then the right one on either is held back.
+    const guessed = await person('across-throttle');
+    const tries: (string | null)[] = [];
+    for (const at of [a, b, a, b]) tries.push((await signInVia(at, at, guessed, 'wrong-password')).error);
+    const thenA = (await signInVia(a, a, guessed, 'load-password')).error ?? '';
+    const thenB = (await signInVia(b, b, guessed, 'load-password')).error ?? '';
+    const throttleAcross =
+      tries.every((e) => e === 'CredentialsSignin') &&
+      /Too many failed sign-ins/.test(thenA) &&
+      /Too many failed sign-ins/.test(thenB);
+    log(`throttle: 4 failures on alternating instances, then the right password: "${thenA}" / "${thenB}"`);
+
+    // The same steps sent to both instances at once: each stored once, both answered 2xx.
+    const tractor = await makeUnit(db, { fleetId: fleet.id, kind: 'tractor' });
+    const inspectionId = randomUUID();
+    const cookie = signedIn.cookie ?? '';
+    const h = { cookie, 'content-type': 'application/json', origin: base };
+    await fetch(`${a}/api/inspections`, {
+      method: 'POST',
+      headers: h,
+      body: JSON.stringify({
+        id: inspectionId,
+        kind: 'pre_trip',
+        tractorId: tractor.id,
+        trailerId: null,
+        odometer: 1,
+        startedAt: new Date().toISOString(),
+      }),
+    });
+    const RACE = 40;
+    const raceIds: string[] = [];
+    const raceStatuses: number[] = [];
+    for (let n = 0; n < RACE; n++) {
+      const id = randomUUID();
+      raceIds.push(id);
+      const body = JSON.stringify({ id, ...stepBody(n) });
+      const both = await Promise.all(
+        [a, b].map((at) => fetch(`${at}/api/inspections/${inspectionId}/steps`, { method: 'POST', headers: h, body })),
+      );
+      for (const r of both) {
+        raceStatuses.push(r.status);
+        await r.arrayBuffer();
+      }
+    }
+    const raceRows = await db
+      .selectFrom('inspectionStep')
+      .select(['id'])
+      .where('inspectionId', '=', inspectionId)
+      .execute();
+    const raceSeen = new Map<string, number>();
+    for (const r of raceRows) raceSeen.set(r.id, (raceSeen.get(r.id) ?? 0) + 1);
+    const race = {
+      steps: RACE,
+      answered_2xx: raceStatuses.filter((x) => x >= 200 && x < 300).length,
+      lost: raceIds.filter((id) => !raceSeen.has(id)).length,
+      doubled: raceRows.length - raceSeen.size + raceRows.filter((r) => !raceIds.includes(r.id)).length,
+    };
+    log(
+      `race: ${RACE} steps each sent to both instances at once: ${race.answered_2xx}/${2 * RACE} answered 2xx, ${raceRows.length} rows, lost ${race.lost}, doubled ${race.doubled}`,
+    );
+    return { session_across: sessionAcross, throttle_across: throttleAcross, race };
+  }
 
   // Count the rows.
   const inspectionIds = drivers.map((d) => d.inspectionId);
@@ -572,6 +819,18 @@ async function main() {
     errors,
     lost,
     doubled,
+    ...(across
+      ? {
+          instances: INSTANCES,
+          requests_per_instance: perInstance,
+          session_across: across.session_across,
+          throttle_across: across.throttle_across,
+          race_steps: across.race.steps,
+          race_2xx: across.race.answered_2xx,
+          race_lost: across.race.lost,
+          race_doubled: across.race.doubled,
+        }
+      : {}),
   };
 
   log(
@@ -590,7 +849,14 @@ async function main() {
   await db.destroy();
   stopApp();
   console.log(JSON.stringify(summary));
-  process.exit(errors === 0 && lost === 0 && doubled === 0 ? 0 : 1);
+  const acrossOk =
+    !across ||
+    (across.session_across &&
+      across.throttle_across &&
+      across.race.lost === 0 &&
+      across.race.doubled === 0 &&
+      across.race.answered_2xx === 2 * across.race.steps);
+  process.exit(errors === 0 && lost === 0 && doubled === 0 && acrossOk ? 0 : 1);
 }
 
 main().catch((err) => {

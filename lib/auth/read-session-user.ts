@@ -15,6 +15,32 @@ function readCookies(header: string | null): Map<string, string> {
   return map;
 }
 
+// Decoding a session cookie derives the key (HKDF) and decrypts the token, on every request of
+// a walk. The same cookie always decodes to the same token, so the result is kept per process for
+// a few minutes, keyed by the cookie's own bytes; the account check below still runs every time.
+const decoded = new Map<string, { token: JWT | null; until: number }>();
+const keepDecodedMs = 5 * 60 * 1000;
+
+async function decodeSessionCookie(headers: Headers): Promise<JWT | null> {
+  const cookies = readCookies(headers.get('cookie'));
+  const raw = [...cookies]
+    .filter(([name]) => name.includes('next-auth.session-token'))
+    .map(([name, value]) => `${name}=${value}`)
+    .sort()
+    .join(';');
+  const now = Date.now();
+  const kept = raw ? decoded.get(raw) : undefined;
+  if (kept && kept.until > now) return kept.token;
+  const token = await getToken({ req: { headers, cookies } as never, secret: getEnv().NEXTAUTH_SECRET });
+  if (raw) {
+    if (decoded.size >= 20_000) decoded.delete(decoded.keys().next().value!);
+    // Never past the token's own expiry.
+    const expires = typeof token?.exp === 'number' ? token.exp * 1000 : Infinity;
+    decoded.set(raw, { token, until: Math.min(now + keepDecodedMs, expires) });
+  }
+  return token;
+}
+
 export type SessionState = {
   user: SessionUser;
   /** Signed in with a temporary password: only the change-password page and route are open. */
@@ -30,10 +56,7 @@ export type SessionState = {
  * change since), or when it began more than one shift ago, however often it was refreshed.
  */
 export async function readSessionState(headers: Headers): Promise<SessionState | null> {
-  const token = await getToken({
-    req: { headers, cookies: readCookies(headers.get('cookie')) } as never,
-    secret: getEnv().NEXTAUTH_SECRET,
-  });
+  const token = await decodeSessionCookie(headers);
   if (!token?.uid) return null;
   const signedInAt = token.signedInAt;
   if (typeof signedInAt !== 'number' || Date.now() / 1000 - signedInAt > sessionMaxAgeSeconds) return null;
