@@ -1,4 +1,4 @@
 import { defineRoute } from '@/lib/api/define-route';
 import { roles } from '@/lib/auth/roles';
 
-export const GET = defineRoute({ roles }, async ({ user }) => Response.json({ user }));
+export const GET = defineRoute({ roles }, ({ user }) => Promise.resolve(Response.json({ user })));

@@ -16,6 +16,8 @@ export default async function AdminUnitsPage({
   const user = await requireRole('admin');
   const { added } = await searchParams;
   const qc = new QueryClient();
+  // The fleet is the signed-in admin's own; the browser's cache holds one fleet, so the key the client reads has no fleet part.
+  // eslint-disable-next-line @tanstack/query/exhaustive-deps
   await qc.prefetchQuery({
     queryKey: adminUnitKeys.list(),
     queryFn: () => listFleetUnits(getDb(), { fleetId: user.fleetId }),

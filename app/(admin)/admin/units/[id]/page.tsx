@@ -18,6 +18,8 @@ export default async function EditUnitPage({ params }: { params: Promise<{ id: s
   if (!unit) notFound();
   const qc = new QueryClient();
   qc.setQueryData(adminUnitKeys.detail(unit.id), unit);
+  // The fleet is the signed-in admin's own; the browser's cache holds one fleet, so the key the client reads has no fleet part.
+  // eslint-disable-next-line @tanstack/query/exhaustive-deps
   await qc.prefetchQuery({
     queryKey: fleetSettingsKeys.detail(),
     queryFn: async () => (await findFleetSettings(getDb(), { fleetId: user.fleetId })) ?? null,

@@ -11,6 +11,8 @@ export const metadata: Metadata = { title: 'Add a unit' };
 export default async function NewUnitPage() {
   const user = await requireRole('admin');
   const qc = new QueryClient();
+  // The fleet is the signed-in admin's own; the browser's cache holds one fleet, so the key the client reads has no fleet part.
+  // eslint-disable-next-line @tanstack/query/exhaustive-deps
   await qc.prefetchQuery({
     queryKey: fleetSettingsKeys.detail(),
     queryFn: async () => (await findFleetSettings(getDb(), { fleetId: user.fleetId })) ?? null,
