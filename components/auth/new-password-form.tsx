@@ -73,9 +73,10 @@ export function NewPasswordForm(props: Props) {
       {props.mode === 'change' ? (
         <>
           <input type="hidden" name="username" autoComplete="username" value={props.email} />
-          <label className="flex flex-col gap-2 text-lg font-bold">
-            Current password
+          <div className="flex flex-col gap-2 text-lg font-bold">
+            <label htmlFor="currentPassword">Current password</label>
             <input
+              id="currentPassword"
               name="currentPassword"
               type="password"
               autoComplete="current-password"
@@ -85,12 +86,13 @@ export function NewPasswordForm(props: Props) {
               className={slabInputClass}
             />
             {hint('currentPassword')}
-          </label>
+          </div>
         </>
       ) : null}
-      <label className="flex flex-col gap-2 text-lg font-bold">
-        New password
+      <div className="flex flex-col gap-2 text-lg font-bold">
+        <label htmlFor="newPassword">New password</label>
         <input
+          id="newPassword"
           name="newPassword"
           type="password"
           autoComplete="new-password"
@@ -104,10 +106,11 @@ export function NewPasswordForm(props: Props) {
           At least {passwordMinLength} characters. A few words with spaces are easy to type and hard to guess.
         </span>
         {hint('newPassword')}
-      </label>
-      <label className="flex flex-col gap-2 text-lg font-bold">
-        New password again
+      </div>
+      <div className="flex flex-col gap-2 text-lg font-bold">
+        <label htmlFor="repeatPassword">New password again</label>
         <input
+          id="repeatPassword"
           name="repeatPassword"
           type="password"
           autoComplete="new-password"
@@ -117,7 +120,7 @@ export function NewPasswordForm(props: Props) {
           className={slabInputClass}
         />
         {hint('repeatPassword')}
-      </label>
+      </div>
       {failure ? (
         <Panel as="p" role="alert" tone="major" className="text-lg font-bold text-major">
           <span aria-hidden="true">▲ </span>

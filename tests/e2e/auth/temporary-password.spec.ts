@@ -5,11 +5,27 @@ import { randomUUID } from 'node:crypto';
 import { expect, test, type Browser, type Page } from '@playwright/test';
 import { demoPassword, demoPerson } from '../fixtures/demo';
 
-async function signIn(page: Page, email: string, password: string) {
+async function signIn(page: Page, email: string, password: string, { expectRefusal = false } = {}) {
   await page.goto('/sign-in');
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
+  if (!expectRefusal) await page.waitForURL((url) => url.pathname !== '/sign-in');
+}
+
+/** A driver of the demo fleet of its own, so that ending its sessions touches no other test. */
+async function makeOwnDriver(): Promise<{ email: string; password: string }> {
+  const { createDb } = await import('../../../db/connect');
+  const { makeUser } = await import('../../../db/factories');
+  const db = createDb(process.env.DATABASE_URL ?? '', 1);
+  try {
+    const fleet = await db.selectFrom('fleet').select('id').where('slug', '=', 'northbank').executeTakeFirstOrThrow();
+    const email = `own-${randomUUID().slice(0, 8)}@northbank.example`;
+    await makeUser(db, { fleetId: fleet.id, roles: ['driver'], email, name: 'Own Driver', password: demoPassword });
+    return { email, password: demoPassword };
+  } finally {
+    await db.destroy();
+  }
 }
 const newPage = async (browser: Browser) => (await browser.newContext()).newPage();
 
@@ -82,15 +98,15 @@ test('invite, mail caught, first sign-in forced to change, old password refused,
 
   // The temporary password is refused; the chosen one signs in.
   const later = await newPage(browser);
-  await signIn(later, email, temporary);
+  await signIn(later, email, temporary, { expectRefusal: true });
   await expect(later.getByRole('alert').filter({ hasText: 'do not match an active account' })).toBeVisible();
   await signIn(later, email, chosen);
   await expect(later).toHaveURL(/\/driver$/);
 });
 
 test('signing out ends the session: the old cookie no longer opens anything', async ({ page, context }) => {
-  const driver = demoPerson('driver');
-  await signIn(page, driver.email, demoPassword);
+  const driver = await makeOwnDriver();
+  await signIn(page, driver.email, driver.password);
   await expect(page).toHaveURL(/\/driver$/);
   const cookie = (await context.cookies()).find((c) => c.name === 'next-auth.session-token');
   expect(cookie).toBeTruthy();
@@ -103,12 +119,12 @@ test('signing out ends the session: the old cookie no longer opens anything', as
 });
 
 test('after sign-in, next=/\\host and next=/%09/host stay on our site', async ({ page }) => {
-  const driver = demoPerson('driver');
+  const driver = await makeOwnDriver();
   for (const next of ['/\\evil.example', '/%09/evil.example']) {
     await page.context().clearCookies();
     await page.goto(`/sign-in?next=${next}`);
     await page.getByLabel('E-mail').fill(driver.email);
-    await page.getByLabel('Password').fill(demoPassword);
+    await page.getByLabel('Password').fill(driver.password);
     await page.getByRole('button', { name: 'Sign in' }).click();
     await expect(page).toHaveURL(/^http:\/\/127\.0\.0\.1:\d+\/driver$/);
   }
