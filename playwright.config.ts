@@ -24,6 +24,9 @@ export default defineConfig({
     baseURL,
     trace: 'retain-on-failure',
     screenshot: 'only-on-failure',
+    // The service worker would answer requests that tests route or break on purpose; the specs
+    // about it (tests/e2e/driver/installable.spec.ts) allow it for themselves.
+    serviceWorkers: 'block',
     launchOptions: {
       executablePath,
       args: [

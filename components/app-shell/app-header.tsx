@@ -1,6 +1,7 @@
 import Link from 'next/link';
 import type { SessionUser } from '@/lib/schemas/session';
 import { roleHome, roleLabel, roles, type Role } from '@/lib/auth/roles';
+import { ConnectionStatus } from './connection-status';
 import { SignOutButton } from './sign-out-button';
 import { ThemeToggle } from './theme-toggle';
 import { buttonClass } from '@/components/ui/button';
@@ -20,6 +21,7 @@ export function AppHeader({ user, view }: { user: SessionUser; view: Role }) {
         <p className="text-lg" data-testid="signed-in-as">
           <span className="font-bold">{user.name}</span> <span className="text-muted">· {roleLabel[view]}</span>
         </p>
+        {view === 'driver' && <ConnectionStatus />}
         {views.length > 1 && (
           <nav aria-label="Switch view" className="flex flex-wrap gap-2">
             {views
