@@ -3,7 +3,18 @@ import { createRequire } from 'node:module';
 import path from 'node:path';
 import type PDFKit from 'pdfkit';
 import type { ReportDetail } from '@/lib/schemas/reports';
-import { formatLimitText, formatQuantity, idWords, nameFinding, sourceWords, tidyText } from '@/lib/walk/name-finding';
+import {
+  formatLimitText,
+  formatQuantity,
+  idWords,
+  nameFinding,
+  nameReading,
+  nounFor,
+  sourceWords,
+  tidyText,
+} from '@/lib/walk/name-finding';
+import { getDb } from '@/lib/db';
+import { getObjectBytes } from '@/lib/storage';
 import { getReportDetail } from './get-report-detail';
 
 // pdfkit reads its font metrics from files beside its own code, so it is loaded at run time from
@@ -19,11 +30,17 @@ const when = (isoText: string | null, tz: string) =>
 const kindWords = (k: string) => (k === 'post_trip' ? 'Post-trip' : 'Pre-trip');
 
 /** The printable record of one report: everything 49 CFR 396.11(a)(2)–(3) asks, and the next driver's review (396.13). */
-export function renderReportPdfFromDetail(r: ReportDetail): Promise<Buffer> {
+/** Images printed with the report: the drawn signature and the photos, by attachment id (PNG or JPEG). */
+export type ReportPdfImages = { signature: Buffer | null; photos: ReadonlyMap<string, Buffer> };
+
+const noImages: ReportPdfImages = { signature: null, photos: new Map() };
+
+export function renderReportPdfFromDetail(r: ReportDetail, images: ReportPdfImages = noImages): Promise<Buffer> {
   const PDFDocument = loadPdfKit();
   const doc = new PDFDocument({
     size: 'LETTER',
     margins: { top: 48, bottom: 48, left: 54, right: 54 },
+    bufferPages: true,
     info: { Title: `Inspection report ${r.tractor.number} ${r.startedAt.slice(0, 10)}`, Author: r.fleetName },
   });
   const chunks: Buffer[] = [];
@@ -120,6 +137,16 @@ export function renderReportPdfFromDetail(r: ReportDetail): Promise<Buffer> {
         `Measured ${formatQuantity(step.value, step.unit)}; limit ${formatLimitText(step.limitText)}; source ${sourceWords(step.source)}.`,
         { indent: 14 },
       );
+    const shots = (step?.photos ?? []).filter((p) => images.photos.has(p.id));
+    if (shots.length) {
+      doc.text(`Driver's ${nounFor(shots.length, 'photo')}:`, { indent: 14 });
+      const top = doc.y + 2;
+      shots.slice(0, 4).forEach((p, k) => {
+        doc.image(images.photos.get(p.id)!, 68 + k * 104, top, { fit: [96, 72] });
+      });
+      doc.y = top + 76;
+      doc.x = 54;
+    }
     if (d.status === 'open') {
       doc
         .font('Helvetica-Bold')
@@ -142,10 +169,27 @@ export function renderReportPdfFromDetail(r: ReportDetail): Promise<Buffer> {
     doc.font('Helvetica').moveDown(0.3);
   }
 
+  heading('Readings within their limits');
+  const passing = r.zones.flatMap((z) => z.steps.filter((st) => st.kind === 'measurement' && st.verdict === 'pass'));
+  if (!passing.length) doc.text('No reading was taken, or none passed.');
+  for (const st of passing)
+    doc.text(
+      `${nameReading({ component: st.component, check: st.measurementKind, value: st.value, unit: st.unit, limitText: st.limitText })} · ${sourceWords(st.source)}`,
+    );
+
   heading("Driver's certification and signature");
   field('Driver', r.driverName);
   field('Statement', r.certificationText ?? '—');
   field('Signed', r.signatureName ? `${r.signatureName}, ${when(r.signedAt, tz)}` : 'NOT SIGNED');
+  if (images.signature) {
+    doc.font('Helvetica-Bold').text('Drawn signature:');
+    const top = doc.y + 2;
+    doc.image(images.signature, 54, top, { fit: [220, 70] });
+    doc.rect(54, top, 220, 70).lineWidth(0.5).stroke('#8a8f98');
+    doc.y = top + 76;
+    doc.x = 54;
+    doc.font('Helvetica');
+  }
 
   heading("Next driver's review (49 CFR 396.13)");
   if (!r.acknowledgements.length)
@@ -172,14 +216,59 @@ export function renderReportPdfFromDetail(r: ReportDetail): Promise<Buffer> {
   doc.text(
     `Printed ${when(new Date().toISOString(), tz)}. Keep this report, its repair certifications and the next driver's review for at least three months (49 CFR 396.11).`,
   );
+  // Page numbers, "n of N", on every page once the length is known.
+  const range = doc.bufferedPageRange();
+  for (let i = range.start; i < range.start + range.count; i++) {
+    doc.switchToPage(i);
+    const bottom = doc.page.margins.bottom;
+    doc.page.margins.bottom = 0;
+    doc
+      .font('Helvetica')
+      .fontSize(9)
+      .fillColor('#4a4e56')
+      .text(`Page ${i - range.start + 1} of ${range.count}`, 54, doc.page.height - 34, { width, align: 'right' });
+    doc.page.margins.bottom = bottom;
+  }
   doc.end();
   return done;
+}
+
+const printable = (bytes: Uint8Array): Buffer | null => {
+  const b = Buffer.from(bytes);
+  const png = b.subarray(0, 8).equals(Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]));
+  const jpeg = b[0] === 0xff && b[1] === 0xd8;
+  return png || jpeg ? b : null;
+};
+
+/** The signature and the finding photos from storage; one that cannot be read is left out, never guessed. */
+async function loadImages(fleetId: string, detail: ReportDetail): Promise<ReportPdfImages> {
+  const row = await getDb()
+    .selectFrom('inspection')
+    .select('signatureKey')
+    .where('fleetId', '=', fleetId)
+    .where('id', '=', detail.id)
+    .executeTakeFirst();
+  const read = async (key: string) => {
+    try {
+      return printable((await getObjectBytes(key)).bytes);
+    } catch {
+      return null;
+    }
+  };
+  const photos = new Map<string, Buffer>();
+  const defectSteps = new Set(detail.defects.map((d) => d.stepId));
+  for (const st of detail.zones.flatMap((z) => z.steps).filter((x) => defectSteps.has(x.id)))
+    for (const p of st.photos.slice(0, 4)) {
+      const bytes = await read(p.objectKey);
+      if (bytes) photos.set(p.id, bytes);
+    }
+  return { signature: row?.signatureKey ? await read(row.signatureKey) : null, photos };
 }
 
 export async function renderReportPdf({ fleetId, id }: { fleetId: string; id: string }) {
   const detail = await getReportDetail({ fleetId, id, withPhotoUrls: false });
   return {
-    pdf: await renderReportPdfFromDetail(detail),
+    pdf: await renderReportPdfFromDetail(detail, await loadImages(fleetId, detail)),
     fileName: `report-${detail.tractor.number}-${detail.startedAt.slice(0, 10)}-${detail.id.slice(0, 8)}.pdf`,
   };
 }
