@@ -61,12 +61,15 @@ export function TimeStamp({
   timeZone,
   format = 'datetime',
   relative = false,
+  viewerClock = true,
   className,
 }: {
   iso: string | null | undefined;
   timeZone?: string;
   format?: TimeStampFormat;
   relative?: boolean;
+  /** Off in dense lists (a transcript's time column) where the heading already shows the viewer's clock. */
+  viewerClock?: boolean;
   className?: string;
 }) {
   const inBrowser = useHydrated();
@@ -82,7 +85,8 @@ export function TimeStamp({
   }).format(date);
   const past = relative && inBrowser ? formatPast(date, new Date()) : null;
   const viewerZone = inBrowser ? Intl.DateTimeFormat().resolvedOptions().timeZone : undefined;
-  const viewerDiffers = !!timeZone && !!viewerZone && format !== 'date' && offsetsDiffer(date, timeZone, viewerZone);
+  const viewerDiffers =
+    viewerClock && !!timeZone && !!viewerZone && format !== 'date' && offsetsDiffer(date, timeZone, viewerZone);
   const named = timeZone && format !== 'date' && !past ? ` ${zoneName(date, timeZone)}` : '';
   return (
     <time dateTime={date.toISOString()} title={full} className={className} data-zone={timeZone ?? 'viewer'}>

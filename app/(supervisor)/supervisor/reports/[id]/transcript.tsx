@@ -85,7 +85,7 @@ const makeColumns = (timeZone: string) => [
     header: 'Time',
     size: 104,
     meta: { className: 'tabular-nums', card: 'title' },
-    cell: (c) => <TimeStamp iso={c.getValue()} timeZone={timeZone} format="time" />,
+    cell: (c) => <TimeStamp iso={c.getValue()} timeZone={timeZone} format="time" viewerClock={false} />,
   }),
   col.accessor('heard', {
     header: 'Heard',
