@@ -98,7 +98,7 @@ test('supervisor reviews, mechanic certifies, unit back in service, mails caught
       await mech.getByLabel('Notes').fill('Checked: within limits, safe to operate.');
     }
     await expect(mech.getByLabel('Your full name (signature)')).toHaveValue('Priya Raman');
-    await mech.getByRole('checkbox').check();
+    await mech.getByRole('checkbox', { name: /The time of signing is recorded/ }).check();
     await sign.click();
     await expect(mech.getByTestId('certify-result')).toContainText('Certified.');
   }
