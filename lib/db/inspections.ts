@@ -86,34 +86,34 @@ export async function findInspectionDetail(db: DB, { fleetId, id }: { fleetId: s
     .executeTakeFirst();
 }
 
+/** The columns of an inspection's header that the start route answers with. */
+export const inspectionHeaderColumns = [
+  'id',
+  'fleetId',
+  'kind',
+  'status',
+  'driverId',
+  'tractorId',
+  'trailerId',
+  'odometer',
+  'location',
+  'billOfLading',
+  'sealNumber',
+  'ruleProfile',
+  'vocabularyVersionId',
+  'startedAt',
+  'finishedAt',
+  'signatureName',
+  'signedAt',
+  'certificationText',
+  'contentHash',
+] as const;
+
 /** The header of one inspection of this fleet, locked for update inside a transaction. */
 export async function findInspectionForUpdate(db: DB, { fleetId, id }: { fleetId: string; id: string }) {
   return db
     .selectFrom('inspection')
-    .select([
-      'id',
-      'fleetId',
-      'kind',
-      'status',
-      'driverId',
-      'tractorId',
-      'trailerId',
-      'odometer',
-      'location',
-      'billOfLading',
-      'sealNumber',
-      'ruleProfile',
-      'vocabularyVersionId',
-      'startedAt',
-      'finishedAt',
-      'signatureName',
-      'signedAt',
-      'certificationText',
-      'contentHash',
-      'createdAt',
-      'signatureKey',
-      'signatureSha256',
-    ])
+    .select([...inspectionHeaderColumns, 'createdAt', 'signatureKey', 'signatureSha256'])
     .where('fleetId', '=', fleetId)
     .where('id', '=', id)
     .forUpdate()

@@ -1,6 +1,6 @@
 import 'server-only';
 import { tidyText } from '@/lib/walk/name-finding';
-import { htmlLayout, safetyFooter, type MailDefect, type RenderedMail } from './render-mail';
+import { renderUnitMail, type MailDefect, type RenderedMail } from './render-mail';
 
 /** The last open major defect of a unit was certified: the unit is back in service. */
 export function renderBackInServiceMail({
@@ -24,25 +24,13 @@ export function renderBackInServiceMail({
     (d) =>
       `${d.outcome === 'no_repair_needed' ? 'no repair needed' : 'repaired'}: ${tidyText(d.description)}${d.certifiedName ? ` (certified by ${d.certifiedName})` : ''}`,
   );
-  const text = [
+  return renderUnitMail({
     subject,
-    '',
     lead,
-    '',
-    ...items.map((i) => `- ${i}`),
-    '',
-    `Certification: ${defectUrl}`,
-    '',
-    safetyFooter,
-    '',
-  ].join('\n');
-  const html = htmlLayout({
+    items,
+    link: { href: defectUrl, label: 'Open the certification', textLabel: 'Certification' },
     band: 'BACK IN SERVICE',
     bandColour: '#16703e',
     heading: `Unit ${unitNumber} may be driven again`,
-    paragraphs: [lead],
-    items,
-    link: { href: defectUrl, label: 'Open the certification' },
   });
-  return { subject, text, html };
 }

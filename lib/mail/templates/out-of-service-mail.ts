@@ -1,6 +1,6 @@
 import 'server-only';
 import { countWords, tidyText } from '@/lib/walk/name-finding';
-import { htmlLayout, safetyFooter, severityWords, type MailDefect, type RenderedMail } from './render-mail';
+import { renderUnitMail, severityWords, type MailDefect, type RenderedMail } from './render-mail';
 
 /** A unit was put out of service by a major defect: to maintenance and the supervisor. */
 export function renderOutOfServiceMail({
@@ -23,25 +23,13 @@ export function renderOutOfServiceMail({
     (d) =>
       `${severityWords(d.severity)}: ${tidyText(d.description)}${d.unitNumber && d.unitNumber !== unitNumber ? ` (unit ${d.unitNumber})` : ''}`,
   );
-  const text = [
+  return renderUnitMail({
     subject,
-    '',
     lead,
-    '',
-    ...items.map((i) => `- ${i}`),
-    '',
-    `Report: ${inspectionUrl}`,
-    '',
-    safetyFooter,
-    '',
-  ].join('\n');
-  const html = htmlLayout({
+    items,
+    link: { href: inspectionUrl, label: 'Open the report', textLabel: 'Report' },
     band: 'OUT OF SERVICE',
     bandColour: '#b21828',
     heading: `Unit ${unitNumber} — do not drive`,
-    paragraphs: [lead],
-    items,
-    link: { href: inspectionUrl, label: 'Open the report' },
   });
-  return { subject, text, html };
 }

@@ -20,7 +20,7 @@ export const safetyFooter =
   "Before anyone works on the unit: chock the wheels, set the spring brakes, engine off and key out, never go under a unit held up only by air suspension, and treat air tanks and lines as pressurised. Local regulations and the carrier's licensed maintenance practice decide what may be driven.";
 
 /** A plain, table-free HTML body: a heading band, paragraphs, a list, a link; readable in any client. */
-export function htmlLayout({
+function htmlLayout({
   band,
   bandColour,
   heading,
@@ -50,4 +50,41 @@ export function htmlLayout({
     `<p style="font-size:13px;color:#4a4e56;margin-top:24px">${escapeHtml(safetyFooter)}</p>`,
     '</div></body></html>',
   ].join('');
+}
+
+/**
+ * A unit mail in both bodies: the subject, one lead paragraph, the defects as a list, one link
+ * (named in the text body by `link.textLabel`), and the safety footer.
+ */
+export function renderUnitMail({
+  subject,
+  lead,
+  items,
+  link,
+  band,
+  bandColour,
+  heading,
+}: {
+  subject: string;
+  lead: string;
+  items: string[];
+  link: { href: string; label: string; textLabel: string };
+  band: string;
+  bandColour: string;
+  heading: string;
+}): RenderedMail {
+  const text = [
+    subject,
+    '',
+    lead,
+    '',
+    ...items.map((i) => `- ${i}`),
+    '',
+    `${link.textLabel}: ${link.href}`,
+    '',
+    safetyFooter,
+    '',
+  ].join('\n');
+  const html = htmlLayout({ band, bandColour, heading, paragraphs: [lead], items, link });
+  return { subject, text, html };
 }

@@ -1,6 +1,6 @@
 import 'server-only';
 import { countWords, tidyText } from '@/lib/walk/name-finding';
-import { htmlLayout, safetyFooter, severityWords, type MailDefect, type RenderedMail } from './render-mail';
+import { renderUnitMail, severityWords, type MailDefect, type RenderedMail } from './render-mail';
 
 /** Open defects that still need the shop (minor ones too: repair before the next inspection is due). */
 export function renderRepairNeededMail({
@@ -19,25 +19,13 @@ export function renderRepairNeededMail({
   const subject = `Repair needed: unit ${unitNumber} (${fleetName})`;
   const lead = `Unit ${unitNumber} has ${countWords(defects.length, 'open defect')} waiting for a repair and its certification${requestedBy ? ` (sent by ${requestedBy})` : ''}.`;
   const items = defects.map((d) => `${severityWords(d.severity)}: ${tidyText(d.description)}`);
-  const text = [
+  return renderUnitMail({
     subject,
-    '',
     lead,
-    '',
-    ...items.map((i) => `- ${i}`),
-    '',
-    `Report: ${inspectionUrl}`,
-    '',
-    safetyFooter,
-    '',
-  ].join('\n');
-  const html = htmlLayout({
+    items,
+    link: { href: inspectionUrl, label: 'Open the report', textLabel: 'Report' },
     band: 'REPAIR NEEDED',
     bandColour: '#965800',
     heading: `Unit ${unitNumber}: open defects`,
-    paragraphs: [lead],
-    items,
-    link: { href: inspectionUrl, label: 'Open the report' },
   });
-  return { subject, text, html };
 }

@@ -1,7 +1,7 @@
 import 'server-only';
 import { getDb } from '@/lib/db';
 import { findFleetSettings } from '@/lib/db/fleets';
-import { findInspectionForUpdate, findPublishedVocabulary } from '@/lib/db/inspections';
+import { findInspectionForUpdate, findPublishedVocabulary, inspectionHeaderColumns } from '@/lib/db/inspections';
 import { findUsableUnit } from '@/lib/db/units';
 import { AppError } from '@/lib/errors';
 import { idTakenError } from '../platform/id-taken';
@@ -89,27 +89,7 @@ function startInspectionRow({ fleetId, actorId, body }: { fleetId: string; actor
           vocabularyVersionId: vocabulary?.id ?? null,
           startedAt: new Date(body.startedAt),
         })
-        .returning([
-          'id',
-          'fleetId',
-          'kind',
-          'status',
-          'driverId',
-          'tractorId',
-          'trailerId',
-          'odometer',
-          'location',
-          'billOfLading',
-          'sealNumber',
-          'ruleProfile',
-          'vocabularyVersionId',
-          'startedAt',
-          'finishedAt',
-          'signatureName',
-          'signedAt',
-          'certificationText',
-          'contentHash',
-        ])
+        .returning(inspectionHeaderColumns)
         .executeTakeFirstOrThrow();
       await recordAudit(trx, {
         fleetId,
